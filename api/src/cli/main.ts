@@ -1,0 +1,42 @@
+/**
+ * Driftcase command line: `npm run cli -- <command> [args]`.
+ * Exit codes: 0 success, 2 invalid input (bad bundle, bad option, failed verification), 1 internal failure.
+ * Each command lives in its own module under ./commands and is loaded only when asked for.
+ */
+type CommandModule = { run(args: string[]): Promise<number> };
+
+const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
+  check: { summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)', load: () => import('./commands/check') },
+  replay: { summary: 'replay PATH [options]          re-run the particle filter over a bundle', load: () => import('./commands/replay') },
+};
+
+function printUsage(): void {
+  process.stdout.write('Usage: npm run cli -- <command> [args]\n\nCommands:\n');
+  for (const { summary } of Object.values(COMMANDS)) process.stdout.write(`  ${summary}\n`);
+}
+
+async function main(argv: string[]): Promise<number> {
+  const [name, ...rest] = argv;
+  if (!name || name === '--help' || name === '-h') {
+    printUsage();
+    return name ? 0 : 2;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    process.stderr.write(`Unknown command "${name}".\n`);
+    printUsage();
+    return 2;
+  }
+  const module = await command.load();
+  return module.run(rest);
+}
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error: unknown) => {
+    process.stderr.write(`Internal failure: ${error instanceof Error ? error.message : String(error)}\n`);
+    process.exitCode = 1;
+  },
+);

@@ -1,0 +1,58 @@
+/**
+ * Error codes shared by the API and the web client, and the one table that maps them to HTTP statuses.
+ * Services throw `AppError`; the API's error middleware turns it into `{ error: { code, message, details } }`.
+ */
+export const ERROR_STATUS = {
+  validation_failed: 400,
+  bad_request: 400,
+  unauthenticated: 401,
+  invalid_credentials: 401,
+  forbidden: 403,
+  csrf_failed: 403,
+  not_found: 404,
+  conflict: 409,
+  illegal_transition: 409,
+  on_hold: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  invalid_bundle: 422,
+  too_many_requests: 429,
+  internal: 500,
+} as const;
+
+export type ErrorCode = keyof typeof ERROR_STATUS;
+
+/** One problem with a request field, named by its path (e.g. `incidentTime` or `items.2.owner`). */
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+export interface ErrorBody {
+  error: { code: ErrorCode; message: string; details?: unknown };
+}
+
+export class AppError extends Error {
+  readonly code: ErrorCode;
+  readonly details?: unknown;
+
+  constructor(code: ErrorCode, message: string, details?: unknown) {
+    super(message);
+    this.name = 'AppError';
+    this.code = code;
+    this.details = details;
+  }
+
+  get status(): number {
+    return ERROR_STATUS[this.code];
+  }
+}
+
+export function isErrorBody(value: unknown): value is ErrorBody {
+  return (
+    typeof value === 'object' &&
+    value !== null &&
+    'error' in value &&
+    typeof (value as ErrorBody).error?.code === 'string'
+  );
+}
