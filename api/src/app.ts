@@ -1,0 +1,99 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express, Router } from 'express';
+import helmet from 'helmet';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { AppError } from '../../shared/errors';
+import type { AppConfig } from './config';
+import type { Database } from './db/client';
+import { errorHandler } from './http/error-handler';
+import { mountRoutes, type RouteSpec } from './http/route-spec';
+import { sessionMiddleware } from './http/session-middleware';
+import { authRoutes } from './routes/auth';
+import { caseRoutes } from './routes/cases';
+import { healthRoutes } from './routes/health';
+import { userRoutes } from './routes/users';
+import { createAuthService } from './services/auth/auth-service';
+import { createCasesService } from './services/cases/cases-service';
+import { createUsersService } from './services/users/users-service';
+
+export interface AppDependencies {
+  db: Database;
+  config: AppConfig;
+  logger: Logger;
+  /** Folder with the built web app; when absent only the API is served. */
+  webDir?: string;
+}
+
+export interface DriftcaseApp extends Express {
+  locals: Express['locals'] & { routeSpecs: RouteSpec[] };
+}
+
+/** Builds the Express app from its dependencies. It never listens: server.ts and the tests do. */
+export function createApp({ db, config, logger, webDir }: AppDependencies): DriftcaseApp {
+  const app = express() as DriftcaseApp;
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  const auth = createAuthService({
+    db,
+    sessionTtlSeconds: config.sessionTtlSeconds,
+    sessionMaxAgeSeconds: config.sessionMaxAgeSeconds,
+  });
+  const users = createUsersService({ db, onDeactivated: auth.revokeAllSessions });
+  const cases = createCasesService({ db });
+  const cookieOptions = { secure: config.secureCookies, maxAgeSeconds: config.sessionMaxAgeSeconds };
+
+  const routeSpecs: RouteSpec[] = [
+    ...healthRoutes(),
+    ...authRoutes(auth, cookieOptions),
+    ...userRoutes(users),
+    ...caseRoutes(cases),
+  ];
+  app.locals.routeSpecs = routeSpecs;
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          // DuckDB-wasm compiles WebAssembly and runs in a worker.
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
+          'worker-src': ["'self'", 'blob:'],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'connect-src': ["'self'"],
+          'font-src': ["'self'", 'data:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      redact: ['req.headers.authorization', 'req.headers.cookie', 'res.headers["set-cookie"]'],
+      customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : 'info'),
+    }),
+  );
+  app.use(cookieParser());
+
+  const api = Router();
+  api.use(express.json({ limit: '2mb' }));
+  api.use(sessionMiddleware(auth, cookieOptions));
+  mountRoutes(api, routeSpecs);
+  api.use((req, _res, next) =>
+    next(new AppError('not_found', `No API route ${req.method} ${req.baseUrl}${req.path}.`)),
+  );
+  app.use('/api', api);
+
+  if (webDir && fs.existsSync(path.join(webDir, 'index.html'))) {
+    app.use(express.static(webDir, { index: false, maxAge: '1h' }));
+    // Client-side routes all load the single page.
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(webDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

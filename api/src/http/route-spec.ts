@@ -1,0 +1,44 @@
+import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
+import { AppError } from '../../../shared/errors';
+import type { Role } from '../../../shared/roles';
+import type { SessionUser } from '../services/auth/session-user';
+
+/** Who may call a route: `public` needs no session; otherwise a session whose role is listed. */
+export type RouteAccess = 'public' | readonly Role[];
+
+export interface AuthedRequest extends Request {
+  user: SessionUser;
+}
+
+export interface RouteSpec {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  access: RouteAccess;
+  /** Extra middleware run after the access check (e.g. multer for uploads). */
+  before?: RequestHandler[];
+  handler: (req: AuthedRequest, res: Response, next: NextFunction) => unknown;
+}
+
+/**
+ * Mounts route specs on a router with their access check first, so every route states its roles
+ * in one place and the role-matrix test can read the same list.
+ */
+export function mountRoutes(router: Router, specs: readonly RouteSpec[]): void {
+  for (const spec of specs) {
+    const guard: RequestHandler = (req, _res, next) => {
+      if (spec.access === 'public') return next();
+      const user = (req as Partial<AuthedRequest>).user;
+      if (!user) return next(new AppError('unauthenticated', 'Sign in to continue.'));
+      if (!spec.access.includes(user.role)) {
+        return next(
+          new AppError('forbidden', `This action needs one of these roles: ${spec.access.join(', ')}.`, {
+            role: user.role,
+            allowed: spec.access,
+          }),
+        );
+      }
+      next();
+    };
+    router[spec.method](spec.path, guard, ...(spec.before ?? []), spec.handler as unknown as RequestHandler);
+  }
+}

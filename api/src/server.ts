@@ -1,0 +1,45 @@
+import path from 'node:path';
+import { pino } from 'pino';
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { openDatabase } from './db/client';
+import { seedDemoData } from './seed/seed-demo';
+import { ensureWebBuild, WEB_DIST } from './web-build';
+
+async function main() {
+  const config = loadConfig();
+  const logger = pino({ level: config.logLevel });
+  const database = await openDatabase(
+    config.databaseUrl
+      ? { kind: 'postgres', url: config.databaseUrl }
+      : { kind: 'pglite-dir', dataDir: path.join(config.dataDir, 'pglite') },
+  );
+  logger.info({ kind: database.kind, dataDir: config.dataDir }, 'database ready');
+  if (config.demoSeed && (await seedDemoData(database.db))) logger.info('seeded demo accounts and cases');
+  await ensureWebBuild(logger);
+
+  const app = createApp({ db: database.db, config, logger, webDir: WEB_DIST });
+  const server = app.listen(config.port, config.host, () => {
+    logger.info(`Driftcase is listening on http://localhost:${config.port}`);
+  });
+
+  let isStopping = false;
+  const stop = async (signal: string) => {
+    if (isStopping) return;
+    isStopping = true;
+    logger.info({ signal }, 'shutting down');
+    server.close();
+    server.closeAllConnections();
+    await database.close();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
+}
+
+main().catch((error: unknown) => {
+  process.stderr.write(
+    `Driftcase could not start: ${error instanceof Error ? error.message : String(error)}\n`,
+  );
+  process.exit(1);
+});

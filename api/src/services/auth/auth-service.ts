@@ -1,0 +1,107 @@
+import { randomUUID } from 'node:crypto';
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import type { TLoginRequest, TSessionUser } from '../../../../shared/contracts/auth';
+import { AppError } from '../../../../shared/errors';
+import type { Database } from '../../db/client';
+import { sessions, users } from '../../db/schema';
+import { hashPassword, verifyPassword } from './passwords';
+import { loadOrCreateSecret } from './server-secret';
+import { csrfTokenFor, readSessionToken, signSessionToken } from './session-tokens';
+import type { SessionUser } from './session-user';
+
+export interface AuthServiceOptions {
+  db: Database;
+  sessionTtlSeconds: number;
+  sessionMaxAgeSeconds: number;
+}
+
+export interface IssuedSession {
+  user: TSessionUser;
+  token: string;
+  csrfToken: string;
+}
+
+export interface AuthenticatedSession {
+  user: SessionUser;
+  csrfToken: string;
+  /** A fresh token when the presented one is past a third of its life; the caller re-sets the cookie. */
+  rotatedToken?: string;
+}
+
+const GENERIC_LOGIN_FAILURE = 'E-mail or password is not correct.';
+
+export function createAuthService({ db, sessionTtlSeconds, sessionMaxAgeSeconds }: AuthServiceOptions) {
+  let keyPromise: Promise<Buffer> | undefined;
+  const sessionKey = () => {
+    keyPromise ??= loadOrCreateSecret(db, 'session-token-key');
+    return keyPromise;
+  };
+  // Checked against unknown e-mails so a wrong address takes as long as a wrong password.
+  const decoyHash = hashPassword('decoy-password-for-timing');
+
+  async function logIn(request: TLoginRequest, userAgent?: string): Promise<IssuedSession> {
+    const [row] = await db.select().from(users).where(eq(users.email, request.email));
+    const isMatch = await verifyPassword(request.password, row?.passwordHash ?? (await decoyHash));
+    if (!row || !isMatch || !row.active) throw new AppError('invalid_credentials', GENERIC_LOGIN_FAILURE);
+    const sessionId = randomUUID();
+    await db.insert(sessions).values({
+      id: sessionId,
+      userId: row.id,
+      expiresAt: new Date(Date.now() + sessionMaxAgeSeconds * 1000),
+      userAgent: userAgent?.slice(0, 300),
+    });
+    const key = await sessionKey();
+    return {
+      user: { id: row.id, email: row.email, name: row.name, role: row.role },
+      token: await signSessionToken(key, row.id, sessionId, sessionTtlSeconds),
+      csrfToken: csrfTokenFor(key, sessionId),
+    };
+  }
+
+  /** Checks a presented token against the live session and account; null means "not signed in". */
+  async function authenticate(token: string, via: SessionUser['via']): Promise<AuthenticatedSession | null> {
+    const key = await sessionKey();
+    const claims = await readSessionToken(key, token);
+    if (!claims) return null;
+    const [found] = await db
+      .select({ user: users, session: sessions })
+      .from(sessions)
+      .innerJoin(users, eq(users.id, sessions.userId))
+      .where(
+        and(
+          eq(sessions.id, claims.sessionId),
+          eq(sessions.userId, claims.userId),
+          isNull(sessions.revokedAt),
+          gt(sessions.expiresAt, new Date()),
+        ),
+      );
+    if (!found || !found.user.active) return null;
+    const ageSeconds = Date.now() / 1000 - claims.issuedAt;
+    const rotatedToken =
+      ageSeconds > sessionTtlSeconds / 3
+        ? await signSessionToken(key, found.user.id, claims.sessionId, sessionTtlSeconds)
+        : undefined;
+    const { id, email, name, role } = found.user;
+    return {
+      user: { id, email, name, role, sessionId: claims.sessionId, via },
+      csrfToken: csrfTokenFor(key, claims.sessionId),
+      rotatedToken,
+    };
+  }
+
+  async function logOut(sessionId: string): Promise<void> {
+    await db.update(sessions).set({ revokedAt: new Date() }).where(eq(sessions.id, sessionId));
+  }
+
+  /** Ends every session of a user, e.g. when an admin deactivates the account. */
+  async function revokeAllSessions(userId: string): Promise<void> {
+    await db
+      .update(sessions)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(sessions.userId, userId), isNull(sessions.revokedAt)));
+  }
+
+  return { logIn, authenticate, logOut, revokeAllSessions };
+}
+
+export type AuthService = ReturnType<typeof createAuthService>;

@@ -1,0 +1,45 @@
+import os from 'node:os';
+import path from 'node:path';
+import { pino } from 'pino';
+import request from 'supertest';
+import { createApp, type DriftcaseApp } from '../../api/src/app';
+import { loadConfig } from '../../api/src/config';
+import type { DatabaseHandle } from '../../api/src/db/client';
+import { DEMO_PASSWORD } from '../../api/src/seed/demo-people';
+import { seedDemoData } from '../../api/src/seed/seed-demo';
+import type { TLoginResponse } from '../../shared/contracts/auth';
+import type { Role } from '../../shared/roles';
+import { createTestDatabase } from './test-database';
+
+export interface TestApp {
+  app: DriftcaseApp;
+  database: DatabaseHandle;
+  /** Signs in a seeded demo account and returns its bearer token. */
+  tokenFor(role: Role): Promise<string>;
+  close(): Promise<void>;
+}
+
+/** The Express app over a fresh in-memory database seeded with the demo accounts. */
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  await seedDemoData(database.db);
+  const config = loadConfig({ DATA_DIR: path.join(os.tmpdir(), `driftcase-test-${process.pid}`), ...env });
+  const app = createApp({ db: database.db, config, logger: pino({ level: 'silent' }) });
+  const tokens = new Map<Role, string>();
+  return {
+    app,
+    database,
+    async tokenFor(role) {
+      const cached = tokens.get(role);
+      if (cached) return cached;
+      const response = await request(app)
+        .post('/api/auth/login')
+        .send({ email: `${role}@driftcase.example`, password: DEMO_PASSWORD })
+        .expect(200);
+      const token = (response.body as TLoginResponse).token;
+      tokens.set(role, token);
+      return token;
+    },
+    close: () => database.close(),
+  };
+}
