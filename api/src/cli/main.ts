@@ -6,8 +6,14 @@
 type CommandModule = { run(args: string[]): Promise<number> };
 
 const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
-  check: { summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)', load: () => import('./commands/check') },
-  replay: { summary: 'replay PATH [options]          re-run the particle filter over a bundle', load: () => import('./commands/replay') },
+  check: {
+    summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)',
+    load: () => import('./commands/check'),
+  },
+  replay: {
+    summary: 'replay PATH [options]          re-run the particle filter over a bundle',
+    load: () => import('./commands/replay'),
+  },
 };
 
 function printUsage(): void {

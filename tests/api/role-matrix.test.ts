@@ -1,0 +1,128 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { RouteSpec } from '../../api/src/http/route-spec';
+import { ROLES, type Role } from '../../shared/roles';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+/**
+ * Calls every route as every role and with no session. A role the route names must get a 2xx,
+ * any other role 403, no session 401. Each route needs a valid sample request below, so a new
+ * route cannot be added without joining the matrix.
+ */
+interface Sample {
+  path: string;
+  body?: object;
+  /** Routes that end the caller's session get a fresh sign-in each call. */
+  needsFreshSession?: boolean;
+}
+
+interface Fixtures {
+  caseId: string;
+  userId: string;
+}
+
+let uniqueCounter = 0;
+const unique = () => `${Date.now()}-${uniqueCounter++}`;
+
+const SAMPLES: Record<string, (f: Fixtures) => Sample> = {
+  'get /health': () => ({ path: '/api/health' }),
+  'post /auth/login': () => ({
+    path: '/api/auth/login',
+    body: { email: 'legal@driftcase.example', password: 'driftcase-demo' },
+  }),
+  'post /auth/logout': () => ({ path: '/api/auth/logout', needsFreshSession: true }),
+  'get /auth/me': () => ({ path: '/api/auth/me' }),
+  'get /users': () => ({ path: '/api/users' }),
+  'post /users': () => ({
+    path: '/api/users',
+    body: {
+      email: `new-${unique()}@driftcase.example`,
+      name: 'New Person',
+      role: 'engineer',
+      password: 'long-enough-password',
+    },
+  }),
+  'patch /users/:id': (f) => ({ path: `/api/users/${f.userId}`, body: { name: `Renamed ${unique()}` } }),
+  'get /cases': () => ({ path: '/api/cases' }),
+  'post /cases': () => ({
+    path: '/api/cases',
+    body: {
+      title: 'Matrix case',
+      site: 'Yard',
+      robotId: 'R-9',
+      incidentTime: '2026-10-01T08:00:00Z',
+      severity: 'low',
+    },
+  }),
+  'get /cases/:id': (f) => ({ path: `/api/cases/${f.caseId}` }),
+  'patch /cases/:id': (f) => ({ path: `/api/cases/${f.caseId}`, body: { summary: `Updated ${unique()}` } }),
+};
+
+let t: TestApp;
+let fixtures: Fixtures;
+let specs: RouteSpec[];
+
+beforeAll(async () => {
+  t = await createTestApp();
+  specs = t.app.locals.routeSpecs;
+  const admin = await t.tokenFor('admin');
+  const users = await request(t.app).get('/api/users').set('Authorization', `Bearer ${admin}`);
+  const cases = await request(t.app).get('/api/cases').set('Authorization', `Bearer ${admin}`);
+  fixtures = {
+    userId: users.body.items.find((u: { role: string }) => u.role === 'engineer').id,
+    caseId: cases.body.items[0].id,
+  };
+});
+afterAll(() => t.close());
+
+async function callAs(spec: RouteSpec, role: Role | null) {
+  const sample = SAMPLES[`${spec.method} ${spec.path}`](fixtures);
+  let req = request(t.app)[spec.method](sample.path);
+  if (role) {
+    const token = sample.needsFreshSession
+      ? (
+          await request(t.app)
+            .post('/api/auth/login')
+            .send({ email: `${role}@driftcase.example`, password: 'driftcase-demo' })
+        ).body.token
+      : await t.tokenFor(role);
+    req = req.set('Authorization', `Bearer ${token}`);
+  }
+  return sample.body ? req.send(sample.body) : req;
+}
+
+describe('role x route matrix', () => {
+  it('has a sample request for every route', () => {
+    const missing = specs.map((s) => `${s.method} ${s.path}`).filter((key) => !SAMPLES[key]);
+    expect(missing).toEqual([]);
+  });
+
+  it('answers each role as the route declares', async () => {
+    const failures: string[] = [];
+    for (const spec of specs) {
+      const key = `${spec.method.toUpperCase()} ${spec.path}`;
+      const anonymous = await callAs(spec, null);
+      const expectedAnonymous = spec.access === 'public' ? 'success' : 401;
+      if (spec.access === 'public' ? anonymous.status >= 300 : anonymous.status !== 401) {
+        failures.push(`${key} with no session: got ${anonymous.status}, expected ${expectedAnonymous}`);
+      }
+      for (const role of ROLES) {
+        const res = await callAs(spec, role);
+        const isAllowed = spec.access === 'public' || spec.access.includes(role);
+        if (isAllowed && (res.status < 200 || res.status >= 300)) {
+          failures.push(`${key} as ${role}: got ${res.status} ${JSON.stringify(res.body)}, expected 2xx`);
+        }
+        if (!isAllowed && (res.status !== 403 || res.body.error?.code !== 'forbidden')) {
+          failures.push(`${key} as ${role}: got ${res.status}, expected 403 forbidden`);
+        }
+      }
+    }
+    expect(failures).toEqual([]);
+  });
+
+  it('names the allowed roles in the 403 message', async () => {
+    const token = await t.tokenFor('engineer');
+    const res = await request(t.app).get('/api/users').set('Authorization', `Bearer ${token}`).expect(403);
+    expect(res.body.error.message).toContain('admin');
+  });
+});
