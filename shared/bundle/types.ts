@@ -7,7 +7,9 @@
 
 export const BUNDLE_FORMAT = 'incident-bundle/1';
 
-export type Footprint = { shape: 'circle'; radius: number } | { shape: 'rectangle'; length: number; width: number };
+export type Footprint =
+  | { shape: 'circle'; radius: number }
+  | { shape: 'rectangle'; length: number; width: number };
 
 export interface RobotInfo {
   id: string;
@@ -43,7 +45,12 @@ export interface DetectorConfig {
 }
 
 export type ResamplingMethod = 'multinomial' | 'stratified' | 'systematic' | 'residual';
-export const RESAMPLING_METHODS: readonly ResamplingMethod[] = ['multinomial', 'stratified', 'systematic', 'residual'];
+export const RESAMPLING_METHODS: readonly ResamplingMethod[] = [
+  'multinomial',
+  'stratified',
+  'systematic',
+  'residual',
+];
 
 export interface MotionConfig {
   model: 'odometry';
@@ -229,4 +236,6 @@ export interface BundleIssue {
   message: string;
   expected?: string;
   found?: string;
+  /** Absent means `error`. Warnings (e.g. an unknown extra file) do not make a bundle invalid. */
+  severity?: 'error' | 'warning';
 }
