@@ -1,0 +1,70 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { paths } from '@web/config/paths';
+import { createBrowserRouter, type LoaderFunctionArgs, redirect } from 'react-router-dom';
+import { CaseDetailRoute, caseDetailLoader } from './routes/case-detail';
+import { CasesRoute } from './routes/cases';
+import { requireSession } from './routes/guards';
+import { NewCaseRoute, newCaseLoader } from './routes/new-case';
+import { NotFoundRoute } from './routes/not-found';
+import { RouteError } from './routes/route-error';
+import { SignInRoute, signInLoader } from './routes/sign-in';
+import { UsersRoute, usersLoader } from './routes/users';
+import { AppShell } from './shell/app-shell';
+import type { RouteHandle } from './shell/page-title';
+
+function FullPageError() {
+  return (
+    <div className="grid min-h-screen place-items-center bg-canvas p-10">
+      <RouteError />
+    </div>
+  );
+}
+
+const title = (text: string): RouteHandle => ({ title: text });
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      path: paths.signIn.path,
+      loader: signInLoader(queryClient),
+      element: <SignInRoute />,
+      errorElement: <FullPageError />,
+      handle: title('Sign in'),
+    },
+    {
+      path: paths.home.path,
+      loader: ({ request }: LoaderFunctionArgs) => requireSession(queryClient, request),
+      element: <AppShell />,
+      errorElement: <FullPageError />,
+      children: [
+        {
+          // Errors inside a page keep the shell and navigation on screen.
+          errorElement: <RouteError />,
+          children: [
+            { index: true, loader: () => redirect(paths.cases.href()) },
+            { path: paths.cases.path, element: <CasesRoute />, handle: title('Cases') },
+            {
+              path: paths.newCase.path,
+              loader: newCaseLoader(queryClient),
+              element: <NewCaseRoute />,
+              handle: title('Cases / New case'),
+            },
+            {
+              path: paths.caseDetail.path,
+              loader: caseDetailLoader(queryClient),
+              element: <CaseDetailRoute />,
+              handle: title('Cases / Case'),
+            },
+            {
+              path: paths.users.path,
+              loader: usersLoader(queryClient),
+              element: <UsersRoute />,
+              handle: title('Administration / Users'),
+            },
+            { path: '*', element: <NotFoundRoute />, handle: title('Not found') },
+          ],
+        },
+      ],
+    },
+  ]);
+}

@@ -1,0 +1,120 @@
+import type { TCase } from '@shared/contracts/cases';
+import { LocalTime } from '@web/components/local-time';
+import { PageHeader } from '@web/components/page-header';
+import { SeverityBadge } from '@web/components/severity-badge';
+import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
+import { CaseStatusBadge } from '@web/components/status-badge';
+import { paths } from '@web/config/paths';
+import { formatUtcDateTime } from '@web/lib/date-time';
+import { ArrowLeft, FileArchive } from 'lucide-react';
+import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { useCase } from '../api/get-case';
+
+function Fact({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div className="py-2">
+      <dt className="text-xs font-bold uppercase tracking-wide text-ink-muted">{label}</dt>
+      <dd className="mt-0.5 text-sm text-ink">{children}</dd>
+    </div>
+  );
+}
+
+function CaseFacts({ item }: { item: TCase }) {
+  return (
+    <dl className="grid grid-cols-2 gap-x-6">
+      <Fact label="Site">{item.site}</Fact>
+      <Fact label="Robot id">
+        <span className="tabular-nums">{item.robotId}</span>
+      </Fact>
+      <Fact label="Incident time">
+        <LocalTime iso={item.incidentTime} /> <span className="text-ink-muted">local</span>
+        <span className="block text-xs text-ink-muted tabular-nums">
+          {formatUtcDateTime(item.incidentTime)}
+        </span>
+      </Fact>
+      <Fact label="Severity">
+        <SeverityBadge severity={item.severity} />
+      </Fact>
+      <Fact label="Opened by">{item.createdBy.name}</Fact>
+      <Fact label="Opened">
+        <LocalTime iso={item.createdAt} />
+      </Fact>
+      <Fact label="Last change">
+        <LocalTime iso={item.updatedAt} />
+      </Fact>
+    </dl>
+  );
+}
+
+const PANEL = 'rounded-lg border border-canvas-line bg-canvas-raised p-5 shadow-sm';
+
+export function CaseDetailView({ caseId }: { caseId: string }) {
+  const caseQuery = useCase(caseId);
+  const backLink = (
+    <Link to={paths.cases.href()} className="inline-flex items-center gap-1 text-accent hover:underline">
+      <ArrowLeft aria-hidden className="size-4" />
+      All cases
+    </Link>
+  );
+
+  if (caseQuery.isError) {
+    return (
+      <>
+        {backLink}
+        <ErrorState
+          error={caseQuery.error}
+          title="Could not load this case"
+          onRetry={() => caseQuery.refetch()}
+        />
+      </>
+    );
+  }
+  const item = caseQuery.data;
+  if (!item) {
+    return (
+      <div aria-busy className="space-y-3">
+        <SkeletonBar className="w-32" />
+        <SkeletonBar className="h-6 w-96" />
+        <div className={`${PANEL} h-48`} />
+      </div>
+    );
+  }
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <span className="flex items-center gap-3">
+            {backLink}
+            <span aria-hidden>/</span>
+            <span className="font-bold tabular-nums text-ink">{item.reference}</span>
+          </span>
+        }
+        title={item.title}
+        actions={<CaseStatusBadge status={item.status} />}
+      />
+      <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
+        <section aria-labelledby="case-facts" className={PANEL}>
+          <h2 id="case-facts" className="text-base font-bold">
+            Incident
+          </h2>
+          <CaseFacts item={item} />
+          <h3 className="mt-3 text-xs font-bold uppercase tracking-wide text-ink-muted">Summary</h3>
+          <p className="mt-1 whitespace-pre-line text-sm">
+            {item.summary || <span className="text-ink-muted italic">No summary written yet.</span>}
+          </p>
+        </section>
+        <section aria-labelledby="case-bundles" className={PANEL}>
+          <h2 id="case-bundles" className="text-base font-bold">
+            Bundles and replays
+          </h2>
+          <EmptyState icon={FileArchive} title="No log bundles attached">
+            A bundle is the robot's recorded logs around the incident. Once one is attached, its replays,
+            flags and findings are listed here.
+          </EmptyState>
+        </section>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,106 @@
+import type { TCase } from '@shared/contracts/cases';
+import { LocalTime } from '@web/components/local-time';
+import { SeverityBadge } from '@web/components/severity-badge';
+import { SortableHeader } from '@web/components/sortable-header';
+import { SkeletonBar } from '@web/components/states';
+import { CaseStatusBadge } from '@web/components/status-badge';
+import { paths } from '@web/config/paths';
+import { Link } from 'react-router-dom';
+import type { CaseListParams, CaseSortField } from '../hooks/case-list-params';
+
+interface CasesTableProps {
+  cases: TCase[] | undefined;
+  params: CaseListParams;
+  onSort: (field: CaseSortField) => void;
+  /** True while a new page replaces the one on screen: the rows dim instead of vanishing. */
+  isRefreshing: boolean;
+}
+
+const HEAD = 'px-3 py-2 text-left text-xs font-bold uppercase tracking-wide text-ink-muted';
+const CELL = 'px-3 py-2.5 align-middle';
+
+function SkeletonRows({ count }: { count: number }) {
+  return Array.from({ length: count }, (_, row) => (
+    // biome-ignore lint/suspicious/noArrayIndexKey: placeholder rows have no identity
+    <tr key={row} className="border-t border-canvas-line">
+      {['w-20', 'w-56', 'w-24', 'w-16', 'w-28', 'w-16', 'w-20'].map((width) => (
+        <td key={width} className={CELL}>
+          <SkeletonBar className={width} />
+        </td>
+      ))}
+    </tr>
+  ));
+}
+
+export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTableProps) {
+  const sortProps = (field: CaseSortField) => ({
+    isActive: params.sort === field,
+    order: params.order,
+    onSort: () => onSort(field),
+    className: HEAD,
+  });
+  return (
+    <table className="w-full table-fixed border-collapse text-sm" aria-busy={!cases || isRefreshing}>
+      <caption className="sr-only">
+        Cases, sorted by {params.sort} ({params.order === 'asc' ? 'ascending' : 'descending'})
+      </caption>
+      <colgroup>
+        <col className="w-[7.5rem]" />
+        <col />
+        <col className="w-[9rem]" />
+        <col className="w-[7rem]" />
+        <col className="w-[9.5rem]" />
+        <col className="w-[7rem]" />
+        <col className="w-[11rem]" />
+      </colgroup>
+      <thead className="bg-canvas-sunk/60">
+        <tr>
+          <th scope="col" className={HEAD}>
+            Reference
+          </th>
+          <SortableHeader label="Title" {...sortProps('title')} />
+          <SortableHeader label="Site" {...sortProps('site')} />
+          <th scope="col" className={HEAD}>
+            Robot
+          </th>
+          <SortableHeader label="Incident time" {...sortProps('incidentTime')} />
+          <SortableHeader label="Severity" {...sortProps('severity')} />
+          <SortableHeader label="Status" {...sortProps('status')} />
+        </tr>
+      </thead>
+      <tbody className={isRefreshing ? 'opacity-60 transition-opacity' : undefined}>
+        {!cases ? (
+          <SkeletonRows count={Math.min(params.pageSize, 8)} />
+        ) : (
+          cases.map((item) => (
+            <tr key={item.id} className="border-t border-canvas-line hover:bg-accent-soft/40">
+              <td className={`${CELL} font-bold tabular-nums`}>
+                <Link to={paths.caseDetail.href(item.id)} className="text-accent hover:underline">
+                  {item.reference}
+                </Link>
+              </td>
+              <td className={`${CELL} truncate`} title={item.title}>
+                {item.title}
+              </td>
+              <td className={`${CELL} truncate`} title={item.site}>
+                {item.site}
+              </td>
+              <td className={`${CELL} truncate tabular-nums`} title={item.robotId}>
+                {item.robotId}
+              </td>
+              <td className={CELL}>
+                <LocalTime iso={item.incidentTime} />
+              </td>
+              <td className={CELL}>
+                <SeverityBadge severity={item.severity} />
+              </td>
+              <td className={CELL}>
+                <CaseStatusBadge status={item.status} />
+              </td>
+            </tr>
+          ))
+        )}
+      </tbody>
+    </table>
+  );
+}

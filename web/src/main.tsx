@@ -1,0 +1,16 @@
+import '@fontsource/lato/400.css';
+import '@fontsource/lato/700.css';
+import '@fontsource/lato/400-italic.css';
+import './styles/index.css';
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+import { App } from './app/app';
+
+const rootElement = document.getElementById('root');
+if (!rootElement) throw new Error('index.html has no #root element');
+
+createRoot(rootElement).render(
+  <StrictMode>
+    <App />
+  </StrictMode>,
+);
