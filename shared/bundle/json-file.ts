@@ -14,6 +14,10 @@ export function formatJsonPath(path: readonly PropertyKey[]): string {
 
 /** Parses a JSON file, reporting a syntax error with its line (V8 gives a character position). */
 export function parseJsonText(file: string, text: string, issues: IssueCollector): unknown {
+  if (text.trim() === '') {
+    issues.add({ file, message: 'file is empty', expected: 'a JSON object' });
+    return undefined;
+  }
   try {
     return JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
   } catch (error) {
