@@ -1,15 +1,9 @@
-import {
-  CASE_STATUS_LABELS,
-  CASE_STATUSES,
-  SEVERITIES,
-  type TCaseStatus,
-  type TSeverity,
-} from '@shared/contracts/cases';
+import { CASE_STATUS_LABELS, CASE_STATUSES, type TCaseStatus, type TSeverity } from '@shared/contracts/cases';
 import { Button } from '@web/components/button';
 import { DebouncedTextInput } from '@web/components/debounced-text-input';
 import { FormField } from '@web/components/form-field';
 import { SelectInput } from '@web/components/inputs';
-import { SEVERITY_LABELS } from '@web/components/severity-badge';
+import { SeverityOptions } from '@web/components/severity-options';
 import { Search, X } from 'lucide-react';
 import type { CaseListParams } from '../hooks/case-list-params';
 
@@ -64,12 +58,7 @@ export function CaseFilters({ params, onChange }: CaseFiltersProps) {
               onChange({ severity: (event.target.value || undefined) as TSeverity | undefined })
             }
           >
-            <option value="">Any severity</option>
-            {SEVERITIES.map((severity) => (
-              <option key={severity} value={severity}>
-                {SEVERITY_LABELS[severity]}
-              </option>
-            ))}
+            <SeverityOptions emptyLabel="Any severity" />
           </SelectInput>
         )}
       </FormField>

@@ -1,11 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { TCase } from '@shared/contracts/cases';
-import { SEVERITIES } from '@shared/contracts/cases';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextArea, TextInput } from '@web/components/inputs';
-import { SEVERITY_LABELS } from '@web/components/severity-badge';
+import { SeverityOptions } from '@web/components/severity-options';
 import { describeLocalTimeZone } from '@web/lib/date-time';
 import { applyServerErrors } from '@web/lib/form-errors';
 import { Save } from 'lucide-react';
@@ -78,14 +77,7 @@ export function CreateCaseForm({ onCreated, onCancel }: CreateCaseFormProps) {
         >
           {(control) => (
             <SelectInput {...control} {...form.register('severity')}>
-              <option value="" disabled>
-                Choose…
-              </option>
-              {SEVERITIES.map((severity) => (
-                <option key={severity} value={severity}>
-                  {SEVERITY_LABELS[severity]}
-                </option>
-              ))}
+              <SeverityOptions emptyLabel="Choose…" isEmptyDisabled />
             </SelectInput>
           )}
         </FormField>
