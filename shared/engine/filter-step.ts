@@ -1,0 +1,142 @@
+/**
+ * The two per-particle stages of a step, written over a particle index range [from, to) so a step
+ * can be split across worker threads: every particle's result depends only on its own state, the
+ * shared read-only context and counter-keyed random numbers.
+ */
+import { accumulateDetectionLogLikelihood } from './landmark-model';
+import { accumulateScanLogLikelihood, robotFrameEndpoints } from './likelihood-field';
+import { decomposeOdometry, sampleOdometryMotion } from './motion-model';
+import type { ParticleState } from './particle-state';
+import type { RandomScratch } from './random';
+import type { ReplayContext } from './replay-context';
+
+/** Per-thread scratch for the range stages. */
+export interface RangeScratch {
+  random: RandomScratch;
+  /** Robot-frame beam endpoints of the scan being applied (m), length = beams used. */
+  endX: Float64Array;
+  endY: Float64Array;
+}
+
+export function createRangeScratch(context: ReplayContext, random: RandomScratch): RangeScratch {
+  const beams = context.beams?.indices.length ?? 0;
+  return { random, endX: new Float64Array(beams), endY: new Float64Array(beams) };
+}
+
+/**
+ * Applies the odometry increment of step `step` (>= 1) to particles [from, to), sampled by the
+ * odometry motion model.
+ */
+export function moveParticleRange(
+  context: ReplayContext,
+  state: ParticleState,
+  step: number,
+  from: number,
+  to: number,
+  scratch: RangeScratch,
+): void {
+  const odometry = context.bundle.odometry;
+  const increment = decomposeOdometry(
+    odometry.x[step - 1],
+    odometry.y[step - 1],
+    odometry.theta[step - 1],
+    odometry.x[step],
+    odometry.y[step],
+    odometry.theta[step],
+  );
+  const { alpha } = context.settings.motion;
+  sampleOdometryMotion(
+    state.x,
+    state.y,
+    state.theta,
+    from,
+    to,
+    increment,
+    alpha,
+    context.settings.seed,
+    step,
+    scratch.random,
+  );
+}
+
+/** Writes cos and sin of each particle heading in [from, to). */
+export function computeHeadingTrig(
+  theta: Float64Array,
+  from: number,
+  to: number,
+  cosTheta: Float64Array,
+  sinTheta: Float64Array,
+): void {
+  for (let i = from; i < to; i++) {
+    cosTheta[i] = Math.cos(theta[i]);
+    sinTheta[i] = Math.sin(theta[i]);
+  }
+}
+
+/**
+ * Adds the log-likelihood of all scans and detections of step `step` to out[i] for particles
+ * [from, to) (out must be zeroed by the caller). Returns the number of measurements used
+ * (valid beams plus detections), which is the same for every particle.
+ */
+export function weighParticleRange(
+  context: ReplayContext,
+  state: ParticleState,
+  step: number,
+  from: number,
+  to: number,
+  cosTheta: Float64Array,
+  sinTheta: Float64Array,
+  out: Float64Array,
+  scratch: RangeScratch,
+): number {
+  const { bundle, timeline, field, beams, landmarks } = context;
+  let measurements = 0;
+  if (field && beams && bundle.scans && bundle.manifest.scan) {
+    for (let s = timeline.scanStart[step]; s < timeline.scanStart[step + 1]; s++) {
+      const count = robotFrameEndpoints(
+        bundle.scans.ranges,
+        s,
+        bundle.manifest.scan,
+        beams,
+        scratch.endX,
+        scratch.endY,
+      );
+      if (count === 0) continue;
+      accumulateScanLogLikelihood(
+        field,
+        state.x,
+        state.y,
+        cosTheta,
+        sinTheta,
+        from,
+        to,
+        scratch.endX,
+        scratch.endY,
+        count,
+        out,
+      );
+      measurements += count;
+    }
+  }
+  const detections = bundle.detections;
+  if (landmarks && detections) {
+    for (let d = timeline.detectionStart[step]; d < timeline.detectionStart[step + 1]; d++) {
+      const reportedClass = detections.classIndex[d];
+      const { range, bearing } = detections;
+      accumulateDetectionLogLikelihood(
+        landmarks,
+        state.x,
+        state.y,
+        state.theta,
+        from,
+        to,
+        reportedClass,
+        range[d],
+        bearing[d],
+        out,
+      );
+      measurements++;
+    }
+  }
+  return measurements;
+}

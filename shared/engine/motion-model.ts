@@ -1,0 +1,91 @@
+/**
+ * Odometry motion model, sampled per particle (Thrun, Burgard, Fox, Probabilistic Robotics, 2005,
+ * Table 5.6). The alphas are coefficients of VARIANCES, as the bundle format specifies:
+ *   var(rot1)  = a1 rot1^2 + a2 trans^2
+ *   var(trans) = a3 trans^2 + a4 (rot1^2 + rot2^2)
+ *   var(rot2)  = a1 rot2^2 + a2 trans^2
+ */
+import { fillNormals, type RandomScratch, RNG_PURPOSE } from './random';
+import { wrapAngle } from './stats';
+
+/** Below this translation (m) the heading of travel is meaningless, so rot1 is set to 0 (common practice). */
+export const MIN_TRANSLATION_FOR_ROT1 = 1e-3;
+
+/** Decomposition of one odometry increment (Table 5.6, lines 2-4). Radians and metres. */
+export interface OdometryIncrement {
+  rot1: number;
+  trans: number;
+  rot2: number;
+}
+
+/**
+ * Splits the odometry change from pose (x0, y0, theta0) to (x1, y1, theta1), both in the robot's
+ * odometry frame, into rot1, trans, rot2. Reverse motion (travel direction more than 90 degrees from
+ * the heading) is expressed as a negative translation so rot1 stays small (common practice).
+ */
+export function decomposeOdometry(
+  x0: number,
+  y0: number,
+  theta0: number,
+  x1: number,
+  y1: number,
+  theta1: number,
+): OdometryIncrement {
+  const dx = x1 - x0;
+  const dy = y1 - y0;
+  let trans = Math.sqrt(dx * dx + dy * dy);
+  let rot1 = trans < MIN_TRANSLATION_FOR_ROT1 ? 0 : wrapAngle(Math.atan2(dy, dx) - theta0);
+  if (Math.abs(rot1) > Math.PI / 2) {
+    rot1 = wrapAngle(rot1 - Math.PI);
+    trans = -trans;
+  }
+  const rot2 = wrapAngle(theta1 - theta0 - rot1);
+  return { rot1, trans, rot2 };
+}
+
+/** Standard deviations of the three increments under `alpha` (variance coefficients). */
+export function odometryNoiseSigmas(
+  increment: OdometryIncrement,
+  alpha: readonly [number, number, number, number],
+): [number, number, number] {
+  const { rot1, trans, rot2 } = increment;
+  const [a1, a2, a3, a4] = alpha;
+  return [
+    Math.sqrt(a1 * rot1 * rot1 + a2 * trans * trans),
+    Math.sqrt(a3 * trans * trans + a4 * (rot1 * rot1 + rot2 * rot2)),
+    Math.sqrt(a1 * rot2 * rot2 + a2 * trans * trans),
+  ];
+}
+
+/**
+ * Moves particles [from, to) in place by one sampled odometry increment (map frame, m and rad).
+ * Noise for particle i at `step` comes from the counter RNG keyed (seed, motion, step, i), so the
+ * result does not depend on how particle ranges are split between threads.
+ */
+export function sampleOdometryMotion(
+  x: Float64Array,
+  y: Float64Array,
+  theta: Float64Array,
+  from: number,
+  to: number,
+  increment: OdometryIncrement,
+  alpha: readonly [number, number, number, number],
+  seed: number,
+  step: number,
+  scratch: RandomScratch,
+): void {
+  const [sigmaRot1, sigmaTrans, sigmaRot2] = odometryNoiseSigmas(increment, alpha);
+  const { rot1, trans, rot2 } = increment;
+  const normals = scratch.values;
+  for (let i = from; i < to; i++) {
+    fillNormals(seed, RNG_PURPOSE.motion, step, i, 0, scratch);
+    const noisyRot1 = rot1 - sigmaRot1 * normals[0];
+    const noisyTrans = trans - sigmaTrans * normals[1];
+    const noisyRot2 = rot2 - sigmaRot2 * normals[2];
+    const heading = theta[i] + noisyRot1;
+    x[i] += noisyTrans * Math.cos(heading);
+    y[i] += noisyTrans * Math.sin(heading);
+    const next = heading + noisyRot2;
+    theta[i] = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
+  }
+}
