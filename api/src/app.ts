@@ -12,11 +12,14 @@ import { errorHandler } from './http/error-handler';
 import { mountRoutes, type RouteSpec } from './http/route-spec';
 import { sessionMiddleware } from './http/session-middleware';
 import { authRoutes } from './routes/auth';
+import { bundleRoutes } from './routes/bundles';
 import { caseRoutes } from './routes/cases';
 import { healthRoutes } from './routes/health';
 import { userRoutes } from './routes/users';
 import { createAuthService } from './services/auth/auth-service';
+import { createBundlesService } from './services/bundles/bundles-service';
 import { createCasesService } from './services/cases/cases-service';
+import { createEvidenceStore } from './services/evidence/evidence-store';
 import { createUsersService } from './services/users/users-service';
 
 export interface AppDependencies {
@@ -44,6 +47,14 @@ export function createApp({ db, config, logger, webDir }: AppDependencies): Drif
   });
   const users = createUsersService({ db, onDeactivated: auth.revokeAllSessions });
   const cases = createCasesService({ db });
+  const evidence = createEvidenceStore(config.dataDir);
+  const derivedDir = path.join(config.dataDir, 'derived');
+  const bundles = createBundlesService({
+    db,
+    evidence,
+    derivedDir,
+    maxUnpackedBytes: config.maxUnpackedBytes,
+  });
   const cookieOptions = { secure: config.secureCookies, maxAgeSeconds: config.sessionMaxAgeSeconds };
 
   const routeSpecs: RouteSpec[] = [
@@ -51,6 +62,7 @@ export function createApp({ db, config, logger, webDir }: AppDependencies): Drif
     ...authRoutes(auth, cookieOptions),
     ...userRoutes(users),
     ...caseRoutes(cases),
+    ...bundleRoutes(bundles, { incomingDir: evidence.incoming, maxUploadBytes: config.maxUploadBytes }),
   ];
   app.locals.routeSpecs = routeSpecs;
 

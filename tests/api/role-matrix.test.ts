@@ -1,7 +1,9 @@
+import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
+import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -14,17 +16,22 @@ interface Sample {
   body?: object;
   /** Routes that end the caller's session get a fresh sign-in each call. */
   needsFreshSession?: boolean;
+  /** Multipart upload: field name and file path. */
+  attach?: { field: string; file: string };
 }
 
 interface Fixtures {
   caseId: string;
   userId: string;
+  bundleId: string;
+  /** A valid bundle zip; each upload sends fresh bytes so it is never a duplicate. */
+  freshBundleZip: () => Promise<string>;
 }
 
 let uniqueCounter = 0;
 const unique = () => `${Date.now()}-${uniqueCounter++}`;
 
-const SAMPLES: Record<string, (f: Fixtures) => Sample> = {
+const SAMPLES: Record<string, (f: Fixtures) => Sample | Promise<Sample>> = {
   'get /health': () => ({ path: '/api/health' }),
   'post /auth/login': () => ({
     path: '/api/auth/login',
@@ -56,6 +63,14 @@ const SAMPLES: Record<string, (f: Fixtures) => Sample> = {
   }),
   'get /cases/:id': (f) => ({ path: `/api/cases/${f.caseId}` }),
   'patch /cases/:id': (f) => ({ path: `/api/cases/${f.caseId}`, body: { summary: `Updated ${unique()}` } }),
+  'post /cases/:id/bundles': async (f) => ({
+    path: `/api/cases/${f.caseId}/bundles`,
+    attach: { field: 'bundle', file: await f.freshBundleZip() },
+  }),
+  'get /cases/:id/bundles': (f) => ({ path: `/api/cases/${f.caseId}/bundles` }),
+  'get /bundles/:id': (f) => ({ path: `/api/bundles/${f.bundleId}` }),
+  'get /bundles/:id/tables/:name': (f) => ({ path: `/api/bundles/${f.bundleId}/tables/odometry` }),
+  'get /bundles/:id/original': (f) => ({ path: `/api/bundles/${f.bundleId}/original` }),
 };
 
 let t: TestApp;
@@ -68,15 +83,27 @@ beforeAll(async () => {
   const admin = await t.tokenFor('admin');
   const users = await request(t.app).get('/api/users').set('Authorization', `Bearer ${admin}`);
   const cases = await request(t.app).get('/api/cases').set('Authorization', `Bearer ${admin}`);
+  const zipDir = await makeTempDir('driftcase-matrix-');
+  let zipCount = 0;
+  const freshBundleZip = () =>
+    writeBundleZip(path.join(zipDir, `b${zipCount}.zip`), makeBundleFiles({ steps: 10 + zipCount++ }));
+  const caseId = cases.body.items[0].id;
+  const investigator = await t.tokenFor('investigator');
+  const uploaded = await request(t.app)
+    .post(`/api/cases/${caseId}/bundles`)
+    .set('Authorization', `Bearer ${investigator}`)
+    .attach('bundle', await freshBundleZip());
   fixtures = {
     userId: users.body.items.find((u: { role: string }) => u.role === 'engineer').id,
-    caseId: cases.body.items[0].id,
+    caseId,
+    bundleId: uploaded.body.bundle.id,
+    freshBundleZip,
   };
 });
 afterAll(() => t.close());
 
 async function callAs(spec: RouteSpec, role: Role | null) {
-  const sample = SAMPLES[`${spec.method} ${spec.path}`](fixtures);
+  const sample = await SAMPLES[`${spec.method} ${spec.path}`](fixtures);
   let req = request(t.app)[spec.method](sample.path);
   if (role) {
     const token = sample.needsFreshSession
@@ -88,6 +115,10 @@ async function callAs(spec: RouteSpec, role: Role | null) {
       : await t.tokenFor(role);
     req = req.set('Authorization', `Bearer ${token}`);
   }
+  // The access check runs before the upload is read, so refused callers send no file: the server
+  // answers without reading the body, and a streamed file would break the pipe.
+  const isAllowed = spec.access === 'public' || (role !== null && spec.access.includes(role));
+  if (sample.attach && isAllowed) return req.attach(sample.attach.field, sample.attach.file);
   return sample.body ? req.send(sample.body) : req;
 }
 

@@ -1,0 +1,103 @@
+import fs from 'node:fs';
+import multer from 'multer';
+import { z } from 'zod';
+import { AppError } from '../../../shared/errors';
+import { ROLES } from '../../../shared/roles';
+import type { RouteSpec } from '../http/route-spec';
+import type { BundlesService } from '../services/bundles/bundles-service';
+import { ZCaseParams } from './cases';
+
+const ZBundleParams = z.object({ id: z.uuid('Bundle id must be a UUID') });
+const ZTableParams = ZBundleParams.extend({ name: z.string().min(1).max(40) });
+
+export interface BundleRouteOptions {
+  incomingDir: string;
+  maxUploadBytes: number;
+}
+
+export function bundleRoutes(bundles: BundlesService, options: BundleRouteOptions): RouteSpec[] {
+  // Streams the upload to disk under DATA_DIR; nothing is held whole in memory.
+  const upload = multer({
+    dest: options.incomingDir,
+    limits: { fileSize: options.maxUploadBytes, files: 1, fields: 10 },
+  }).single('bundle');
+
+  return [
+    {
+      method: 'post',
+      path: '/cases/:id/bundles',
+      access: ['investigator'],
+      before: [upload],
+      handler: async (req, res) => {
+        const { id: caseId } = ZCaseParams.parse(req.params);
+        if (!req.file) {
+          throw new AppError(
+            'bad_request',
+            'Attach the bundle as a .zip file in the multipart field "bundle".',
+            [{ path: 'bundle', message: 'Required' }],
+          );
+        }
+        const outcome = await bundles.uploadBundle({
+          caseId,
+          tempFile: req.file.path,
+          originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
+          uploaderId: req.user.id,
+        });
+        if (outcome.bundle.status === 'invalid') {
+          const errors = outcome.bundle.issues.filter((issue) => issue.severity !== 'warning');
+          res.status(422).json({
+            error: {
+              code: 'invalid_bundle',
+              message: `The bundle was stored (SHA-256 ${outcome.bundle.sha256.slice(0, 12)}…) but is not valid: ${errors.length} problem(s) found.`,
+              details: { bundle: outcome.bundle, issues: errors, duplicate: outcome.isDuplicate },
+            },
+          });
+          return;
+        }
+        res
+          .status(outcome.isDuplicate ? 200 : 201)
+          .json({ bundle: outcome.bundle, duplicate: outcome.isDuplicate });
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/bundles',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id } = ZCaseParams.parse(req.params);
+        res.json({ items: await bundles.listCaseBundles(id) });
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id } = ZBundleParams.parse(req.params);
+        res.json(await bundles.getBundle(id));
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id/tables/:name',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id, name } = ZTableParams.parse(req.params);
+        const file = await bundles.tableFile(id, name);
+        res.setHeader('Content-Type', 'application/vnd.apache.arrow.stream');
+        res.setHeader('Cache-Control', 'private, max-age=3600');
+        fs.createReadStream(file).pipe(res);
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id/original',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id } = ZBundleParams.parse(req.params);
+        const original = await bundles.originalFile(id);
+        res.download(original.path, original.name);
+      },
+    },
+  ];
+}

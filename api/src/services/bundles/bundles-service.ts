@@ -1,0 +1,142 @@
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { and, asc, eq } from 'drizzle-orm';
+import type { BundleIssue } from '../../../../shared/bundle/types';
+import { AppError } from '../../../../shared/errors';
+import { inspectBundle } from '../../bundles/inspect-bundle';
+import { writeArrowTables } from '../../bundles/write-arrow-tables';
+import type { Database } from '../../db/client';
+import { bundles, cases, users } from '../../db/schema';
+import type { EvidenceStore } from '../evidence/evidence-store';
+import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
+
+export interface BundlesServiceOptions {
+  db: Database;
+  evidence: EvidenceStore;
+  /** Folder for derived data (Arrow copies); rebuilt from the originals if lost. */
+  derivedDir: string;
+  maxUnpackedBytes: number;
+}
+
+export interface UploadOutcome {
+  bundle: TBundleRecord;
+  /** True when these exact bytes were already on this case. */
+  isDuplicate: boolean;
+}
+
+/** Table names served to the browser; they match the bundle's file stems. */
+const TABLE_NAME = /^[a-z_]{1,40}$/;
+
+export function createBundlesService({ db, evidence, derivedDir, maxUnpackedBytes }: BundlesServiceOptions) {
+  const tablesDir = (bundleId: string) => path.join(derivedDir, 'bundles', bundleId, 'tables');
+
+  const selectWithUploader = () =>
+    db
+      .select({ row: bundles, uploaderName: users.name })
+      .from(bundles)
+      .innerJoin(users, eq(users.id, bundles.uploadedBy));
+
+  async function requireCase(caseId: string) {
+    const [found] = await db.select({ id: cases.id }).from(cases).where(eq(cases.id, caseId));
+    if (!found) throw new AppError('not_found', `No case with id ${caseId}.`);
+  }
+
+  async function getBundle(id: string): Promise<TBundleRecord> {
+    const [found] = await selectWithUploader().where(eq(bundles.id, id));
+    if (!found) throw new AppError('not_found', `No bundle with id ${id}.`);
+    return toBundleRecord(found.row, found.uploaderName);
+  }
+
+  async function listCaseBundles(caseId: string): Promise<TBundleRecord[]> {
+    await requireCase(caseId);
+    const rows = await selectWithUploader()
+      .where(eq(bundles.caseId, caseId))
+      .orderBy(asc(bundles.uploadedAt));
+    return rows.map(({ row, uploaderName }) => toBundleRecord(row, uploaderName));
+  }
+
+  /**
+   * Keeps the uploaded file as evidence first (content-addressed, read-only), then validates it.
+   * An invalid bundle is still recorded, with its issues, so nothing brought in is lost.
+   */
+  async function uploadBundle(options: {
+    caseId: string;
+    tempFile: string;
+    originalName: string;
+    uploaderId: string;
+  }): Promise<UploadOutcome> {
+    await requireCase(options.caseId).catch(async (error) => {
+      await fs.promises.rm(options.tempFile, { force: true });
+      throw error;
+    });
+    const stored = await evidence.storeUploadedFile(options.tempFile);
+    const [existing] = await db
+      .select({ id: bundles.id })
+      .from(bundles)
+      .where(and(eq(bundles.caseId, options.caseId), eq(bundles.sha256, stored.sha256)));
+    if (existing) return { bundle: await getBundle(existing.id), isDuplicate: true };
+
+    const id = randomUUID();
+    const inspection = await inspectBundle(
+      { kind: 'zip', path: stored.path },
+      { maxTotalBytes: maxUnpackedBytes },
+    );
+    // Issues about the archive itself name the stored copy; show the name the investigator knows.
+    const storedName = path.basename(stored.path);
+    let issues: BundleIssue[] = inspection.issues.map((issue) =>
+      issue.file === storedName ? { ...issue, file: options.originalName } : issue,
+    );
+    let tables: { name: string; rows: number }[] = [];
+    if (inspection.ok && inspection.bundle) {
+      try {
+        const written = await writeArrowTables(inspection.bundle, tablesDir(id));
+        tables = written.map(({ name, rows }) => ({ name, rows }));
+      } catch (error) {
+        // Derived data only: the bundle stays valid evidence even if the copy fails.
+        issues = [
+          ...issues,
+          {
+            file: '(derived tables)',
+            message: `Could not write Arrow tables: ${String(error)}`,
+            severity: 'warning',
+          },
+        ];
+      }
+    }
+    await db.insert(bundles).values({
+      id,
+      caseId: options.caseId,
+      sha256: stored.sha256,
+      sizeBytes: stored.sizeBytes,
+      originalName: options.originalName.slice(0, 255),
+      uploadedBy: options.uploaderId,
+      status: inspection.ok ? 'valid' : 'invalid',
+      issues,
+      files: inspection.files,
+      summary: inspection.summary ?? null,
+      manifest: inspection.ok ? (inspection.bundle?.manifest ?? null) : null,
+      tables,
+    });
+    return { bundle: await getBundle(id), isDuplicate: false };
+  }
+
+  /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */
+  async function tableFile(bundleId: string, name: string): Promise<string> {
+    const bundle = await getBundle(bundleId);
+    if (!TABLE_NAME.test(name) || !bundle.tables.some((table) => table.name === name)) {
+      const known = bundle.tables.map((table) => table.name).join(', ') || 'none';
+      throw new AppError('not_found', `Bundle ${bundleId} has no table "${name}". Tables: ${known}.`);
+    }
+    return path.join(tablesDir(bundleId), `${name}.arrow`);
+  }
+
+  async function originalFile(bundleId: string): Promise<{ path: string; name: string }> {
+    const bundle = await getBundle(bundleId);
+    return { path: evidence.pathFor(bundle.sha256), name: bundle.originalName };
+  }
+
+  return { uploadBundle, listCaseBundles, getBundle, tableFile, originalFile, tablesDir };
+}
+
+export type BundlesService = ReturnType<typeof createBundlesService>;
