@@ -43,6 +43,21 @@ function csv(header: string, rows: string[]): string {
   return `${header}\n${rows.join('\n')}\n`;
 }
 
+/** s between the detections of one frame. */
+const DETECTION_SPACING = 0.001;
+/** s between events logged in the same control step (a contact and the stop it causes). */
+const EVENT_SPACING = 0.01;
+
+/** Event times as text, nudging events of the same step apart in their logged order. */
+function strictlyIncreasingTimes(times: number[]): string[] {
+  let previous = Number.NEGATIVE_INFINITY;
+  return times.map((t) => {
+    const nudged = Math.max(t, previous + EVENT_SPACING);
+    previous = nudged;
+    return time(nudged);
+  });
+}
+
 /** Free text goes into CSV unquoted, so it must not hold the separator or quotes. */
 function assertPlainText(text: string, where: string): string {
   if (/[",\n\r]/.test(text))
@@ -111,11 +126,14 @@ export function formatBundle(record: SimulationRecord): Map<string, string> {
   );
   const detectionRows: string[] = [];
   for (const frame of record.detections) {
-    for (const d of frame.detections) {
+    // The detector reports the landmarks of one frame one after another, a millisecond apart
+    // (in bearing order), which keeps t strictly increasing as readers require.
+    frame.detections.forEach((d, i) => {
+      const t = formatFixed(frame.t + i * DETECTION_SPACING, 3);
       detectionRows.push(
-        `${time(frame.t)},${DETECTOR.classes[d.classIndex]},${formatFixed(d.range, 3)},${formatFixed(d.bearing, 4)}`,
+        `${t},${DETECTOR.classes[d.classIndex]},${formatFixed(d.range, 3)},${formatFixed(d.bearing, 4)}`,
       );
-    }
+    });
   }
   files.set('detections.csv', csv('t,class,range,bearing', detectionRows));
   files.set(
@@ -132,8 +150,9 @@ export function formatBundle(record: SimulationRecord): Map<string, string> {
     'events.csv',
     csv(
       't,kind,detail',
-      record.events.map(
-        (e) => `${time(e.t)},${e.kind},${assertPlainText(e.detail, `${record.spec.name} event`)}`,
+      strictlyIncreasingTimes(record.events.map((e) => e.t)).map(
+        (t, i) =>
+          `${t},${record.events[i].kind},${assertPlainText(record.events[i].detail, `${record.spec.name} event`)}`,
       ),
     ),
   );
