@@ -1,0 +1,27 @@
+import { z } from 'zod';
+import { ZCaseStatus } from './cases';
+
+export const ZCaseTransitionRequest = z.object({
+  to: ZCaseStatus,
+  /** Why, shown in the case history. */
+  comment: z.string().trim().max(2000).optional(),
+});
+export type TCaseTransitionRequest = z.infer<typeof ZCaseTransitionRequest>;
+
+export const ZCaseLifecycle = z.object({
+  caseId: z.string(),
+  status: ZCaseStatus,
+  nextActor: z.object({ roles: z.array(z.string()), action: z.string() }),
+  /** Moves available from here (any role), for buttons on the case page. */
+  transitions: z.array(
+    z.object({
+      to: ZCaseStatus,
+      event: z.string(),
+      roles: z.array(z.string()),
+      cause: z.string(),
+      isDirect: z.boolean(),
+    }),
+  ),
+  hold: z.object({ reason: z.string(), placedBy: z.string(), placedAt: z.string() }).nullable(),
+});
+export type TCaseLifecycle = z.infer<typeof ZCaseLifecycle>;
