@@ -85,7 +85,7 @@ describe('apiRequest', () => {
   });
 
   it('leaves out empty query values', async () => {
-    const fetchMock = vi.fn(async () => jsonResponse(200, {}));
+    const fetchMock = vi.fn(async (_url: string) => jsonResponse(200, {}));
     vi.stubGlobal('fetch', fetchMock);
     await apiRequest('/api/cases', { query: { page: 2, q: '', status: undefined, site: 'Dock' } });
     expect(fetchMock.mock.calls[0]?.[0]).toBe('/api/cases?page=2&site=Dock');

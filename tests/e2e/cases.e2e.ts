@@ -1,0 +1,111 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { DESKTOP, launchBrowser, NARROW, openPage, saveScreenshot } from './support/browser';
+import { signInAs } from './support/sign-in';
+
+async function hasHorizontalOverflow(page: Page): Promise<boolean> {
+  return page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth);
+}
+
+describe('cases', () => {
+  const baseUrl = inject('baseUrl');
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('an investigator opens a case and finds it in the list', async () => {
+    // Berlin is on CET (UTC+01:00) on 14 March 2026: EU summer time starts on the last Sunday of March
+    // (Directive 2000/84/EC, article 2), which is 29 March in 2026.
+    const page = await openPage(browser, baseUrl, { timezoneId: 'Europe/Berlin' });
+    await signInAs(page, 'investigator');
+    await page.getByRole('link', { name: 'New case' }).first().click();
+    await page.getByRole('heading', { name: 'New case' }).waitFor();
+
+    const title = `Tug halted beside cold store ${Date.now()}`;
+    await page.getByLabel('Title').fill(title);
+    await page.getByLabel('Site').fill('Quayside cold store');
+    await page.getByLabel('Robot id').fill('TUG-31');
+    await page.getByLabel('Incident time').fill('2026-03-14T09:12:00');
+    await page.getByLabel('Severity').selectOption('high');
+    await page
+      .getByLabel(/Summary/)
+      .fill('Protective stop 0.4 m from a pallet; operator reported a jump on the map.');
+    await page.getByRole('button', { name: 'Create case' }).click();
+
+    await page.getByRole('heading', { name: title }).waitFor();
+    const incident = await page.getByText('UTC', { exact: false }).first().textContent();
+    expect(incident).toContain('2026-03-14 08:12:00 UTC');
+
+    await page.getByRole('link', { name: 'All cases' }).click();
+    await page.getByLabel('Search').fill(title);
+    const row = page.getByRole('row', { name: new RegExp(title) });
+    await row.waitFor();
+    const cells = (await row.getByRole('cell').allTextContents()).map((text) => text.trim());
+    expect(cells.slice(1, 5)).toEqual([title, 'Quayside cold store', 'TUG-31', '2026-03-14 09:12']);
+    expect(cells[5]).toBe('High');
+    expect(cells[6]).toBe('Open');
+    await page.context().close();
+  });
+
+  it('shows client-side field errors beside the fields and sends nothing', async () => {
+    const page = await openPage(browser, baseUrl);
+    await signInAs(page, 'investigator');
+    await page.goto('/cases/new');
+    let posted = false;
+    page.on('request', (request) => {
+      if (request.method() === 'POST' && request.url().endsWith('/api/cases')) posted = true;
+    });
+    await page.getByLabel('Title').fill('ab');
+    await page.getByRole('button', { name: 'Create case' }).click();
+    await page.getByText('Use at least 3 characters').waitFor();
+    await page.getByText('Enter the date and time of the incident').waitFor();
+    await page.getByText('Choose a severity').waitFor();
+    expect(await page.getByLabel('Title').getAttribute('aria-invalid')).toBe('true');
+    expect(posted).toBe(false);
+    await page.context().close();
+  });
+
+  it('sorts by a column header and keeps the sort after a reload', async () => {
+    const page = await openPage(browser, baseUrl);
+    await signInAs(page, 'reviewer');
+    await page.getByRole('row').nth(1).waitFor();
+    const titleHeader = page.getByRole('columnheader', { name: /Title/ });
+    await titleHeader.getByRole('button').click();
+    await page.waitForURL(/sort=title/);
+    expect(await titleHeader.getAttribute('aria-sort')).toBe('ascending');
+    await page.waitForFunction(() => !document.querySelector('table[aria-busy="true"]'));
+    const titles = async () =>
+      (await page.locator('tbody tr td:nth-child(2)').allTextContents()).map((t) => t.trim());
+    const before = await titles();
+    expect(before.length).toBeGreaterThan(1);
+    // Server sort order is compared with the browser's own collation as an outside reference.
+    const collator = new Intl.Collator('en', { sensitivity: 'base' });
+    expect([...before].sort(collator.compare)).toEqual(before);
+    await page.reload();
+    await page.getByRole('row').nth(1).waitFor();
+    expect(await page.getByRole('columnheader', { name: /Title/ }).getAttribute('aria-sort')).toBe(
+      'ascending',
+    );
+    await page.context().close();
+  });
+
+  it('takes screenshots of the case list at 1280x800 and 1024 px wide', async () => {
+    for (const [viewport, name] of [
+      [DESKTOP, 'case-list'],
+      [NARROW, 'case-list-1024'],
+    ] as const) {
+      const page = await openPage(browser, baseUrl, { viewport });
+      await signInAs(page, 'investigator');
+      await page.getByRole('row').nth(1).waitFor();
+      await page.waitForFunction(() => !document.querySelector('[aria-busy="true"]'));
+      await page.evaluate(() => document.fonts.ready);
+      expect(await hasHorizontalOverflow(page)).toBe(false);
+      await saveScreenshot(page, name);
+      await page.context().close();
+    }
+  });
+});

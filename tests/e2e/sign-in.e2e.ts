@@ -1,0 +1,88 @@
+import { ROLES, type Role } from '@shared/roles';
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { launchBrowser, openPage } from './support/browser';
+import { DEMO_PASSWORD, demoEmail, fillSignIn, signInAs } from './support/sign-in';
+
+// The navigation each role must see, as the foundation issue's role table specifies it.
+const EXPECTED_NAVIGATION: Record<Role, string[]> = {
+  investigator: ['Cases', 'New case'],
+  reviewer: ['Cases'],
+  legal: ['Cases'],
+  engineer: ['Cases'],
+  admin: ['Cases', 'Users'],
+};
+
+const ROLE_NAMES: Record<Role, string> = {
+  investigator: 'Investigator',
+  reviewer: 'Safety reviewer',
+  legal: 'Legal',
+  engineer: 'Engineer',
+  admin: 'Administrator',
+};
+
+describe('signing in', () => {
+  const baseUrl = inject('baseUrl');
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  for (const role of ROLES) {
+    it(`shows the ${role}'s navigation`, async () => {
+      const page = await openPage(browser, baseUrl);
+      await signInAs(page, role);
+      expect(page.url()).toMatch(/\/cases$/);
+      const links = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
+      // The first link is the wordmark, which returns home.
+      expect(links.slice(1).map((text) => text.trim())).toEqual(EXPECTED_NAVIGATION[role]);
+      expect(await page.getByTestId('user-role').textContent()).toBe(ROLE_NAMES[role]);
+      await page.context().close();
+    });
+  }
+
+  it('answers a wrong password with the generic message and stays on the form', async () => {
+    const page = await openPage(browser, baseUrl);
+    await fillSignIn(page, demoEmail('reviewer'), `${DEMO_PASSWORD}-wrong`);
+    const alert = page.getByRole('alert');
+    await alert.waitFor();
+    expect(await alert.textContent()).toContain('That e-mail and password do not match an active account.');
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await page.context().close();
+  });
+
+  it('sends a signed-out visitor to sign-in and back to the page they asked for', async () => {
+    const page = await openPage(browser, baseUrl);
+    await page.goto('/cases?severity=high');
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    expect(new URL(page.url()).searchParams.get('next')).toBe('/cases?severity=high');
+    await page.getByLabel('E-mail').fill(demoEmail('legal'));
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/cases\?severity=high$/);
+    expect(await page.getByLabel('Severity').inputValue()).toBe('high');
+    await page.context().close();
+  });
+
+  it('tells an engineer that the user admin page is not for their role', async () => {
+    const page = await openPage(browser, baseUrl);
+    await signInAs(page, 'engineer');
+    await page.goto('/admin/users');
+    await page.getByText('Not available for your role').waitFor();
+    await page.context().close();
+  });
+
+  it('signs out from the user menu', async () => {
+    const page = await openPage(browser, baseUrl);
+    await signInAs(page, 'reviewer');
+    await page.getByRole('button', { name: /Account menu/ }).click();
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.goto('/cases');
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.context().close();
+  });
+});
