@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import { quoteFound } from './format-issue';
 import type { IssueCollector } from './issue-collector';
+import { findJsonErrorOffset } from './json-error-position';
 
 /** Renders a zod path as the JSON path people read: `detector.confusion[1]`. */
 export function formatJsonPath(path: readonly PropertyKey[]): string {
@@ -21,10 +22,9 @@ export function parseJsonText(file: string, text: string, issues: IssueCollector
   try {
     return JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
   } catch (error) {
-    const message = (error as Error).message;
-    const position = /position (\d+)/.exec(message);
-    const line = position ? lineAt(text, Number(position[1])) : undefined;
-    issues.add({ file, line, message: `not valid JSON: ${message}` });
+    const offset = findJsonErrorOffset(text);
+    const line = offset === undefined ? undefined : lineAt(text, offset);
+    issues.add({ file, line, message: `not valid JSON: ${(error as Error).message}` });
     return undefined;
   }
 }

@@ -3,6 +3,9 @@ import { mkdir, mkdtemp, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ZipArchive } from 'archiver';
+import { expect } from 'vitest';
+import type { BundleIssue } from '../../shared/bundle/types';
+import { validateBundleFiles } from '../../shared/bundle/validate-bundle-files';
 
 /**
  * Builders for incident bundles in tests and benchmarks: an invented warehouse ("Harbour Row
@@ -168,4 +171,18 @@ export function withFile(
   if (content === undefined) delete copy[name];
   else copy[name] = content;
   return copy;
+}
+
+/** Issues of the valid fixture with one file replaced (or removed when `content` is undefined). */
+export function issuesWithFile(name: string, content: string | undefined): BundleIssue[] {
+  return validateBundleFiles(withFile(makeBundleFiles(), name, content)).issues;
+}
+
+/** Asserts that some issue has all the given fields and a message matching `message`. */
+export function expectIssue(issues: BundleIssue[], where: Partial<BundleIssue>, message: RegExp): void {
+  const match = issues.find((issue) =>
+    Object.entries(where).every(([key, value]) => issue[key as keyof BundleIssue] === value),
+  );
+  expect(match, `no issue at ${JSON.stringify(where)} in ${JSON.stringify(issues)}`).toBeDefined();
+  expect(match!.message).toMatch(message);
 }
