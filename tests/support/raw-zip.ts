@@ -11,6 +11,9 @@ export interface RawZipEntry {
   method?: 'store' | 'deflate';
   /** Overrides the uncompressed size written to both headers (to make the directory lie). */
   declaredSize?: number;
+  /** Already-deflated data (with its CRC-32), for entries too large to hold unpacked. */
+  packed?: Buffer;
+  crc?: number;
 }
 
 export function buildRawZip(entries: RawZipEntry[]): Buffer {
@@ -20,9 +23,9 @@ export function buildRawZip(entries: RawZipEntry[]): Buffer {
   for (const entry of entries) {
     const name = Buffer.from(entry.name, 'utf8');
     const isDeflate = (entry.method ?? 'deflate') === 'deflate';
-    const packed = isDeflate ? deflateRawSync(entry.data) : entry.data;
+    const packed = entry.packed ?? (isDeflate ? deflateRawSync(entry.data) : entry.data);
     const size = entry.declaredSize ?? entry.data.length;
-    const checksum = crc32(entry.data);
+    const checksum = entry.crc ?? crc32(entry.data);
     const local = Buffer.alloc(30);
     local.writeUInt32LE(0x04034b50, 0);
     local.writeUInt16LE(20, 4);

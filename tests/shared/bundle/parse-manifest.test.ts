@@ -9,8 +9,11 @@ import {
   withFile,
 } from '../../support/bundle-fixtures';
 
-function manifestWith(change: (manifest: Record<string, any>) => void): string {
-  const manifest = fixtureManifest() as Record<string, any>;
+// biome-ignore lint/suspicious/noExplicitAny: the tests edit arbitrary, deliberately wrong JSON
+type LooseJson = Record<string, any>;
+
+function manifestWith(change: (manifest: LooseJson) => void): string {
+  const manifest = fixtureManifest() as LooseJson;
   change(manifest);
   return JSON.stringify(manifest);
 }
