@@ -15,7 +15,7 @@ import { WaypointController } from './waypoint-controller';
 /** s between odometry rows, commands and scans (10 Hz). */
 export const STEP_SECONDS = 0.1;
 /** True odometry noise of the simulated drive (variance coefficients, Thrun et al. 2005, Table 5.6). */
-export const TRUE_ODOMETRY_ALPHA: [number, number, number, number] = [0.02, 0.002, 0.01, 0.002];
+export const TRUE_ODOMETRY_ALPHA: [number, number, number, number] = [0.05, 0.005, 0.01, 0.002];
 const ACCELERATION = 0.6;
 const STOP_HOLD_SECONDS = 4;
 /** After a stop this close to a structure (m), the operator first jogs the robot this far clear (m). */

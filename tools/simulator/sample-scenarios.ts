@@ -66,8 +66,8 @@ export const WHEEL_SLIP: ScenarioSpec = {
     [WEST_LANE, AISLE_3],
   ],
   world: {},
-  slip: { start: 18.0, end: 20.5, yawRate: 0.45 },
-  stopNotes: ['Re-localized at aisle 2 by Dario Kessler; wet floor by drain D-4 coned off; tote scraped'],
+  slip: { start: 18.0, end: 22.0, yawRate: 0.16 },
+  stopNotes: ['Re-localized at aisle 2 by Dario Kessler; wet floor by drain D-4 coned off'],
   scriptedEvents: [
     { t: 2.0, kind: 'operator_note', detail: 'Defrost cycle running in chamber 2 (facilities ticket 5521)' },
   ],
