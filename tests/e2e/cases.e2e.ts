@@ -25,7 +25,8 @@ describe('cases', () => {
     await page.getByRole('link', { name: 'New case' }).first().click();
     await page.getByRole('heading', { name: 'New case' }).waitFor();
 
-    const title = `Tug halted beside cold store ${Date.now()}`;
+    // A run number keeps the title unique when the suite runs twice against one data directory.
+    const title = `Tug halted beside cold store, run ${Date.now() % 100_000}`;
     await page.getByLabel('Title').fill(title);
     await page.getByLabel('Site').fill('Quayside cold store');
     await page.getByLabel('Robot id').fill('TUG-31');
@@ -34,9 +35,11 @@ describe('cases', () => {
     await page
       .getByLabel(/Summary/)
       .fill('Protective stop 0.4 m from a pallet; operator reported a jump on the map.');
+    await saveScreenshot(page, 'new-case');
     await page.getByRole('button', { name: 'Create case' }).click();
 
     await page.getByRole('heading', { name: title }).waitFor();
+    await saveScreenshot(page, 'case-detail');
     const incident = await page.getByText('UTC', { exact: false }).first().textContent();
     expect(incident).toContain('2026-03-14 08:12:00 UTC');
 
@@ -44,7 +47,7 @@ describe('cases', () => {
     await page.getByLabel('Search').fill(title);
     const row = page.getByRole('row', { name: new RegExp(title) });
     await row.waitFor();
-    const cells = (await row.getByRole('cell').allTextContents()).map((text) => text.trim());
+    const cells = (await row.getByRole('cell').allInnerTexts()).map((text) => text.trim());
     expect(cells.slice(1, 5)).toEqual([title, 'Quayside cold store', 'TUG-31', '2026-03-14 09:12']);
     expect(cells[5]).toBe('High');
     expect(cells[6]).toBe('Open');

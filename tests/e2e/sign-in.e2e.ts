@@ -1,7 +1,7 @@
 import { ROLES, type Role } from '@shared/roles';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchBrowser, openPage } from './support/browser';
+import { launchBrowser, openPage, saveScreenshot } from './support/browser';
 import { DEMO_PASSWORD, demoEmail, fillSignIn, signInAs } from './support/sign-in';
 
 // The navigation each role must see, as the foundation issue's role table specifies it.
@@ -51,6 +51,7 @@ describe('signing in', () => {
     await alert.waitFor();
     expect(await alert.textContent()).toContain('That e-mail and password do not match an active account.');
     expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await saveScreenshot(page, 'sign-in-error');
     await page.context().close();
   });
 

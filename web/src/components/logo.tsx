@@ -25,7 +25,7 @@ export function LogoMark({ className = 'size-8' }: { className?: string }) {
         strokeDasharray="2 3"
         strokeLinecap="round"
       />
-      <path d="M15 16l8-7-2.5 9.5z" fill="#E69F00" />
+      <path d="M24.5 7.5L13 13l4.5 1.5 1.5 4.5z" fill="#E69F00" />
     </svg>
   );
 }

@@ -19,13 +19,13 @@ export function AppShell() {
       </a>
       <SideNav role={data.user.role} />
       <div className="flex min-w-0 flex-1 flex-col">
-        <header className="flex h-14 shrink-0 items-center justify-between border-b border-canvas-line bg-canvas-raised px-6">
+        <header className="flex h-14 shrink-0 items-center justify-between border-b border-canvas-line bg-canvas-raised px-4 xl:px-6">
           <p className="text-sm text-ink-muted" data-testid="page-title">
             {title}
           </p>
           <UserMenu user={data.user} />
         </header>
-        <main id="main" tabIndex={-1} className="flex-1 overflow-y-auto px-6 py-6 focus:outline-none">
+        <main id="main" tabIndex={-1} className="flex-1 overflow-y-auto px-4 py-6 xl:px-6 focus:outline-none">
           <div className="mx-auto max-w-7xl">
             <Outlet />
           </div>

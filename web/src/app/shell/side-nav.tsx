@@ -8,7 +8,7 @@ import { navigationFor } from './navigation';
 export function SideNav({ role }: { role: Role }) {
   const { pathname } = useLocation();
   return (
-    <nav aria-label="Main" className="flex w-56 shrink-0 flex-col bg-chrome-900 text-chrome-100">
+    <nav aria-label="Main" className="flex w-44 shrink-0 flex-col bg-chrome-900 text-chrome-100 xl:w-56">
       <Link to={paths.home.href()} className="flex h-14 items-center px-4" aria-label="Driftcase home">
         <Logo />
       </Link>
@@ -43,7 +43,7 @@ export function SideNav({ role }: { role: Role }) {
           </div>
         ))}
       </div>
-      <p className="px-4 py-3 text-xs text-chrome-300/70">Driftcase · incident investigation</p>
+      <p className="px-4 py-3 text-xs text-chrome-300/70">Incident investigation</p>
     </nav>
   );
 }

@@ -16,7 +16,7 @@ export function CaseFilters({ params, onChange }: CaseFiltersProps) {
   const hasFilters = Boolean(params.q || params.status || params.severity || params.site);
   return (
     <search aria-label="Filter cases" className="flex flex-wrap items-end gap-3">
-      <FormField label="Search" className="min-w-56 flex-[2]">
+      <FormField label="Search" className="min-w-40 flex-1">
         {(control) => (
           <div className="relative">
             <Search aria-hidden className="pointer-events-none absolute top-3 left-3 size-4 text-ink-faint" />
@@ -24,14 +24,14 @@ export function CaseFilters({ params, onChange }: CaseFiltersProps) {
               {...control}
               type="search"
               className="pl-9"
-              placeholder="Reference, title, robot or summary"
+              placeholder="Reference, title, robot…"
               value={params.q ?? ''}
               onValueChange={(q) => onChange({ q: q || undefined })}
             />
           </div>
         )}
       </FormField>
-      <FormField label="Status" className="w-44">
+      <FormField label="Status" className="w-40 xl:w-44">
         {(control) => (
           <SelectInput
             {...control}
@@ -62,7 +62,7 @@ export function CaseFilters({ params, onChange }: CaseFiltersProps) {
           </SelectInput>
         )}
       </FormField>
-      <FormField label="Site" className="w-44">
+      <FormField label="Site" className="w-32 xl:w-44">
         {(control) => (
           <DebouncedTextInput
             {...control}
@@ -75,10 +75,11 @@ export function CaseFilters({ params, onChange }: CaseFiltersProps) {
       <Button
         icon={X}
         variant="ghost"
+        title="Clear all filters"
         disabled={!hasFilters}
         onClick={() => onChange({ q: undefined, status: undefined, severity: undefined, site: undefined })}
       >
-        Clear filters
+        Clear
       </Button>
     </search>
   );

@@ -16,15 +16,17 @@ interface CasesTableProps {
   isRefreshing: boolean;
 }
 
-const HEAD = 'px-3 py-2 text-left text-xs font-bold uppercase tracking-wide text-ink-muted';
+const HEAD = 'px-3 py-2 text-left text-xs font-bold text-ink-muted';
 const CELL = 'px-3 py-2.5 align-middle';
+// Below 1280 px the robot id moves under the title, so the title keeps room to be read.
+const WIDE_ONLY = 'hidden xl:table-cell';
 
 function SkeletonRows({ count }: { count: number }) {
   return Array.from({ length: count }, (_, row) => (
     // biome-ignore lint/suspicious/noArrayIndexKey: placeholder rows have no identity
     <tr key={row} className="border-t border-canvas-line">
-      {['w-20', 'w-56', 'w-24', 'w-16', 'w-28', 'w-16', 'w-20'].map((width) => (
-        <td key={width} className={CELL}>
+      {['w-16', 'w-48', 'w-24', 'w-14', 'w-28', 'w-16', 'w-20'].map((width) => (
+        <td key={width} className={width === 'w-14' ? `${CELL} ${WIDE_ONLY}` : CELL}>
           <SkeletonBar className={width} />
         </td>
       ))}
@@ -45,13 +47,13 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
         Cases, sorted by {params.sort} ({params.order === 'asc' ? 'ascending' : 'descending'})
       </caption>
       <colgroup>
-        <col className="w-[7.5rem]" />
+        <col className="w-[6.5rem]" />
         <col />
-        <col className="w-[9rem]" />
-        <col className="w-[7rem]" />
-        <col className="w-[9.5rem]" />
-        <col className="w-[7rem]" />
-        <col className="w-[11rem]" />
+        <col className="w-[8.5rem] xl:w-[10rem]" />
+        <col className="hidden w-[6.5rem] xl:table-column" />
+        <col className="w-[9.25rem]" />
+        <col className="w-[6.5rem]" />
+        <col className="w-[10rem]" />
       </colgroup>
       <thead className="bg-canvas-sunk/60">
         <tr>
@@ -60,7 +62,7 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
           </th>
           <SortableHeader label="Title" {...sortProps('title')} />
           <SortableHeader label="Site" {...sortProps('site')} />
-          <th scope="col" className={HEAD}>
+          <th scope="col" className={`${HEAD} ${WIDE_ONLY}`}>
             Robot
           </th>
           <SortableHeader label="Incident time" {...sortProps('incidentTime')} />
@@ -81,11 +83,14 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
               </td>
               <td className={`${CELL} truncate`} title={item.title}>
                 {item.title}
+                <span className="block truncate text-xs text-ink-muted tabular-nums xl:hidden">
+                  Robot {item.robotId}
+                </span>
               </td>
               <td className={`${CELL} truncate`} title={item.site}>
                 {item.site}
               </td>
-              <td className={`${CELL} truncate tabular-nums`} title={item.robotId}>
+              <td className={`${CELL} ${WIDE_ONLY} truncate tabular-nums`} title={item.robotId}>
                 {item.robotId}
               </td>
               <td className={CELL}>

@@ -49,7 +49,11 @@ export function CreateCaseForm({ onCreated, onCancel }: CreateCaseFormProps) {
         )}
       </FormField>
       <div className="grid grid-cols-2 gap-4">
-        <FormField label="Site" error={errors.site?.message}>
+        <FormField
+          label="Site"
+          hint="Where it happened: site, then hall or area."
+          error={errors.site?.message}
+        >
           {(control) => <TextInput {...control} {...form.register('site')} placeholder="Harbourside depot" />}
         </FormField>
         <FormField

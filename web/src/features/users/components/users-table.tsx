@@ -13,7 +13,7 @@ interface UsersTableProps {
   onToggleActive: (user: TUser) => void;
 }
 
-const HEAD = 'px-3 py-2 text-left text-xs font-bold uppercase tracking-wide text-ink-muted';
+const HEAD = 'px-3 py-2 text-left text-xs font-bold text-ink-muted';
 const CELL = 'px-3 py-2 align-middle';
 
 function ActiveState({ isActive }: { isActive: boolean }) {
