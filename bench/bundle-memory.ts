@@ -64,7 +64,7 @@ async function writeLines(
   const out = createWriteStream(path);
   if (header) out.write(`${header}\n`);
   for (let k = 0; k < count; k++)
-    if (!out.write(`${line(k)}\n`)) await new Promise((resolve) => out.once('drain', resolve));
+    if (!out.write(`${line(k)}\n`)) await new Promise<void>((resolve) => out.once('drain', () => resolve()));
   await new Promise((resolve) => out.end(resolve));
 }
 
@@ -110,8 +110,8 @@ async function generateBundle(dir: string): Promise<string[]> {
 async function zipFolder(dir: string, names: string[], zipPath: string): Promise<void> {
   const archive = new ZipArchive({ zlib: { level: 6 } });
   const output = createWriteStream(zipPath);
-  const closed = new Promise((resolve, reject) => {
-    output.on('close', resolve);
+  const closed = new Promise<void>((resolve, reject) => {
+    output.on('close', () => resolve());
     archive.on('error', reject);
   });
   archive.pipe(output);
