@@ -13,7 +13,12 @@ import {
 } from './filter-step';
 import { kldTargetCount } from './kld-sampling';
 import type { ParticleState } from './particle-state';
-import { createPoseSummary, summarizeWeightedPoses, type WeightedPoseSummary } from './pose-statistics';
+import {
+  createPoseSummary,
+  summarizeWeightedPoses,
+  type WeightedPoseSummary,
+  weightedMeanPose,
+} from './pose-statistics';
 import { createRandomScratch } from './random';
 import { injectionProbability, injectRandomParticles, updateLogAverage } from './recovery';
 import type { ReplayContext } from './replay-context';
@@ -54,6 +59,8 @@ export interface StepWorkspace {
   marks: Uint8Array;
   range: RangeScratch;
   clusters: ClusterScratch;
+  /** Predicted (pre-update) mean pose x, y, theta. */
+  predicted: Float64Array;
   record: StepRecord;
 }
 
@@ -73,6 +80,7 @@ export function createStepWorkspace(context: ReplayContext): StepWorkspace {
     marks: new Uint8Array(capacity),
     range: createRangeScratch(context, createRandomScratch()),
     clusters: createClusterScratch(),
+    predicted: new Float64Array(3),
     record: {
       t: 0,
       pose: createPoseSummary(),
@@ -187,16 +195,32 @@ export function advanceStep(
     stepLogLikelihood,
     workspace.range,
   );
-  if (withDiagnostics) {
+  const predicted = workspace.predicted;
+  if (withDiagnostics && measurements > 0) {
     exponentiateWeights(state.logWeight, n, weights);
-    summarizeWeightedPoses(state.x, state.y, state.theta, cosTheta, sinTheta, weights, n, record.pose);
-    record.predictedX = record.pose.x;
-    record.predictedY = record.pose.y;
-    record.predictedTheta = record.pose.theta;
+    weightedMeanPose(state.x, state.y, cosTheta, sinTheta, weights, n, predicted);
   }
   const logLikelihood = measurements > 0 ? updateWeights(state, stepLogLikelihood) : Number.NaN;
   exponentiateWeights(state.logWeight, n, weights);
-  summarizeWeightedPoses(state.x, state.y, state.theta, cosTheta, sinTheta, weights, n, record.pose);
+  summarizeWeightedPoses(
+    state.x,
+    state.y,
+    state.theta,
+    cosTheta,
+    sinTheta,
+    weights,
+    state.logWeight,
+    n,
+    record.pose,
+  );
+  if (measurements === 0) {
+    predicted[0] = record.pose.x;
+    predicted[1] = record.pose.y;
+    predicted[2] = record.pose.theta;
+  }
+  record.predictedX = predicted[0];
+  record.predictedY = predicted[1];
+  record.predictedTheta = predicted[2];
   record.t = context.bundle.odometry.t[step];
   record.logLikelihood = logLikelihood;
   record.measurements = measurements;

@@ -65,9 +65,11 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
 }
 
 /**
- * Likelihood (density, 1 / (m rad)) of one detection for a robot at pose (x, y, theta), map frame.
+ * Best association term max_l N(r) N(b) P(reported | class_l) for a robot at (poseX, poseY,
+ * poseTheta). Landmarks are considered when their distance d satisfies d <= max_range and
+ * |r - d| <= RANGE_GATE_SIGMAS sigma_r, tested on d^2 against [lowerSquared, upperSquared].
  */
-export function detectionLikelihood(
+function bestAssociation(
   model: LandmarkModel,
   poseX: number,
   poseY: number,
@@ -75,23 +77,24 @@ export function detectionLikelihood(
   reportedClass: number,
   range: number,
   bearing: number,
+  lowerSquared: number,
+  upperSquared: number,
 ): number {
-  const maxRangeSquared = model.maxRange * model.maxRange;
-  const rangeGate = RANGE_GATE_SIGMAS * model.rangeSigma;
   const inverseRangeVariance = 1 / (model.rangeSigma * model.rangeSigma);
   const inverseBearingVariance = 1 / (model.bearingSigma * model.bearingSigma);
   let best = 0;
   for (let l = 0; l < model.count; l++) {
-    const trueClass = model.classIndex[l];
-    if (trueClass < 0) continue;
     const dx = model.x[l] - poseX;
     const dy = model.y[l] - poseY;
     const distanceSquared = dx * dx + dy * dy;
-    if (distanceSquared > maxRangeSquared) continue;
+    if (distanceSquared > upperSquared || distanceSquared < lowerSquared) continue;
+    const trueClass = model.classIndex[l];
+    if (trueClass < 0) continue;
     const rangeResidual = range - Math.sqrt(distanceSquared);
-    if (rangeResidual > rangeGate || rangeResidual < -rangeGate) continue;
     let bearingResidual = bearing - (Math.atan2(dy, dx) - poseTheta);
-    bearingResidual -= 2 * Math.PI * Math.round(bearingResidual / (2 * Math.PI));
+    if (bearingResidual > Math.PI || bearingResidual <= -Math.PI) {
+      bearingResidual -= 2 * Math.PI * Math.round(bearingResidual / (2 * Math.PI));
+    }
     const exponent =
       -0.5 *
       (rangeResidual * rangeResidual * inverseRangeVariance +
@@ -102,6 +105,32 @@ export function detectionLikelihood(
       model.confusion[trueClass * model.classCount + reportedClass];
     if (p > best) best = p;
   }
+  return best;
+}
+
+/** Squared distance window [lower, upper] (m^2) passed by the range gate and max_range. */
+function gateWindow(model: LandmarkModel, range: number): [number, number] {
+  const gate = RANGE_GATE_SIGMAS * model.rangeSigma;
+  const lower = Math.max(0, range - gate);
+  const upper = Math.min(model.maxRange, range + gate);
+  return [lower * lower, upper * upper];
+}
+
+/**
+ * Likelihood (density, 1 / (m rad) per class) of one detection (reported class index, range m,
+ * bearing rad in the robot frame) for a robot at pose (x, y, theta), map frame.
+ */
+export function detectionLikelihood(
+  model: LandmarkModel,
+  poseX: number,
+  poseY: number,
+  poseTheta: number,
+  reportedClass: number,
+  range: number,
+  bearing: number,
+): number {
+  const [lower, upper] = gateWindow(model, range);
+  const best = bestAssociation(model, poseX, poseY, poseTheta, reportedClass, range, bearing, lower, upper);
   return (1 - model.clutter) * best + model.clutter * model.clutterDensity;
 }
 
@@ -118,7 +147,11 @@ export function accumulateDetectionLogLikelihood(
   bearing: number,
   out: Float64Array,
 ): void {
+  const [lower, upper] = gateWindow(model, range);
+  const hitWeight = 1 - model.clutter;
+  const clutterTerm = model.clutter * model.clutterDensity;
   for (let i = from; i < to; i++) {
-    out[i] += Math.log(detectionLikelihood(model, x[i], y[i], theta[i], reportedClass, range, bearing));
+    const best = bestAssociation(model, x[i], y[i], theta[i], reportedClass, range, bearing, lower, upper);
+    out[i] += Math.log(hitWeight * best + clutterTerm);
   }
 }

@@ -27,6 +27,19 @@ export interface LikelihoodField {
   distance: Float32Array;
   /** log(z_rand / z_max): the value for endpoints outside the grid or on unknown cells. */
   floorLogLikelihood: number;
+  /**
+   * `logLikelihood` with a one-cell border of `floorLogLikelihood` on every side ((width + 2) x
+   * (height + 2), south-up): lets the hot loop truncate coordinates with `| 0` and bounds-check
+   * with two unsigned comparisons, since anything in (-1, 0) lands on the border.
+   */
+  paddedLogLikelihood: Float32Array;
+}
+
+function padTable(table: Float32Array, width: number, height: number, border: number): Float32Array {
+  const padded = new Float32Array((width + 2) * (height + 2)).fill(border);
+  for (let row = 0; row < height; row++)
+    padded.set(table.subarray(row * width, (row + 1) * width), (row + 1) * (width + 2) + 1);
+  return padded;
 }
 
 /** Builds the likelihood field for a grid; `rangeMax` (m) is the sensor's z_max. */
@@ -71,6 +84,7 @@ export function buildLikelihoodField(
     logLikelihood,
     distance,
     floorLogLikelihood,
+    paddedLogLikelihood: padTable(logLikelihood, width, height, floorLogLikelihood),
   };
 }
 
@@ -151,25 +165,27 @@ export function accumulateScanLogLikelihood(
   count: number,
   out: Float64Array,
 ): void {
-  const { width, height, inverseResolution, originX, originY, logLikelihood, floorLogLikelihood } = field;
+  const { inverseResolution, originX, originY, paddedLogLikelihood, floorLogLikelihood } = field;
+  const paddedWidth = field.width + 2;
+  const paddedHeight = field.height + 2;
   for (let i = from; i < to; i++) {
     const c = cosTheta[i];
     const s = sinTheta[i];
-    const gridX = (x[i] - originX) * inverseResolution;
-    const gridY = (y[i] - originY) * inverseResolution;
+    // Grid coordinates shifted by the one-cell border (see paddedLogLikelihood).
+    const gridX = (x[i] - originX) * inverseResolution + 1;
+    const gridY = (y[i] - originY) * inverseResolution + 1;
     const cScaled = c * inverseResolution;
     const sScaled = s * inverseResolution;
     let sum = 0;
     for (let k = 0; k < count; k++) {
       const ex = endX[k];
       const ey = endY[k];
-      const column = gridX + cScaled * ex - sScaled * ey;
-      const row = gridY + sScaled * ex + cScaled * ey;
-      if (column >= 0 && column < width && row >= 0 && row < height) {
-        sum += logLikelihood[(row | 0) * width + (column | 0)];
-      } else {
-        sum += floorLogLikelihood;
-      }
+      const column = (gridX + cScaled * ex - sScaled * ey) | 0;
+      const row = (gridY + sScaled * ex + cScaled * ey) | 0;
+      sum +=
+        column >>> 0 < paddedWidth && row >>> 0 < paddedHeight
+          ? paddedLogLikelihood[row * paddedWidth + column]
+          : floorLogLikelihood;
     }
     out[i] += sum;
   }

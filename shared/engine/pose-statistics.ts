@@ -27,7 +27,8 @@ export function createPoseSummary(): WeightedPoseSummary {
 }
 
 /**
- * Fills `out` from particles [0, n) with normalised `weights` and precomputed heading cos/sin.
+ * Fills `out` from particles [0, n) with normalised `weights` (and their logs `logWeight`) and
+ * precomputed heading cos/sin.
  * Fixed summation order (index order) keeps the result bit-reproducible.
  */
 export function summarizeWeightedPoses(
@@ -37,6 +38,7 @@ export function summarizeWeightedPoses(
   cosTheta: Float64Array,
   sinTheta: Float64Array,
   weights: Float64Array,
+  logWeight: Float64Array,
   n: number,
   out: WeightedPoseSummary,
 ): void {
@@ -53,7 +55,7 @@ export function summarizeWeightedPoses(
     sumCos += w * cosTheta[i];
     sumSin += w * sinTheta[i];
     sumSquares += w * w;
-    if (w > 0) entropy -= w * Math.log(w);
+    if (w > 0) entropy -= w * logWeight[i];
   }
   const meanTheta = Math.atan2(sumSin, sumCos);
   let covXX = 0;
@@ -82,20 +84,28 @@ export function summarizeWeightedPoses(
   out.entropy = entropy;
 }
 
-/** Weighted mean position only (m), into out[0], out[1]; used for the measurement correction. */
-export function weightedMeanPosition(
+/** Weighted mean pose (m, m, rad; circular mean heading) into out[0..2]. */
+export function weightedMeanPose(
   x: Float64Array,
   y: Float64Array,
+  cosTheta: Float64Array,
+  sinTheta: Float64Array,
   weights: Float64Array,
   n: number,
   out: Float64Array,
 ): void {
   let meanX = 0;
   let meanY = 0;
+  let sumCos = 0;
+  let sumSin = 0;
   for (let i = 0; i < n; i++) {
-    meanX += weights[i] * x[i];
-    meanY += weights[i] * y[i];
+    const w = weights[i];
+    meanX += w * x[i];
+    meanY += w * y[i];
+    sumCos += w * cosTheta[i];
+    sumSin += w * sinTheta[i];
   }
   out[0] = meanX;
   out[1] = meanY;
+  out[2] = Math.atan2(sumSin, sumCos);
 }

@@ -5,7 +5,7 @@
  * corrupted per the odometry motion model; sphere-traced laser scans; reflector detections; a
  * reference trajectory and an onboard estimate with covariance. Deterministic for a given seed.
  */
-import type { Bundle, Landmark, Manifest, OccupancyGrid } from '../../shared/bundle/types';
+import type { Bundle, DetectorConfig, Landmark, Manifest, OccupancyGrid } from '../../shared/bundle/types';
 import { CELL_FREE, CELL_OCCUPIED } from '../../shared/bundle/types';
 import { FAR, squaredDistanceTransform } from '../../shared/engine/distance-transform';
 import { decomposeOdometry } from '../../shared/engine/motion-model';
@@ -84,6 +84,20 @@ function loopPose(time: number): [number, number, number] {
   return [x, y, Math.atan2(LOOP.ay * Math.cos(angle), -LOOP.ax * Math.sin(angle))];
 }
 
+/** Detector of the synthetic robot: three classes, mild confusion, 5 % clutter. */
+export const WAREHOUSE_DETECTOR: DetectorConfig = {
+  classes: ['reflector', 'dock', 'column'],
+  confusion: [
+    [0.9, 0.05, 0.05],
+    [0.1, 0.85, 0.05],
+    [0.05, 0.05, 0.9],
+  ],
+  range_sigma: 0.05,
+  bearing_sigma: 0.03,
+  max_range: 8,
+  clutter: 0.05,
+};
+
 function manifestFor(options: Required<SyntheticBundleOptions>): Manifest {
   const start = loopPose(0);
   return {
@@ -106,18 +120,7 @@ function manifestFor(options: Required<SyntheticBundleOptions>): Manifest {
       range_min: 0.05,
       range_max: 12,
     },
-    detector: {
-      classes: ['reflector', 'dock', 'column'],
-      confusion: [
-        [0.9, 0.05, 0.05],
-        [0.1, 0.85, 0.05],
-        [0.05, 0.05, 0.9],
-      ],
-      range_sigma: 0.05,
-      bearing_sigma: 0.03,
-      max_range: 8,
-      clutter: 0.05,
-    },
+    detector: WAREHOUSE_DETECTOR,
     filter: {
       particles: options.particles,
       seed: 7,

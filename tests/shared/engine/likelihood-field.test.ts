@@ -1,0 +1,107 @@
+import jStat from 'jstat';
+import { describe, expect, it } from 'vitest';
+import type { OccupancyGrid, ScanConfig } from '../../../shared/bundle/types';
+import {
+  accumulateScanLogLikelihood,
+  buildBeamGeometry,
+  buildLikelihoodField,
+  robotFrameEndpoints,
+  selectEvenlySpacedBeams,
+} from '../../../shared/engine/likelihood-field';
+
+const MODEL = { model: 'likelihood_field' as const, z_hit: 0.9, z_rand: 0.1, sigma_hit: 0.1, beams_used: 3 };
+const RANGE_MAX = 10;
+
+/** 20 x 10 grid at 0.1 m, one occupied cell at row 2 (from the north), column 5; unknown cell at (0, 19). */
+function smallGrid(): OccupancyGrid {
+  const cells = new Uint8Array(200);
+  cells[2 * 20 + 5] = 1;
+  cells[19] = 2;
+  return { resolution: 0.1, width: 20, height: 10, origin: [1, 2], cells };
+}
+
+/** Likelihood-field value from Thrun, Burgard, Fox (2005), Table 6.3: z_hit N(d; 0, sigma) + z_rand / z_max. */
+const tableValue = (d: number) => Math.log(0.9 * jStat.normal.pdf(d, 0, 0.1) + 0.1 / RANGE_MAX);
+
+describe('likelihood field (Thrun, Burgard, Fox 2005, Table 6.3)', () => {
+  const field = buildLikelihoodField(smallGrid(), MODEL, RANGE_MAX);
+  // The occupied cell (map row 2 from the north, column 5) is south-up row 7; its centre (1.55, 2.75).
+  const cellValue = (row: number, column: number) => field.logLikelihood[row * 20 + column];
+
+  it('stores log(z_hit N(d) + z_rand/z_max) with d the distance to the nearest occupied cell', () => {
+    expect(cellValue(7, 5)).toBeCloseTo(tableValue(0), 5);
+    expect(cellValue(7, 8)).toBeCloseTo(tableValue(0.3), 5);
+    expect(cellValue(3, 8)).toBeCloseTo(tableValue(0.5), 5);
+    expect(field.distance[3 * 20 + 8]).toBeCloseTo(0.5, 6);
+  });
+
+  it('gives unknown cells and points outside the grid the z_rand / z_max floor', () => {
+    expect(cellValue(9, 19)).toBeCloseTo(Math.log(0.1 / RANGE_MAX), 6);
+    const out = new Float64Array(1);
+    // A particle at the occupied cell centre facing east, one endpoint 50 m ahead.
+    accumulateScanLogLikelihood(
+      field,
+      Float64Array.of(1.55),
+      Float64Array.of(2.75),
+      Float64Array.of(1),
+      Float64Array.of(0),
+      0,
+      1,
+      Float64Array.of(50),
+      Float64Array.of(0),
+      1,
+      out,
+    );
+    expect(out[0]).toBeCloseTo(Math.log(0.1 / RANGE_MAX), 6);
+  });
+
+  it('sums the cell values at the endpoints transformed by the particle pose', () => {
+    const out = new Float64Array(1);
+    // Particle 0.3 m west of the occupied cell centre, heading +90°; a robot-frame endpoint (0, -0.3)
+    // lands on the occupied cell, (0.2, 0) lands 0.2 m north of the particle: cell (south-up row 9,
+    // column 2), 3 columns and 2 rows from the occupied cell (d = sqrt(13) * 0.1 m).
+    const c = Math.cos(Math.PI / 2);
+    accumulateScanLogLikelihood(
+      field,
+      Float64Array.of(1.25),
+      Float64Array.of(2.75),
+      Float64Array.of(c),
+      Float64Array.of(1),
+      0,
+      1,
+      Float64Array.of(0, 0.2),
+      Float64Array.of(-0.3, 0),
+      2,
+      out,
+    );
+    expect(out[0]).toBeCloseTo(tableValue(0) + tableValue(Math.sqrt(13) * 0.1), 5);
+  });
+});
+
+describe('beam selection', () => {
+  it('spaces beams evenly and keeps both ends', () => {
+    expect(Array.from(selectEvenlySpacedBeams(271, 5))).toEqual([0, 68, 135, 203, 270]);
+    expect(Array.from(selectEvenlySpacedBeams(271, 1))).toEqual([135]);
+    expect(selectEvenlySpacedBeams(10, 50).length).toBe(10);
+  });
+
+  it('skips null, max-range and below-minimum beams and applies the sensor mount', () => {
+    const scan: ScanConfig = {
+      mount: [0.2, 0.1, Math.PI / 2],
+      angle_min: -0.5,
+      angle_increment: 0.5,
+      beams: 3,
+      range_min: 0.1,
+      range_max: 5,
+    };
+    const geometry = buildBeamGeometry(scan, 3);
+    const endX = new Float64Array(3);
+    const endY = new Float64Array(3);
+    const ranges = Float32Array.of(1, 2, Number.NaN, 5, 0.05, 3);
+    expect(robotFrameEndpoints(ranges, 0, scan, geometry, endX, endY)).toBe(2);
+    // Beam 1 (angle 0 in the sensor frame) points along the robot's +y because the mount turns 90°.
+    expect(endX[1]).toBeCloseTo(0.2, 6);
+    expect(endY[1]).toBeCloseTo(0.1 + 2, 6);
+    expect(robotFrameEndpoints(ranges, 1, scan, geometry, endX, endY)).toBe(1);
+  });
+});
