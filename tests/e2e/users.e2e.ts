@@ -27,6 +27,7 @@ describe('user admin', () => {
     await dialog.getByLabel('E-mail').fill(email);
     await dialog.getByLabel('Role').selectOption('engineer');
     await dialog.getByLabel('Initial password').fill(password);
+    await saveScreenshot(page, 'add-user-dialog');
     await dialog.getByRole('button', { name: 'Add user' }).click();
     await dialog.waitFor({ state: 'hidden' });
 

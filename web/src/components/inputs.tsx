@@ -11,8 +11,18 @@ export function TextInput({ className, ...rest }: InputHTMLAttributes<HTMLInputE
   return <input className={classNames(CONTROL, 'h-10', className)} {...rest} />;
 }
 
-export function SelectInput({ className, ...rest }: SelectHTMLAttributes<HTMLSelectElement>) {
-  return <select className={classNames(CONTROL, 'h-10 pr-8', className)} {...rest} />;
+interface SelectInputProps extends SelectHTMLAttributes<HTMLSelectElement> {
+  /** `compact` fits inside table rows and toolbars. */
+  density?: 'regular' | 'compact';
+}
+
+export function SelectInput({ className, density = 'regular', ...rest }: SelectInputProps) {
+  return (
+    <select
+      className={classNames(CONTROL, density === 'compact' ? 'h-8 pr-6' : 'h-10 pr-8', className)}
+      {...rest}
+    />
+  );
 }
 
 export function TextArea({ className, ...rest }: TextareaHTMLAttributes<HTMLTextAreaElement>) {

@@ -37,7 +37,8 @@ export function Pagination({
         </label>
         <SelectInput
           id={sizeId}
-          className="h-8 w-20"
+          density="compact"
+          className="w-20"
           value={pageSize}
           onChange={(event) => onPageSizeChange(Number(event.target.value))}
         >

@@ -77,7 +77,8 @@ export function UsersTable({
               <td className={CELL}>
                 <SelectInput
                   aria-label={`Role of ${user.name}`}
-                  className="h-8 w-44"
+                  density="compact"
+                  className="w-44"
                   value={user.role}
                   disabled={isSelf || pendingUserId === user.id}
                   title={isSelf ? 'You cannot change your own role' : undefined}
