@@ -1,0 +1,174 @@
+import { stat, writeFile } from 'node:fs/promises';
+import { formatIssue } from '@shared/bundle/format-issue';
+import { runReplay } from '@shared/engine/filter';
+import { detectFlags } from '@shared/engine/flags/detect-flags';
+import { buildReplayContext } from '@shared/engine/replay-context';
+import { parseReplayOverrides, resolveReplaySettings, type TReplayOverrides } from '@shared/engine/settings';
+import { inspectBundle } from '../../bundles/inspect-bundle';
+
+const USAGE =
+  'Usage: npm run cli -- replay PATH [--particles N] [--seed S] [--resampling METHOD] [--threshold F]\n' +
+  '                                  [--beams K] [--recovery] [--kld] [--json FILE]\n' +
+  '  METHOD: multinomial | stratified | systematic | residual\n';
+
+/** Command-line option → override field, and how its value is read. */
+const VALUE_OPTIONS: Record<string, { field: keyof TReplayOverrides; kind: 'integer' | 'number' | 'text' }> =
+  {
+    '--particles': { field: 'particles', kind: 'integer' },
+    '--seed': { field: 'seed', kind: 'integer' },
+    '--resampling': { field: 'resampling_method', kind: 'text' },
+    '--threshold': { field: 'resampling_threshold', kind: 'number' },
+    '--beams': { field: 'beams_used', kind: 'integer' },
+  };
+const FLAG_OPTIONS: Record<string, keyof TReplayOverrides> = { '--recovery': 'recovery', '--kld': 'kld' };
+const OPTION_FOR_FIELD = Object.fromEntries([
+  ...Object.entries(VALUE_OPTIONS).map(([option, { field }]) => [field, option]),
+  ...Object.entries(FLAG_OPTIONS).map(([option, field]) => [field, option]),
+]);
+
+interface ParsedArguments {
+  path: string;
+  jsonFile?: string;
+  overrides: TReplayOverrides;
+}
+
+/** Parses argv into a path, an optional JSON output file and validated overrides; errors name the option. */
+export function parseReplayArguments(
+  args: string[],
+): { ok: true; value: ParsedArguments } | { ok: false; errors: string[] } {
+  const raw: Record<string, unknown> = {};
+  const errors: string[] = [];
+  const paths: string[] = [];
+  let jsonFile: string | undefined;
+  for (let i = 0; i < args.length; i++) {
+    const arg = args[i];
+    if (arg in FLAG_OPTIONS) raw[FLAG_OPTIONS[arg]] = true;
+    else if (arg === '--json' || arg in VALUE_OPTIONS) {
+      const value = args[i + 1];
+      i++;
+      if (value === undefined || value.startsWith('--')) {
+        errors.push(`${arg}: needs a value`);
+        continue;
+      }
+      if (arg === '--json') {
+        jsonFile = value;
+        continue;
+      }
+      const { field, kind } = VALUE_OPTIONS[arg];
+      const number = Number(value);
+      if (
+        kind !== 'text' &&
+        (value.trim() === '' || !Number.isFinite(number) || (kind === 'integer' && !Number.isInteger(number)))
+      ) {
+        errors.push(`${arg}: expected ${kind === 'integer' ? 'an integer' : 'a number'}, got "${value}"`);
+        continue;
+      }
+      raw[field] = kind === 'text' ? value : number;
+    } else if (arg.startsWith('-')) errors.push(`${arg}: unknown option`);
+    else paths.push(arg);
+  }
+  if (paths.length !== 1)
+    errors.push(
+      paths.length === 0
+        ? 'PATH: give the bundle .zip or folder'
+        : `PATH: give exactly one, got ${paths.length}`,
+    );
+  const parsed = parseReplayOverrides(raw);
+  if (!parsed.ok)
+    for (const issue of parsed.issues)
+      errors.push(`${OPTION_FOR_FIELD[issue.field] ?? issue.field}: ${issue.message}`);
+  if (errors.length > 0 || !parsed.ok) return { ok: false, errors };
+  return { ok: true, value: { path: paths[0], jsonFile, overrides: parsed.overrides } };
+}
+
+/** Plain array with null for NaN and infinities (JSON has neither). */
+const toJsonArray = (values: ArrayLike<number>) => Array.from(values, (v) => (Number.isFinite(v) ? v : null));
+const formatMetres = (value: number | null) => (value === null ? 'n/a (no file)' : `${value.toFixed(3)} m`);
+
+/**
+ * `replay PATH [options]`: replays a bundle's localization, prints a summary and optionally writes
+ * the full result as JSON. Exit 0 done, 2 bad options or invalid bundle, 1 internal failure.
+ */
+export async function run(args: string[]): Promise<number> {
+  const parsed = parseReplayArguments(args);
+  if (!parsed.ok) {
+    for (const error of parsed.errors) process.stderr.write(`${error}\n`);
+    process.stderr.write(USAGE);
+    return 2;
+  }
+  const { path, jsonFile, overrides } = parsed.value;
+  try {
+    const info = await stat(path).catch(() => undefined);
+    if (!info) {
+      process.stderr.write(`${path}: no such file or folder\n`);
+      return 2;
+    }
+    const inspection = await inspectBundle({ kind: info.isDirectory() ? 'folder' : 'zip', path });
+    if (!inspection.ok || !inspection.bundle) {
+      for (const issue of inspection.issues) process.stderr.write(`${formatIssue(issue)}\n`);
+      process.stderr.write(
+        `${path}: invalid bundle, not replayed (run "npm run cli -- check ${path}" for the report)\n`,
+      );
+      return 2;
+    }
+    const bundle = inspection.bundle;
+    const resolved = resolveReplaySettings(bundle.manifest, overrides);
+    if (!resolved.ok) {
+      for (const issue of resolved.issues)
+        process.stderr.write(`${OPTION_FOR_FIELD[issue.field] ?? issue.field}: ${issue.message}\n`);
+      return 2;
+    }
+    const settings = resolved.settings;
+    const context = buildReplayContext(bundle, settings);
+    const started = performance.now();
+    const result = runReplay(bundle, settings, { context });
+    const elapsedMs = performance.now() - started;
+    const flags = detectFlags({
+      bundle,
+      series: result.series,
+      settings,
+      neesBound: result.neesBound,
+      context,
+    });
+    const { series, metrics } = result;
+    process.stdout.write(
+      [
+        `Replay of ${path}`,
+        `Steps: ${result.steps} (${series.t[0]?.toFixed(1) ?? 0} s to ${series.t[result.steps - 1]?.toFixed(1) ?? 0} s), particles: ${settings.particles}, seed: ${settings.seed}, resampling: ${settings.resampling.method} below ESS ${settings.resampling.threshold} N`,
+        `Digest: ${result.digest}`,
+        `Elapsed: ${elapsedMs.toFixed(0)} ms`,
+        `RMSE vs reference: ${formatMetres(metrics.rmse_reference)}; vs onboard: ${formatMetres(metrics.rmse_onboard)}`,
+        `Flags: ${flags.length}${flags.length ? ` (${flags.map((flag) => `${flag.kind} ${flag.start.toFixed(1)}-${flag.end.toFixed(1)} s ${flag.severity}`).join('; ')})` : ''}`,
+        '',
+      ].join('\n'),
+    );
+    if (jsonFile) {
+      const output = {
+        files: inspection.files.map(({ name, size, sha256 }) => ({ name, size, sha256 })),
+        settings,
+        steps: result.steps,
+        digest: result.digest,
+        elapsed_ms: Math.round(elapsedMs),
+        metrics,
+        series: {
+          t: toJsonArray(series.t),
+          x: toJsonArray(series.x),
+          y: toJsonArray(series.y),
+          theta: toJsonArray(series.theta),
+          ess: toJsonArray(series.ess),
+          resampled: Array.from(series.resampled, (code) => code > 0),
+          log_likelihood: toJsonArray(series.log_likelihood),
+          error_reference: toJsonArray(series.error_reference),
+          error_onboard: toJsonArray(series.error_onboard),
+        },
+        flags,
+      };
+      await writeFile(jsonFile, `${JSON.stringify(output)}\n`);
+      process.stdout.write(`Wrote ${jsonFile}\n`);
+    }
+    return 0;
+  } catch (error) {
+    process.stderr.write(`Internal failure while replaying ${path}: ${(error as Error).message}\n`);
+    return 1;
+  }
+}
