@@ -1,0 +1,132 @@
+import { z } from 'zod';
+import { ZFindingsDraft, ZReturnRequest, ZSignoffRequest } from '../../../shared/contracts/findings';
+import { ROLES } from '../../../shared/roles';
+import { SAFETY_CAUTION } from '../../../shared/safety-caution';
+import type { AuthedRequest, RouteSpec } from '../http/route-spec';
+import type { FindingsService } from '../services/findings/findings-service';
+import type { ReviewService } from '../services/findings/review-service';
+import { ZCaseParams } from './cases';
+
+const ZVersionParams = ZCaseParams.extend({
+  v: z.coerce.number().int().min(1, 'Version numbers start at 1'),
+});
+const ZDiffQuery = z.object({ against: z.coerce.number().int().min(1).optional() });
+const caseOf = (req: AuthedRequest) => (req.params as { id: string }).id;
+const versionOf = (req: AuthedRequest) => Number((req.params as { v: string }).v);
+
+export function findingsRoutes(findings: FindingsService, reviews: ReviewService): RouteSpec[] {
+  return [
+    {
+      method: 'get',
+      path: '/cases/:id/findings',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json(await findings.getFindings(ZCaseParams.parse(req.params).id));
+      },
+    },
+    {
+      method: 'put',
+      path: '/cases/:id/findings',
+      access: ['investigator'],
+      audit: {
+        action: 'findings.save',
+        facts: (req) => ({ targetType: 'findings_draft', targetId: caseOf(req), caseId: caseOf(req) }),
+      },
+      handler: async (req, res) => {
+        const { id } = ZCaseParams.parse(req.params);
+        res.json(await findings.saveDraft(id, ZFindingsDraft.parse(req.body), req.user));
+      },
+    },
+    {
+      method: 'post',
+      path: '/cases/:id/findings/submit',
+      access: ['investigator'],
+      audit: {
+        action: 'findings.submit',
+        facts: (req, body) => {
+          const { version, sha256, from } = body as { version: number; sha256: string; from: string };
+          return {
+            targetType: 'findings_version',
+            targetId: String(version),
+            caseId: caseOf(req),
+            details: { version, sha256, from, to: 'in_review' },
+          };
+        },
+      },
+      handler: async (req, res) => {
+        const { id } = ZCaseParams.parse(req.params);
+        const submitted = await findings.submit(id, req.user);
+        res.status(201).json({ ...submitted, safetyCaution: SAFETY_CAUTION });
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/findings/versions',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json({ items: await findings.listVersions(ZCaseParams.parse(req.params).id) });
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/findings/versions/:v',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id, v } = ZVersionParams.parse(req.params);
+        res.json(await reviews.getVersion(id, v));
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/findings/versions/:v/diff',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id, v } = ZVersionParams.parse(req.params);
+        const { against } = ZDiffQuery.parse(req.query);
+        res.json(await findings.diffVersions(id, against ?? Math.max(1, v - 1), v));
+      },
+    },
+    {
+      method: 'post',
+      path: '/cases/:id/findings/versions/:v/signoff',
+      access: ['reviewer'],
+      audit: {
+        action: 'findings.signoff',
+        facts: (req, body) => ({
+          targetType: 'findings_version',
+          targetId: String(versionOf(req)),
+          caseId: caseOf(req),
+          details: {
+            version: versionOf(req),
+            kid: (body as { signature?: { kid?: string } }).signature?.kid,
+            to: 'signed_off',
+          },
+        }),
+      },
+      handler: async (req, res) => {
+        const { id, v } = ZVersionParams.parse(req.params);
+        ZSignoffRequest.parse(req.body);
+        res.status(201).json(await reviews.signOff(id, v, req.user));
+      },
+    },
+    {
+      method: 'post',
+      path: '/cases/:id/findings/versions/:v/return',
+      access: ['reviewer'],
+      audit: {
+        action: 'findings.return',
+        facts: (req) => ({
+          targetType: 'findings_version',
+          targetId: String(versionOf(req)),
+          caseId: caseOf(req),
+          details: { version: versionOf(req), to: 'changes_requested' },
+        }),
+      },
+      handler: async (req, res) => {
+        const { id, v } = ZVersionParams.parse(req.params);
+        const { comment } = ZReturnRequest.parse(req.body);
+        res.json(await reviews.returnVersion(id, v, comment, req.user));
+      },
+    },
+  ];
+}

@@ -1,0 +1,57 @@
+import { eq } from 'drizzle-orm';
+import type { TEvidenceItem } from '../../../../shared/contracts/findings';
+import { AppError, type FieldIssue } from '../../../../shared/errors';
+import type { Database } from '../../db/client';
+import { bundles, replays } from '../../db/schema';
+
+/**
+ * Checks that cited replays and bundle files exist in this case and that the cited hash is the
+ * stored one. Bookmarks and saved queries are checked for shape only until their tables exist.
+ */
+export async function validateEvidence(
+  db: Database,
+  caseId: string,
+  items: readonly TEvidenceItem[],
+): Promise<void> {
+  const issues: FieldIssue[] = [];
+  for (const [index, item] of items.entries()) {
+    const at = `evidence.${index}`;
+    if (item.type === 'replay') {
+      const [row] = await db
+        .select({ digest: replays.digest, caseId: bundles.caseId })
+        .from(replays)
+        .innerJoin(bundles, eq(bundles.id, replays.bundleId))
+        .where(eq(replays.id, item.replayId));
+      if (!row || row.caseId !== caseId)
+        issues.push({ path: `${at}.replayId`, message: `No replay ${item.replayId} in this case` });
+      else if (row.digest !== item.digest) {
+        issues.push({
+          path: `${at}.digest`,
+          message: `Replay ${item.replayId} has digest ${row.digest ?? '(none yet)'}`,
+        });
+      }
+    } else if (item.type === 'bundle_file') {
+      const [row] = await db
+        .select({ caseId: bundles.caseId, files: bundles.files })
+        .from(bundles)
+        .where(eq(bundles.id, item.bundleId));
+      const file = (row?.files as { name: string; sha256: string }[] | undefined)?.find(
+        (f) => f.name === item.file,
+      );
+      if (!row || row.caseId !== caseId)
+        issues.push({ path: `${at}.bundleId`, message: `No bundle ${item.bundleId} in this case` });
+      else if (!file)
+        issues.push({ path: `${at}.file`, message: `Bundle ${item.bundleId} has no file ${item.file}` });
+      else if (file.sha256 !== item.sha256) {
+        issues.push({ path: `${at}.sha256`, message: `${item.file} has SHA-256 ${file.sha256}` });
+      }
+    }
+  }
+  if (issues.length) {
+    throw new AppError(
+      'validation_failed',
+      `Evidence does not match the stored records: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`,
+      issues,
+    );
+  }
+}

@@ -1,0 +1,221 @@
+import { randomUUID } from 'node:crypto';
+import { and, asc, desc, eq } from 'drizzle-orm';
+import { canEditFindings } from '../../../../shared/case-lifecycle';
+import {
+  type TFindingsDiff,
+  type TFindingsDraft,
+  type TFindingsResponse,
+  type TFindingsVersionSummary,
+  type VERSION_STATES,
+  ZFindingsContent,
+} from '../../../../shared/contracts/findings';
+import { AppError } from '../../../../shared/errors';
+import { diffJson } from '../../../../shared/json-diff';
+import type { Role } from '../../../../shared/roles';
+import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
+import type { Database } from '../../db/client';
+import { type FindingVersionRow, findingDrafts, findingReviews, findingVersions } from '../../db/schema';
+import type { HoldsService } from '../holds/holds-service';
+import { loadCaseState } from '../lifecycle/case-state';
+import type { LifecycleService } from '../lifecycle/lifecycle-service';
+import type { Notifications } from '../mail/notifications';
+import { validateEvidence } from './evidence-citations';
+import { type FindingsDocument, freezeFindings } from './findings-document';
+import { loadPeople } from './people';
+
+export interface Actor {
+  id: string;
+  role: Role;
+}
+
+/** Findings drafts and their frozen, numbered versions. Reviews live in review-service.ts. */
+export function createFindingsService(deps: {
+  db: Database;
+  holds: HoldsService;
+  lifecycle: LifecycleService;
+  notify: Notifications;
+}) {
+  const { db, holds, lifecycle, notify } = deps;
+
+  async function editBlockedReason(caseId: string): Promise<string | null> {
+    const hold = await holds.activeHold(caseId);
+    if (hold) return `The case is under legal hold since ${hold.placedAt} (${hold.reason}).`;
+    const { status } = await loadCaseState(db, caseId);
+    return canEditFindings(status)
+      ? null
+      : `Findings cannot be edited while the case is ${status}; ${
+          status === 'in_review' ? 'wait for the review' : 'reopen the case to start a new version'
+        }.`;
+  }
+
+  async function getFindings(caseId: string): Promise<TFindingsResponse> {
+    const state = await loadCaseState(db, caseId);
+    const [draft] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
+    const [latest] = await db
+      .select({ version: findingVersions.version })
+      .from(findingVersions)
+      .where(eq(findingVersions.caseId, caseId))
+      .orderBy(desc(findingVersions.version))
+      .limit(1);
+    const people = await loadPeople(db, draft ? [draft.updatedBy] : []);
+    const blocked = await editBlockedReason(caseId);
+    return {
+      caseId,
+      caseStatus: state.status,
+      draft: draft
+        ? {
+            content: draft.content as TFindingsDraft,
+            updatedBy: people.get(draft.updatedBy) ?? { id: draft.updatedBy, name: '', email: '' },
+            updatedAt: draft.updatedAt.toISOString(),
+          }
+        : null,
+      latestVersion: latest?.version ?? null,
+      canEdit: blocked === null,
+      editBlockedReason: blocked,
+      safetyCaution: SAFETY_CAUTION,
+    };
+  }
+
+  async function assertEditable(caseId: string, what: string) {
+    await holds.assertNotHeld(caseId, what);
+    const blocked = await editBlockedReason(caseId);
+    if (blocked) throw new AppError('conflict', `${what} is not allowed now. ${blocked}`);
+  }
+
+  async function saveDraft(
+    caseId: string,
+    content: TFindingsDraft,
+    actor: Actor,
+  ): Promise<TFindingsResponse> {
+    await assertEditable(caseId, 'Editing the findings');
+    await db
+      .insert(findingDrafts)
+      .values({ caseId, content, updatedBy: actor.id })
+      .onConflictDoUpdate({
+        target: findingDrafts.caseId,
+        set: { content, updatedBy: actor.id, updatedAt: new Date() },
+      });
+    await lifecycle.noteWorkStarted(caseId);
+    return getFindings(caseId);
+  }
+
+  async function submit(
+    caseId: string,
+    actor: Actor,
+  ): Promise<{ version: number; sha256: string; from: string }> {
+    await assertEditable(caseId, 'Submitting the findings');
+    const { from } = await lifecycle.assertTransition(caseId, 'in_review', actor.role, false);
+    const [draft] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
+    if (!draft)
+      throw new AppError(
+        'conflict',
+        'There is no findings draft to submit; save one first (PUT .../findings).',
+      );
+    const content = ZFindingsContent.parse(draft.content);
+    await validateEvidence(db, caseId, content.evidence);
+    const state = await loadCaseState(db, caseId);
+    const [latest] = await db
+      .select({ version: findingVersions.version })
+      .from(findingVersions)
+      .where(eq(findingVersions.caseId, caseId))
+      .orderBy(desc(findingVersions.version))
+      .limit(1);
+    const version = (latest?.version ?? 0) + 1;
+    const author = (await loadPeople(db, [actor.id])).get(actor.id);
+    if (!author) throw new AppError('not_found', `No user ${actor.id}.`);
+    const submittedAt = new Date().toISOString();
+    const document: FindingsDocument = {
+      schema: 'driftcase.findings/1',
+      caseId,
+      caseReference: state.reference,
+      version,
+      author,
+      submittedAt,
+      content,
+    };
+    const frozen = freezeFindings(document);
+    // The unique (case, version) key makes a racing second submission fail instead of forking.
+    await db
+      .insert(findingVersions)
+      .values({ id: randomUUID(), caseId, version, authorId: actor.id, submittedAt, ...frozen });
+    await lifecycle.transition(caseId, 'in_review', actor.role, false);
+    await notify.findingsSubmitted({
+      caseId,
+      caseReference: state.reference,
+      title: state.title,
+      version,
+      author,
+    });
+    return { version, sha256: frozen.sha256, from };
+  }
+
+  async function versionRow(caseId: string, version: number): Promise<FindingVersionRow> {
+    const [row] = await db
+      .select()
+      .from(findingVersions)
+      .where(and(eq(findingVersions.caseId, caseId), eq(findingVersions.version, version)));
+    if (!row) throw new AppError('not_found', `Case ${caseId} has no findings version ${version}.`);
+    return row;
+  }
+
+  async function versionStates(caseId: string): Promise<Map<number, (typeof VERSION_STATES)[number]>> {
+    const versions = await db
+      .select({ version: findingVersions.version })
+      .from(findingVersions)
+      .where(eq(findingVersions.caseId, caseId))
+      .orderBy(asc(findingVersions.version));
+    const reviews = await db
+      .select({ version: findingReviews.version, kind: findingReviews.kind })
+      .from(findingReviews)
+      .where(eq(findingReviews.caseId, caseId));
+    const last = versions.at(-1)?.version;
+    return new Map(
+      versions.map(({ version }) => {
+        const kinds = reviews.filter((r) => r.version === version).map((r) => r.kind);
+        if (kinds.includes('signoff')) return [version, 'signed'];
+        if (kinds.includes('return')) return [version, 'returned'];
+        return [version, version === last ? 'submitted' : 'superseded'];
+      }),
+    );
+  }
+
+  async function listVersions(caseId: string): Promise<TFindingsVersionSummary[]> {
+    await loadCaseState(db, caseId);
+    const rows = await db
+      .select()
+      .from(findingVersions)
+      .where(eq(findingVersions.caseId, caseId))
+      .orderBy(asc(findingVersions.version));
+    const people = await loadPeople(
+      db,
+      rows.map((r) => r.authorId),
+    );
+    const states = await versionStates(caseId);
+    return rows.map((row) => ({
+      version: row.version,
+      sha256: row.sha256,
+      author: people.get(row.authorId) ?? { id: row.authorId, name: '', email: '' },
+      submittedAt: row.submittedAt,
+      state: states.get(row.version) ?? 'submitted',
+    }));
+  }
+
+  async function diffVersions(caseId: string, from: number, to: number): Promise<TFindingsDiff> {
+    const [before, after] = await Promise.all([versionRow(caseId, from), versionRow(caseId, to)]);
+    const content = (row: FindingVersionRow) => (JSON.parse(row.canonical) as FindingsDocument).content;
+    return { from, to, changes: diffJson(content(before), content(after)) };
+  }
+
+  return {
+    getFindings,
+    saveDraft,
+    submit,
+    versionRow,
+    versionStates,
+    listVersions,
+    diffVersions,
+    editBlockedReason,
+  };
+}
+
+export type FindingsService = ReturnType<typeof createFindingsService>;

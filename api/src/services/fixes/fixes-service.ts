@@ -1,0 +1,112 @@
+import { randomUUID } from 'node:crypto';
+import { and, asc, eq } from 'drizzle-orm';
+import type { TFix, TLinkFixRequest } from '../../../../shared/contracts/fixes';
+import { AppError } from '../../../../shared/errors';
+import type { Database } from '../../db/client';
+import { bundles, type CaseFixRow, caseFixes, replays } from '../../db/schema';
+import { loadPeople, type Person } from '../findings/people';
+import { loadCaseState } from '../lifecycle/case-state';
+import type { Notifications } from '../mail/notifications';
+
+function toFix(row: CaseFixRow, people: Map<string, Person>): TFix {
+  const who = (id: string) => ({ id, name: people.get(id)?.name ?? '' });
+  return {
+    id: row.id,
+    caseId: row.caseId,
+    url: row.url,
+    commitId: row.commitId,
+    description: row.description,
+    changedSettings: row.changedSettings,
+    softwareVersion: row.softwareVersion,
+    verificationReplayId: row.verificationReplayId,
+    linkedBy: who(row.linkedBy),
+    linkedAt: row.linkedAt.toISOString(),
+    verifiedBy: row.verifiedBy ? who(row.verifiedBy) : null,
+    verifiedAt: row.verifiedAt?.toISOString() ?? null,
+  };
+}
+
+/** Fixes linked to a case, each with the replay that should show the problem gone. */
+export function createFixesService({ db, notify }: { db: Database; notify: Notifications }) {
+  async function withPeople(rows: CaseFixRow[]): Promise<TFix[]> {
+    const people = await loadPeople(
+      db,
+      rows.flatMap((r) => [r.linkedBy, ...(r.verifiedBy ? [r.verifiedBy] : [])]),
+    );
+    return rows.map((row) => toFix(row, people));
+  }
+
+  async function listFixes(caseId: string): Promise<TFix[]> {
+    await loadCaseState(db, caseId);
+    return withPeople(
+      await db.select().from(caseFixes).where(eq(caseFixes.caseId, caseId)).orderBy(asc(caseFixes.linkedAt)),
+    );
+  }
+
+  async function linkFix(
+    caseId: string,
+    request: TLinkFixRequest,
+    actor: { id: string; email: string },
+  ): Promise<TFix> {
+    await loadCaseState(db, caseId);
+    if (request.verificationReplayId) {
+      const [replay] = await db
+        .select({ caseId: bundles.caseId })
+        .from(replays)
+        .innerJoin(bundles, eq(bundles.id, replays.bundleId))
+        .where(eq(replays.id, request.verificationReplayId));
+      if (!replay || replay.caseId !== caseId) {
+        throw new AppError(
+          'validation_failed',
+          `verificationReplayId: no replay ${request.verificationReplayId} in this case.`,
+          [{ path: 'verificationReplayId', message: 'No such replay in this case' }],
+        );
+      }
+    }
+    const changedSettings =
+      request.changedSettings === undefined
+        ? null
+        : typeof request.changedSettings === 'string'
+          ? request.changedSettings
+          : JSON.stringify(request.changedSettings, null, 2);
+    const [row] = await db
+      .insert(caseFixes)
+      .values({
+        id: randomUUID(),
+        caseId,
+        url: request.url ?? null,
+        commitId: request.commitId ?? null,
+        description: request.description,
+        changedSettings,
+        softwareVersion: request.softwareVersion ?? null,
+        verificationReplayId: request.verificationReplayId ?? null,
+        linkedBy: actor.id,
+      })
+      .returning();
+    await notify.fixLinked({ caseId, description: request.description, linkedByEmail: actor.email });
+    return (await withPeople([row]))[0];
+  }
+
+  async function verifyFix(caseId: string, fixId: string, actorId: string): Promise<TFix> {
+    const [existing] = await db
+      .select()
+      .from(caseFixes)
+      .where(and(eq(caseFixes.caseId, caseId), eq(caseFixes.id, fixId)));
+    if (!existing) throw new AppError('not_found', `Case ${caseId} has no fix ${fixId}.`);
+    if (existing.verifiedAt)
+      throw new AppError(
+        'conflict',
+        `Fix ${fixId} was already verified at ${existing.verifiedAt.toISOString()}.`,
+      );
+    const [row] = await db
+      .update(caseFixes)
+      .set({ verifiedAt: new Date(), verifiedBy: actorId })
+      .where(eq(caseFixes.id, fixId))
+      .returning();
+    return (await withPeople([row]))[0];
+  }
+
+  return { listFixes, linkFix, verifyFix };
+}
+
+export type FixesService = ReturnType<typeof createFixesService>;

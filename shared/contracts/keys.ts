@@ -1,0 +1,11 @@
+import { z } from 'zod';
+
+/** A public signing key as a JWK (RFC 7517), e.g. Ed25519: `{ kty: 'OKP', crv: 'Ed25519', x, kid, alg, use }`. */
+export const ZPublicJwk = z.looseObject({
+  kty: z.string(),
+  kid: z.string(),
+  alg: z.string(),
+  use: z.literal('sig'),
+});
+export const ZJwkSet = z.object({ keys: z.array(ZPublicJwk) });
+export type TJwkSet = z.infer<typeof ZJwkSet>;

@@ -1,0 +1,100 @@
+import request from 'supertest';
+import type { TFindingsDraft } from '../../shared/contracts/findings';
+import type { Role } from '../../shared/roles';
+import type { TestApp } from './test-app';
+
+/** A complete, invented set of findings (Harbourline yard, robot HL-07). */
+export const SAMPLE_FINDINGS: TFindingsDraft = {
+  summary: 'HL-07 lost its position near dock 4 after a wheel slipped on a wet ramp and touched a pallet.',
+  incidentClass: 'property_damage',
+  rootCause: {
+    category: 'odometry_fault',
+    text: 'Wheel slip on the wet ramp inflated the odometry by 0.4 m.',
+  },
+  contributingFactors: [{ category: 'environment', text: 'Ramp surface was wet after cleaning.' }],
+  evidence: [
+    { type: 'bookmark', bookmarkId: '6f1c2a1e-3b7d-4d3a-9a51-0c2f3e4b5a61' },
+    {
+      type: 'saved_query',
+      queryId: '0b7e9d12-5c44-4f0e-8a2b-6e1d9f3c7a20',
+      resultSha256: 'a'.repeat(64),
+    },
+  ],
+  correctiveActions: [
+    { description: 'Raise slip detection threshold', owner: 'Emeka Lindqvist', dueDate: '2026-12-15' },
+  ],
+};
+
+export function as(t: TestApp, role: Role) {
+  // The token is fetched first: awaiting a supertest request would send it.
+  const call = async (method: 'get' | 'post' | 'put' | 'patch' | 'delete', path: string, body?: object) => {
+    const token = await t.tokenFor(role);
+    const req = request(t.app)[method](path).set('Authorization', `Bearer ${token}`);
+    return body ? req.send(body) : req;
+  };
+  return {
+    get: (path: string) => call('get', path),
+    post: (path: string, body: object = {}) => call('post', path, body),
+    put: (path: string, body: object = {}) => call('put', path, body),
+    patch: (path: string, body: object = {}) => call('patch', path, body),
+    delete: (path: string, body: object = {}) => call('delete', path, body),
+  };
+}
+
+function expectStatus(res: request.Response, status: number, what: string) {
+  if (res.status !== status) throw new Error(`${what}: got ${res.status} ${JSON.stringify(res.body)}`);
+  return res;
+}
+
+export async function createCase(t: TestApp, title = 'Dock 4 contact'): Promise<string> {
+  const res = await as(t, 'investigator').post('/api/cases', {
+    title,
+    site: 'Harbourline yard',
+    robotId: 'HL-07',
+    incidentTime: '2026-10-03T06:41:00Z',
+    severity: 'medium',
+  });
+  return expectStatus(res, 201, 'create case').body.id;
+}
+
+export async function caseWithDraft(t: TestApp, content: TFindingsDraft = SAMPLE_FINDINGS): Promise<string> {
+  const caseId = await createCase(t);
+  expectStatus(await as(t, 'investigator').put(`/api/cases/${caseId}/findings`, content), 200, 'save draft');
+  return caseId;
+}
+
+export async function submittedCase(t: TestApp): Promise<{ caseId: string; version: number }> {
+  const caseId = await caseWithDraft(t);
+  const res = expectStatus(
+    await as(t, 'investigator').post(`/api/cases/${caseId}/findings/submit`),
+    201,
+    'submit',
+  );
+  return { caseId, version: res.body.version };
+}
+
+export async function signedCase(t: TestApp): Promise<{ caseId: string; version: number }> {
+  const submitted = await submittedCase(t);
+  const path = `/api/cases/${submitted.caseId}/findings/versions/${submitted.version}/signoff`;
+  expectStatus(await as(t, 'reviewer').post(path, { acknowledgeCaution: true }), 201, 'sign');
+  return submitted;
+}
+
+export async function heldCase(t: TestApp): Promise<string> {
+  const caseId = await createCase(t);
+  expectStatus(
+    await as(t, 'legal').post(`/api/cases/${caseId}/hold`, { reason: 'Insurer claim pending' }),
+    201,
+    'hold',
+  );
+  return caseId;
+}
+
+export async function caseWithFix(t: TestApp): Promise<{ caseId: string; fixId: string }> {
+  const caseId = await createCase(t);
+  const res = await as(t, 'engineer').post(`/api/cases/${caseId}/fixes`, {
+    url: 'https://tracker.harbourline.example/CR-118',
+    description: 'Slip detection threshold lowered from 0.3 to 0.15',
+  });
+  return { caseId, fixId: expectStatus(res, 201, 'link fix').body.id };
+}
