@@ -16,6 +16,9 @@ export interface EngineBenchFigures {
   particle_beam_evaluations: number;
   evaluations_per_second: number;
   wall_ms: number;
+  /** CPU time of this process during the replay (user + system); robust when the machine is shared. */
+  cpu_ms: number;
+  evaluations_per_cpu_second: number;
   peak_rss_mb: number;
   digest: string;
 }
@@ -26,6 +29,7 @@ export async function run(): Promise<EngineBenchFigures[]> {
   const resolved = resolveReplaySettings(bundle.manifest, {});
   if (!resolved.ok) throw new Error(resolved.issues.map((i) => `${i.field}: ${i.message}`).join('; '));
   const started = performance.now();
+  const cpuBefore = process.cpuUsage();
   let peakRss = process.memoryUsage.rss();
   const result = runReplay(bundle, resolved.settings, {
     onStep: ({ step }) => {
@@ -34,6 +38,8 @@ export async function run(): Promise<EngineBenchFigures[]> {
     },
   });
   const wallMs = performance.now() - started;
+  const cpu = process.cpuUsage(cpuBefore);
+  const cpuMs = (cpu.user + cpu.system) / 1000;
   peakRss = Math.max(peakRss, process.memoryUsage.rss());
   let evaluations = 0;
   for (let k = 0; k < result.steps; k++) {
@@ -49,6 +55,8 @@ export async function run(): Promise<EngineBenchFigures[]> {
       particle_beam_evaluations: evaluations,
       evaluations_per_second: Math.round(evaluations / (wallMs / 1000)),
       wall_ms: Math.round(wallMs),
+      cpu_ms: Math.round(cpuMs),
+      evaluations_per_cpu_second: Math.round(evaluations / (cpuMs / 1000)),
       peak_rss_mb: Math.round(peakRss / 2 ** 20),
       digest: result.digest,
     },

@@ -5,7 +5,7 @@
  *   var(trans) = a3 trans^2 + a4 (rot1^2 + rot2^2)
  *   var(rot2)  = a1 rot2^2 + a2 trans^2
  */
-import { fillNormals, type RandomScratch, RNG_PURPOSE } from './random';
+import { fillThreeNormals, type RandomScratch, RNG_PURPOSE, seedKeyHigh, seedKeyLow } from './random';
 import { wrapAngle } from './stats';
 
 /** Below this translation (m) the heading of travel is meaningless, so rot1 is set to 0 (common practice). */
@@ -77,8 +77,11 @@ export function sampleOdometryMotion(
   const [sigmaRot1, sigmaTrans, sigmaRot2] = odometryNoiseSigmas(increment, alpha);
   const { rot1, trans, rot2 } = increment;
   const normals = scratch.values;
+  const keyLow = seedKeyLow(seed);
+  const keyHigh = seedKeyHigh(seed);
+  const purpose = RNG_PURPOSE.motion;
   for (let i = from; i < to; i++) {
-    fillNormals(seed, RNG_PURPOSE.motion, step, i, 0, scratch);
+    fillThreeNormals(keyLow, keyHigh, purpose, step, i, scratch);
     const noisyRot1 = rot1 - sigmaRot1 * normals[0];
     const noisyTrans = trans - sigmaTrans * normals[1];
     const noisyRot2 = rot2 - sigmaRot2 * normals[2];

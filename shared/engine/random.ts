@@ -125,6 +125,31 @@ export function fillUniforms(
 }
 
 /**
+ * Three standard normals for the counter (draw, particle, step, purpose) with the key words
+ * already split (see seedKeyLow/seedKeyHigh), written to `scratch.values[0..2]`: the first three
+ * outputs of `fillNormals`, without computing the unused fourth. Hot-loop variant for motion noise.
+ */
+export function fillThreeNormals(
+  keyLow: number,
+  keyHigh: number,
+  purpose: number,
+  step: number,
+  particle: number,
+  scratch: RandomScratch,
+): void {
+  const words = scratch.words;
+  const values = scratch.values;
+  philox4x32(0, particle, step, purpose, keyLow, keyHigh, words);
+  const radiusA = Math.sqrt(-2 * Math.log((words[0] + 0.5) * UNIFORM_SCALE));
+  const angleA = TWO_PI * ((words[1] + 0.5) * UNIFORM_SCALE);
+  const radiusB = Math.sqrt(-2 * Math.log((words[2] + 0.5) * UNIFORM_SCALE));
+  const angleB = TWO_PI * ((words[3] + 0.5) * UNIFORM_SCALE);
+  values[0] = radiusA * Math.cos(angleA);
+  values[1] = radiusA * Math.sin(angleA);
+  values[2] = radiusB * Math.cos(angleB);
+}
+
+/**
  * Four standard normals for the counter (draw, particle, step, purpose), written to
  * `scratch.values`, from two Box–Muller pairs (Box & Muller 1958) over one Philox block.
  */
