@@ -3,6 +3,9 @@
  * gaps, with blips shorter than a minimum duration dropped.
  */
 
+/** Slack (s) on time comparisons, so 1.7 - 1.4 counts as the 0.3 s it is meant to be. */
+const TIME_TOLERANCE = 1e-9;
+
 /** Inclusive step range [first, last]. */
 export interface StepRun {
   first: number;
@@ -24,14 +27,14 @@ export function findSustainedRuns(
   let current: StepRun | undefined;
   for (let k = 0; k < mask.length; k++) {
     if (!mask[k]) continue;
-    if (current && t[k] - t[current.last] <= maxGap) current.last = k;
+    if (current && t[k] - t[current.last] <= maxGap + TIME_TOLERANCE) current.last = k;
     else {
       if (current) runs.push(current);
       current = { first: k, last: k };
     }
   }
   if (current) runs.push(current);
-  return runs.filter((run) => t[run.last] - t[run.first] >= minDuration);
+  return runs.filter((run) => t[run.last] - t[run.first] >= minDuration - TIME_TOLERANCE);
 }
 
 /** Number of steps inside `run` whose mask is set. */

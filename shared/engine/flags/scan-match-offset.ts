@@ -12,6 +12,13 @@ const COARSE_XY = { half: 5, step: 0.2 };
 const COARSE_THETA = { half: 3, step: 0.1 };
 const FINE_XY = { half: 2, step: 0.05 };
 const FINE_THETA = { half: 2, step: 0.025 };
+/**
+ * Weak prior toward the mean pose, in nats per endpoint per metre (heading: per 0.2 rad). Along a
+ * featureless aisle many offsets fit equally well; without it the search would report the far
+ * end of the grid instead of no offset.
+ */
+const OFFSET_PRIOR = 0.05;
+const HEADING_PRIOR_SCALE = 0.2;
 
 export interface ScanOffset {
   /** Map-frame offset (m, m, rad) of the best-fitting pose from the replay's mean pose. */
@@ -50,11 +57,15 @@ export function createScanMatchWorkspace(beams: number): ScanMatchWorkspace {
   };
 }
 
-/** Scores a grid of poses centred on (cx, cy, ctheta); returns the index of the best (first on ties). */
+/**
+ * Scores a grid of poses centred on `centre`; returns the index of the best after the prior
+ * toward `origin` (the mean pose), first on ties.
+ */
 function scoreGrid(
   context: ReplayContext,
   work: ScanMatchWorkspace,
   count: number,
+  origin: [number, number, number],
   centre: [number, number, number],
   xy: { half: number; step: number },
   angle: { half: number; step: number },
@@ -88,7 +99,17 @@ function scoreGrid(
     work.score,
   );
   let best = 0;
-  for (let c = 1; c < m; c++) if (work.score[c] > work.score[best]) best = c;
+  let bestScore = Number.NEGATIVE_INFINITY;
+  for (let c = 0; c < m; c++) {
+    const away =
+      Math.hypot(work.x[c] - origin[0], work.y[c] - origin[1]) +
+      Math.abs(work.theta[c] - origin[2]) / HEADING_PRIOR_SCALE;
+    const penalised = work.score[c] - OFFSET_PRIOR * count * away;
+    if (penalised > bestScore) {
+      bestScore = penalised;
+      best = c;
+    }
+  }
   return best;
 }
 
@@ -125,11 +146,12 @@ export function findScanOffset(
     count,
     baseline,
   );
-  const coarse = scoreGrid(context, work, count, mean, COARSE_XY, COARSE_THETA);
+  const coarse = scoreGrid(context, work, count, mean, mean, COARSE_XY, COARSE_THETA);
   const fine = scoreGrid(
     context,
     work,
     count,
+    mean,
     [work.x[coarse], work.y[coarse], work.theta[coarse]],
     FINE_XY,
     FINE_THETA,
