@@ -11,15 +11,19 @@ import type { Database } from './db/client';
 import { errorHandler } from './http/error-handler';
 import { mountRoutes, type RouteSpec } from './http/route-spec';
 import { sessionMiddleware } from './http/session-middleware';
+import { createReplayPool, type ReplayPool } from './replays/replay-pool';
 import { authRoutes } from './routes/auth';
 import { bundleRoutes } from './routes/bundles';
 import { caseRoutes } from './routes/cases';
 import { healthRoutes } from './routes/health';
+import { replayRoutes } from './routes/replays';
 import { userRoutes } from './routes/users';
 import { createAuthService } from './services/auth/auth-service';
 import { createBundlesService } from './services/bundles/bundles-service';
 import { createCasesService } from './services/cases/cases-service';
 import { createEvidenceStore } from './services/evidence/evidence-store';
+import { type CaseWork, createCaseWork } from './services/lifecycle/case-work';
+import { createReplaysService, type ReplaysService } from './services/replays/replays-service';
 import { createUsersService } from './services/users/users-service';
 
 export interface AppDependencies {
@@ -28,14 +32,23 @@ export interface AppDependencies {
   logger: Logger;
   /** Folder with the built web app; when absent only the API is served. */
   webDir?: string;
+  /** Worker threads for replays; one is made when not given. */
+  replayPool?: ReplayPool;
 }
 
 export interface DriftcaseApp extends Express {
-  locals: Express['locals'] & { routeSpecs: RouteSpec[] };
+  locals: Express['locals'] & {
+    routeSpecs: RouteSpec[];
+    /** Case-work services; server.ts starts `caseWork.mailQueue`, tests drive it. */
+    caseWork: CaseWork;
+    replays: ReplaysService;
+    /** Stops background work (replay workers); the caller closes the database. */
+    shutdown: () => Promise<void>;
+  };
 }
 
 /** Builds the Express app from its dependencies. It never listens: server.ts and the tests do. */
-export function createApp({ db, config, logger, webDir }: AppDependencies): DriftcaseApp {
+export function createApp({ db, config, logger, webDir, replayPool }: AppDependencies): DriftcaseApp {
   const app = express() as DriftcaseApp;
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -55,6 +68,16 @@ export function createApp({ db, config, logger, webDir }: AppDependencies): Drif
     derivedDir,
     maxUnpackedBytes: config.maxUnpackedBytes,
   });
+  const pool = replayPool ?? createReplayPool();
+  const replays = createReplaysService({
+    db,
+    evidence,
+    derivedDir,
+    pool,
+    logger,
+    maxUnpackedBytes: config.maxUnpackedBytes,
+  });
+  const caseWork = createCaseWork({ db, config, logger });
   const cookieOptions = { secure: config.secureCookies, maxAgeSeconds: config.sessionMaxAgeSeconds };
 
   const routeSpecs: RouteSpec[] = [
@@ -63,8 +86,14 @@ export function createApp({ db, config, logger, webDir }: AppDependencies): Drif
     ...userRoutes(users),
     ...caseRoutes(cases),
     ...bundleRoutes(bundles, { incomingDir: evidence.incoming, maxUploadBytes: config.maxUploadBytes }),
+    ...replayRoutes(replays),
+    ...caseWork.routeSpecs,
   ];
+  caseWork.applyToRoutes(routeSpecs);
   app.locals.routeSpecs = routeSpecs;
+  app.locals.caseWork = caseWork;
+  app.locals.replays = replays;
+  app.locals.shutdown = () => pool.close();
 
   app.use(
     helmet({
@@ -95,7 +124,7 @@ export function createApp({ db, config, logger, webDir }: AppDependencies): Drif
   const api = Router();
   api.use(express.json({ limit: '2mb' }));
   api.use(sessionMiddleware(auth, cookieOptions));
-  mountRoutes(api, routeSpecs);
+  mountRoutes(api, routeSpecs, { auditor: caseWork.auditor });
   api.use((req, _res, next) =>
     next(new AppError('not_found', `No API route ${req.method} ${req.baseUrl}${req.path}.`)),
   );

@@ -4,6 +4,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './db/client';
 import { seedDemoData } from './seed/seed-demo';
+import { startFakeSmtpServer } from './services/mail/fake-smtp-server';
 import { ensureWebBuild, WEB_DIST } from './web-build';
 
 async function main() {
@@ -18,7 +19,20 @@ async function main() {
   if (config.demoSeed && (await seedDemoData(database.db))) logger.info('seeded demo accounts and cases');
   await ensureWebBuild(logger);
 
-  const app = createApp({ db: database.db, config, logger, webDir: WEB_DIST });
+  // Without SMTP_URL, mail goes to a local fake server whose messages the Outbox page shows.
+  const fakeSmtp = config.smtpUrl
+    ? undefined
+    : await startFakeSmtpServer({ db: database.db, port: config.smtpFakePort });
+  if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server keeps all mail for the Outbox');
+  const app = createApp({
+    db: database.db,
+    config: fakeSmtp ? { ...config, smtpUrl: fakeSmtp.url } : config,
+    logger,
+    webDir: WEB_DIST,
+  });
+  app.locals.caseWork.mailQueue.start();
+  const interrupted = await app.locals.replays.failInterruptedReplays();
+  if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
   const server = app.listen(config.port, config.host, () => {
     logger.info(`Driftcase is listening on http://localhost:${config.port}`);
   });
@@ -30,6 +44,9 @@ async function main() {
     logger.info({ signal }, 'shutting down');
     server.close();
     server.closeAllConnections();
+    await app.locals.shutdown();
+    await app.locals.caseWork.mailQueue.stop();
+    await fakeSmtp?.close();
     await database.close();
     process.exit(0);
   };

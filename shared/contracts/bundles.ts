@@ -82,3 +82,7 @@ const summaryMatches: Accepts<TBundleSummary, SharedBundleSummary> = true;
 const issueMatches: Accepts<TBundleIssue, BundleIssue> = true;
 void summaryMatches;
 void issueMatches;
+
+/** Response of an upload: 201 for a new valid bundle, 200 for bytes already on the case. */
+export const ZUploadResponse = z.object({ bundle: ZBundleRecord, duplicate: z.boolean() });
+export type TUploadResponse = z.infer<typeof ZUploadResponse>;

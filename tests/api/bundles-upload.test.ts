@@ -5,27 +5,21 @@ import { tableFromIPC } from 'apache-arrow';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeBundleFiles, makeTempDir, withFile, writeBundleZip } from '../support/bundle-fixtures';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
+import { createTestApp } from '../support/test-app';
 
-let t: TestApp;
+let bed: CaseTestbed;
+let t: CaseTestbed['t'];
 let token: string;
 let caseId: string;
 let dir: string;
 let dataDir: string;
 
 beforeAll(async () => {
-  dataDir = await makeTempDir('driftcase-upload-data-');
-  t = await createTestApp({ DATA_DIR: dataDir });
-  token = await t.tokenFor('investigator');
-  const cases = await request(t.app).get('/api/cases').set('Authorization', `Bearer ${token}`);
-  caseId = cases.body.items[0].id;
-  dir = await makeTempDir();
+  bed = await createCaseTestbed();
+  ({ t, token, caseId, dir, dataDir } = bed);
 });
-afterAll(async () => {
-  await t.close();
-  fs.rmSync(dir, { recursive: true, force: true });
-  fs.rmSync(dataDir, { recursive: true, force: true });
-});
+afterAll(() => bed.close());
 
 const upload = (file: string, as = token) =>
   request(t.app)

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
+import { caseWorkSamples } from '../support/case-work-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -24,6 +25,10 @@ interface Fixtures {
   caseId: string;
   userId: string;
   bundleId: string;
+  /** A finished replay of `bundleId`. */
+  replayId: string;
+  /** Starts a replay long enough to still be running when the next request arrives. */
+  startLongReplay: () => Promise<string>;
   /** A valid bundle zip; each upload sends fresh bytes so it is never a duplicate. */
   freshBundleZip: () => Promise<string>;
 }
@@ -31,7 +36,8 @@ interface Fixtures {
 let uniqueCounter = 0;
 const unique = () => `${Date.now()}-${uniqueCounter++}`;
 
-const SAMPLES: Record<string, (f: Fixtures) => Sample | Promise<Sample>> = {
+const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promise<Sample>> = {
+  ...caseWorkSamples(() => t),
   'get /health': () => ({ path: '/api/health' }),
   'post /auth/login': () => ({
     path: '/api/auth/login',
@@ -71,6 +77,17 @@ const SAMPLES: Record<string, (f: Fixtures) => Sample | Promise<Sample>> = {
   'get /bundles/:id': (f) => ({ path: `/api/bundles/${f.bundleId}` }),
   'get /bundles/:id/tables/:name': (f) => ({ path: `/api/bundles/${f.bundleId}/tables/odometry` }),
   'get /bundles/:id/original': (f) => ({ path: `/api/bundles/${f.bundleId}/original` }),
+  'post /bundles/:id/replays': (f) => ({
+    path: `/api/bundles/${f.bundleId}/replays`,
+    body: { overrides: { particles: 50 } },
+  }),
+  'get /bundles/:id/replays': (f) => ({ path: `/api/bundles/${f.bundleId}/replays` }),
+  'get /replays/:id': (f) => ({ path: `/api/replays/${f.replayId}` }),
+  'delete /replays/:id': async (f) => ({ path: `/api/replays/${await f.startLongReplay()}` }),
+  'get /replays/:id/progress': (f) => ({ path: `/api/replays/${f.replayId}/progress` }),
+  'get /replays/:id/series': (f) => ({ path: `/api/replays/${f.replayId}/series` }),
+  'get /replays/:id/steps/:k': (f) => ({ path: `/api/replays/${f.replayId}/steps/3` }),
+  'get /replays/:id/disagreement': (f) => ({ path: `/api/replays/${f.replayId}/disagreement` }),
 };
 
 let t: TestApp;
@@ -93,17 +110,47 @@ beforeAll(async () => {
     .post(`/api/cases/${caseId}/bundles`)
     .set('Authorization', `Bearer ${investigator}`)
     .attach('bundle', await freshBundleZip());
+  const bundleId = uploaded.body.bundle.id;
+  const started = await request(t.app)
+    .post(`/api/bundles/${bundleId}/replays`)
+    .set('Authorization', `Bearer ${investigator}`)
+    .send({});
+  for (let status = started.body.status; status === 'queued' || status === 'running'; ) {
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    status = (
+      await request(t.app)
+        .get(`/api/replays/${started.body.id}`)
+        .set('Authorization', `Bearer ${investigator}`)
+    ).body.status;
+  }
+  const longZip = await writeBundleZip(
+    path.join(zipDir, 'long.zip'),
+    makeBundleFiles({ steps: 2000, beams: 21 }),
+  );
+  const longBundle = await request(t.app)
+    .post(`/api/cases/${caseId}/bundles`)
+    .set('Authorization', `Bearer ${investigator}`)
+    .attach('bundle', longZip);
+  const startLongReplay = async () => {
+    const res = await request(t.app)
+      .post(`/api/bundles/${longBundle.body.bundle.id}/replays`)
+      .set('Authorization', `Bearer ${investigator}`)
+      .send({ overrides: { particles: 20000, seed: uniqueCounter++ } });
+    return res.body.id as string;
+  };
   fixtures = {
     userId: users.body.items.find((u: { role: string }) => u.role === 'engineer').id,
     caseId,
-    bundleId: uploaded.body.bundle.id,
+    bundleId,
+    replayId: started.body.id,
+    startLongReplay,
     freshBundleZip,
   };
 });
 afterAll(() => t.close());
 
 async function callAs(spec: RouteSpec, role: Role | null) {
-  const sample = await SAMPLES[`${spec.method} ${spec.path}`](fixtures);
+  const sample = await SAMPLES[`${spec.method} ${spec.path}`](fixtures, role);
   let req = request(t.app)[spec.method](sample.path);
   if (role) {
     const token = sample.needsFreshSession
@@ -149,6 +196,11 @@ describe('role x route matrix', () => {
       }
     }
     expect(failures).toEqual([]);
+  });
+
+  it('declares an audit action on every write route', () => {
+    const unaudited = specs.filter((s) => s.method !== 'get' && !s.audit).map((s) => `${s.method} ${s.path}`);
+    expect(unaudited).toEqual([]);
   });
 
   it('names the allowed roles in the 403 message', async () => {

@@ -40,6 +40,9 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       tokens.set(role, token);
       return token;
     },
-    close: () => database.close(),
+    close: async () => {
+      await app.locals.shutdown();
+      await database.close();
+    },
   };
 }

@@ -1,4 +1,4 @@
-import type { TBundleRecord } from '../../../../shared/contracts/bundle-records';
+import type { TBundleRecord } from '../../../../shared/contracts/bundles';
 import type { BundleRow } from '../../db/schema';
 
 export type { TBundleRecord };

@@ -1,0 +1,240 @@
+import { randomUUID } from 'node:crypto';
+import { EventEmitter } from 'node:events';
+import fs from 'node:fs';
+import path from 'node:path';
+import { desc, eq, inArray } from 'drizzle-orm';
+import type { Logger } from 'pino';
+import type { Manifest } from '../../../../shared/bundle/types';
+import type { TReplay, TStartReplayRequest } from '../../../../shared/contracts/replays';
+import { ZStartReplayRequest } from '../../../../shared/contracts/replays';
+import { resolveReplaySettings } from '../../../../shared/engine/settings';
+import { AppError } from '../../../../shared/errors';
+import type { Database } from '../../db/client';
+import { bundles, replays, users } from '../../db/schema';
+import { loadBundleForReplay } from '../../replays/replay-bundle-file';
+import { replayDir } from '../../replays/replay-files';
+import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
+import type { EvidenceStore } from '../evidence/evidence-store';
+import { toReplay } from './replay-mapper';
+import { createStepCache } from './step-cache';
+
+export interface ReplaysServiceOptions {
+  db: Database;
+  evidence: EvidenceStore;
+  derivedDir: string;
+  pool: ReplayPool;
+  logger: Logger;
+  maxUnpackedBytes: number;
+}
+
+interface LiveReplay {
+  progress: { step: number; steps: number } | null;
+  controller: AbortController;
+}
+
+/** Server-sent to progress subscribers. */
+export type ReplayNotice =
+  | { type: 'progress'; step: number; steps: number }
+  | { type: 'finished'; replay: TReplay };
+
+export function createReplaysService({
+  db,
+  evidence,
+  derivedDir,
+  pool,
+  logger,
+  maxUnpackedBytes,
+}: ReplaysServiceOptions) {
+  const live = new Map<string, LiveReplay>();
+  const notices = new EventEmitter();
+  notices.setMaxListeners(100);
+  const steps = createStepCache(async (bundleId) => {
+    const [row] = await db.select({ sha256: bundles.sha256 }).from(bundles).where(eq(bundles.id, bundleId));
+    return loadBundleForReplay(evidence.pathFor(row.sha256), maxUnpackedBytes);
+  });
+
+  const selectReplays = () =>
+    db
+      .select({ row: replays, caseId: bundles.caseId, authorName: users.name })
+      .from(replays)
+      .innerJoin(bundles, eq(bundles.id, replays.bundleId))
+      .innerJoin(users, eq(users.id, replays.createdBy));
+
+  async function getReplay(id: string): Promise<TReplay> {
+    const [found] = await selectReplays().where(eq(replays.id, id));
+    if (!found) throw new AppError('not_found', `No replay with id ${id}.`);
+    return toReplay(found.row, { ...found, progress: live.get(id)?.progress ?? null });
+  }
+
+  async function listBundleReplays(bundleId: string): Promise<TReplay[]> {
+    const rows = await selectReplays().where(eq(replays.bundleId, bundleId)).orderBy(desc(replays.createdAt));
+    return rows.map((found) =>
+      toReplay(found.row, { ...found, progress: live.get(found.row.id)?.progress ?? null }),
+    );
+  }
+
+  /** A replay that was running when the server stopped is marked failed, never shown as done. */
+  async function failInterruptedReplays(): Promise<number> {
+    const interrupted = await db
+      .update(replays)
+      .set({
+        status: 'failed',
+        error: 'Interrupted by a server restart; start it again.',
+        finishedAt: new Date(),
+      })
+      .where(inArray(replays.status, ['queued', 'running']))
+      .returning({ id: replays.id });
+    return interrupted.length;
+  }
+
+  async function finish(id: string, values: Partial<typeof replays.$inferInsert>) {
+    await db
+      .update(replays)
+      .set({ ...values, finishedAt: new Date() })
+      .where(eq(replays.id, id));
+    live.delete(id);
+    notices.emit(id, { type: 'finished', replay: await getReplay(id) } satisfies ReplayNotice);
+  }
+
+  async function execute(id: string, bundleId: string, zipPath: string, overrides: TReplay['overrides']) {
+    const state = live.get(id)!;
+    const outDir = replayDir(derivedDir, id);
+    const onEvent = (event: ReplayEvent) => {
+      if (event.type === 'started') {
+        // Drizzle builders run only when awaited or then-ed.
+        db.update(replays)
+          .set({ status: 'running', settings: event.settings })
+          .where(eq(replays.id, id))
+          .then(undefined, (error: unknown) =>
+            logger.error({ err: error, replayId: id }, 'could not mark replay running'),
+          );
+      } else {
+        state.progress = { step: event.step, steps: event.steps };
+        notices.emit(id, event satisfies ReplayNotice);
+      }
+    };
+    try {
+      const result = await pool.run(
+        { bundlePath: zipPath, overrides, outDir, maxUnpackedBytes },
+        state.controller.signal,
+        onEvent,
+      );
+      await finish(id, {
+        status: 'done',
+        settings: result.settings,
+        digest: result.digest,
+        steps: result.steps,
+        elapsedMs: result.elapsedMs,
+        metrics: result.metrics,
+        flags: result.flags,
+      });
+      steps.warm(id, bundleId, outDir);
+    } catch (error) {
+      const isCancelled = state.controller.signal.aborted;
+      if (!isCancelled) logger.error({ err: error, replayId: id }, 'replay failed');
+      fs.rmSync(outDir, { recursive: true, force: true });
+      await finish(id, {
+        status: isCancelled ? 'cancelled' : 'failed',
+        error: isCancelled ? 'Cancelled.' : error instanceof Error ? error.message : String(error),
+      });
+    }
+  }
+
+  async function startReplay(
+    bundleId: string,
+    request: TStartReplayRequest,
+    userId: string,
+  ): Promise<TReplay> {
+    const body = ZStartReplayRequest.parse(request);
+    const [bundle] = await db.select().from(bundles).where(eq(bundles.id, bundleId));
+    if (!bundle) throw new AppError('not_found', `No bundle with id ${bundleId}.`);
+    if (bundle.status !== 'valid' || !bundle.manifest) {
+      throw new AppError(
+        'conflict',
+        'This bundle did not pass validation, so it cannot be replayed. Fix the listed problems and upload it again.',
+      );
+    }
+    const resolved = resolveReplaySettings(bundle.manifest as Manifest, body.overrides);
+    if (!resolved.ok) {
+      throw new AppError(
+        'validation_failed',
+        `Invalid replay settings: ${resolved.issues.map((i) => `${i.field}: ${i.message}`).join('; ')}`,
+        resolved.issues.map((i) => ({ path: `overrides.${i.field}`, message: i.message })),
+      );
+    }
+    const id = randomUUID();
+    await db.insert(replays).values({
+      id,
+      bundleId,
+      label: body.label ?? '',
+      status: 'queued',
+      overrides: body.overrides,
+      settings: resolved.settings,
+      createdBy: userId,
+    });
+    live.set(id, { progress: null, controller: new AbortController() });
+    void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides);
+    return getReplay(id);
+  }
+
+  async function cancelReplay(id: string): Promise<TReplay> {
+    const replay = await getReplay(id);
+    const state = live.get(id);
+    if (!state)
+      throw new AppError(
+        'conflict',
+        `Replay ${id} is ${replay.status}; only a queued or running replay can be cancelled.`,
+      );
+    state.controller.abort();
+    return { ...replay, status: 'cancelled' };
+  }
+
+  /** Calls `listener` with progress and the final state; returns the unsubscribe function. */
+  function subscribe(id: string, listener: (notice: ReplayNotice) => void): () => void {
+    notices.on(id, listener);
+    return () => notices.off(id, listener);
+  }
+
+  async function requireDone(id: string): Promise<TReplay> {
+    const replay = await getReplay(id);
+    if (replay.status !== 'done')
+      throw new AppError('conflict', `Replay ${id} is ${replay.status}, not done.`);
+    return replay;
+  }
+
+  async function seriesFile(id: string): Promise<string> {
+    await requireDone(id);
+    return path.join(replayDir(derivedDir, id), 'series.json');
+  }
+
+  async function stepAt(id: string, step: number) {
+    const replay = await requireDone(id);
+    if (step >= (replay.steps ?? 0)) {
+      throw new AppError(
+        'not_found',
+        `Replay ${id} has steps 0 to ${(replay.steps ?? 1) - 1}; step ${step} does not exist.`,
+      );
+    }
+    return steps.stepAt(id, replay.bundleId, replayDir(derivedDir, id), step);
+  }
+
+  async function disagreementFile(id: string): Promise<string> {
+    await requireDone(id);
+    return path.join(replayDir(derivedDir, id), 'disagreement.bin');
+  }
+
+  return {
+    startReplay,
+    getReplay,
+    listBundleReplays,
+    cancelReplay,
+    subscribe,
+    seriesFile,
+    stepAt,
+    disagreementFile,
+    failInterruptedReplays,
+    isLive: (id: string) => live.has(id),
+  };
+}
+
+export type ReplaysService = ReturnType<typeof createReplaysService>;

@@ -1,0 +1,88 @@
+import { z } from 'zod';
+import { ZReplayOverrides } from '../engine/settings';
+
+export { ZReplayOverrides };
+
+export const REPLAY_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type TReplayStatus = (typeof REPLAY_STATUSES)[number];
+
+/** Body of `POST /api/bundles/:id/replays`: no overrides replays with the manifest's settings. */
+export const ZStartReplayRequest = z.object({
+  label: z.string().trim().max(120).optional(),
+  overrides: ZReplayOverrides.optional().default({}),
+});
+export type TStartReplayRequest = z.input<typeof ZStartReplayRequest>;
+
+export const ZReplayFlag = z.object({
+  kind: z.string(),
+  /** s since the bundle's start_time */
+  start: z.number(),
+  end: z.number(),
+  severity: z.enum(['info', 'warning', 'critical']),
+  evidence: z.string(),
+});
+export type TReplayFlag = z.infer<typeof ZReplayFlag>;
+
+export const ZReplayMetrics = z.object({
+  rmse_reference: z.number().nullable(),
+  rmse_onboard: z.number().nullable(),
+  /** First step time (s) from which the replay stayed more than the divergence distance from the reference; null if never. */
+  diverged_at: z.number().nullable().optional(),
+});
+
+export const ZReplay = z.object({
+  id: z.string(),
+  bundleId: z.string(),
+  caseId: z.string(),
+  label: z.string(),
+  status: z.enum(REPLAY_STATUSES),
+  overrides: ZReplayOverrides,
+  /** Effective settings (manifest filter block + overrides); null until the run starts. */
+  settings: z.record(z.string(), z.unknown()).nullable(),
+  digest: z.string().nullable(),
+  steps: z.number().nullable(),
+  elapsedMs: z.number().nullable(),
+  metrics: ZReplayMetrics.nullable(),
+  flags: z.array(ZReplayFlag),
+  error: z.string().nullable(),
+  progress: z.object({ step: z.number(), steps: z.number() }).nullable(),
+  createdBy: z.object({ id: z.string(), name: z.string() }),
+  createdAt: z.string(),
+  finishedAt: z.string().nullable(),
+});
+export type TReplay = z.infer<typeof ZReplay>;
+
+export const ZReplayList = z.object({ items: z.array(ZReplay) });
+export type TReplayList = z.infer<typeof ZReplayList>;
+
+/**
+ * `GET /api/replays/:id/series`: one array per diagnostic, index = step; `null` where a value is
+ * undefined (NaN), e.g. error_reference without a reference trajectory.
+ */
+export interface TReplaySeriesResponse {
+  steps: number;
+  /** 95 % chi-square bound for nees_onboard. */
+  neesBound: number;
+  /** Resampling threshold as a fraction of N, for the ESS track. */
+  resamplingThreshold: number;
+  columns: Record<string, (number | null)[]>;
+}
+
+/** `GET /api/replays/:id/steps/:k`: the exact particle set after step k, identical to the full run. */
+export interface TReplayStepResponse {
+  step: number;
+  t: number;
+  count: number;
+  /** Map frame, m / rad; `weight` is normalised (sums to 1). */
+  x: number[];
+  y: number[];
+  theta: number[];
+  weight: number[];
+  resampled: boolean;
+  /** Resampling method used at this step, or null. */
+  method: string | null;
+  mean: { x: number; y: number; theta: number };
+  covariance: { xx: number; xy: number; yy: number; tt: number };
+  /** Map-frame endpoints [x0, y0, x1, y1, ...] of the step's scans placed at the weighted mean pose. */
+  scanEndpoints: number[];
+}
