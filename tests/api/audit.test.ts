@@ -1,0 +1,61 @@
+import { createHash } from 'node:crypto';
+import { sql } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { canonicalJson } from '../../shared/canonical-json';
+import { as, signedCase } from '../support/case-work-fixtures';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.close());
+
+describe('audit trail', () => {
+  it('records each write in the case chain, and the chain verifies', async () => {
+    const { caseId } = await signedCase(t);
+    const list = await as(t, 'legal').get(`/api/cases/${caseId}/audit`);
+    expect(list.body.items.map((e: { action: string }) => e.action)).toEqual([
+      'case.create',
+      'findings.save',
+      'findings.submit',
+      'findings.signoff',
+    ]);
+    const first = list.body.items[0];
+    expect(first.prevHash).toBe('0'.repeat(64));
+    // entry_hash is SHA-256 over the RFC 8785 text of the entry without its own hash (Node crypto as reference).
+    const { id: _id, entryHash, ...rest } = first;
+    expect(createHash('sha256').update(canonicalJson(rest)).digest('hex')).toBe(entryHash);
+    expect((await as(t, 'reviewer').get(`/api/cases/${caseId}/audit/verify`)).body).toEqual({
+      ok: true,
+      entries: 4,
+    });
+  });
+
+  it('refuses UPDATE and DELETE of audit rows in the database', async () => {
+    await expect(t.database.db.execute(sql`update audit_entries set action = 'x'`)).rejects.toMatchObject({
+      cause: { code: '42501' },
+    });
+    await expect(t.database.db.execute(sql`delete from audit_entries`)).rejects.toThrow();
+  });
+
+  it('finds an edited payload hash and a deleted row at the right entry', async () => {
+    const { caseId } = await signedCase(t);
+    const chain = `case:${caseId}`;
+    await t.database.db.execute(sql`alter table audit_entries disable trigger user`);
+    await t.database.db.execute(
+      sql`update audit_entries set payload_sha256 = ${'f'.repeat(64)} where chain = ${chain} and chain_seq = 3`,
+    );
+    let report = (await as(t, 'admin').get(`/api/cases/${caseId}/audit/verify`)).body;
+    expect(report.ok).toBe(false);
+    expect(report.firstBroken.chainSeq).toBe(3);
+
+    const other = await signedCase(t);
+    await t.database.db.execute(
+      sql`delete from audit_entries where chain = ${`case:${other.caseId}`} and chain_seq = 2`,
+    );
+    await t.database.db.execute(sql`alter table audit_entries enable trigger user`);
+    report = (await as(t, 'admin').get(`/api/cases/${other.caseId}/audit/verify`)).body;
+    expect(report).toMatchObject({ ok: false, entries: 3, firstBroken: { chainSeq: 3 } });
+  });
+});
