@@ -38,7 +38,10 @@ export const EVENTS_SPEC: CsvTableSpec = {
   timeOrder: 'non_decreasing',
 };
 
-/** `classes` are the detector's classes from the manifest; undefined when it could not be read. */
+/**
+ * `classes` are the detector's classes from the manifest; undefined when it could not be read.
+ * One camera frame can see several landmarks, so detections may share a `t`.
+ */
 export function detectionsSpec(classes: readonly string[] | undefined): CsvTableSpec {
   return {
     columns: [
@@ -47,7 +50,7 @@ export function detectionsSpec(classes: readonly string[] | undefined): CsvTable
       { name: 'range', kind: 'non_negative' },
       { name: 'bearing', kind: 'angle' },
     ],
-    timeOrder: 'strict',
+    timeOrder: 'non_decreasing',
     categories: classes,
   };
 }

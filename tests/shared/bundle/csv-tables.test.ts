@@ -30,9 +30,15 @@ describe('CSV tables of a bundle', () => {
     ['reference_pose.csv', 't,x,y,theta,source\n0,0,0,0,survey\n0.2,0,0,0,survey\n0.1,0,0,0,survey\n'],
     ['commands.csv', 't,v,omega\n0,0,0\n0.2,0,0\n0.2,0,0\n'],
     ['onboard_pose.csv', 't,x,y,theta\n0,0,0,0\n0.2,0,0,0\n0.2,0,0,0\n'],
-    ['detections.csv', 't,class,range,bearing\n0,dock,1,0\n0.2,dock,1,0\n0.2,dock,1,0\n'],
   ])('requires t strictly increasing in %s', (file, content) => {
     expectIssue(issuesWith(file, content), { file, line: 4, field: 't' }, /not strictly increasing/);
+  });
+
+  it('lets detections of one frame share a t but not go backwards', () => {
+    const content = 't,class,range,bearing\n0.2,dock,1,0\n0.2,reflector,2,0.5\n0.1,column,3,0\n';
+    const issues = issuesWith('detections.csv', content).filter((issue) => issue.file === 'detections.csv');
+    expect(issues).toHaveLength(1);
+    expectIssue(issues, { file: 'detections.csv', line: 4, field: 't' }, /not going backwards/);
   });
 
   it('lets events repeat a t but not go backwards', () => {
