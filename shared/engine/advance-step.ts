@@ -61,6 +61,8 @@ export interface StepWorkspace {
   clusters: ClusterScratch;
   /** Predicted (pre-update) mean pose x, y, theta. */
   predicted: Float64Array;
+  /** Step after which `weights` equals exp(state.logWeight); -1 when unknown. */
+  weightsStep: number;
   record: StepRecord;
 }
 
@@ -81,6 +83,7 @@ export function createStepWorkspace(context: ReplayContext): StepWorkspace {
     range: createRangeScratch(context, createRandomScratch()),
     clusters: createClusterScratch(),
     predicted: new Float64Array(3),
+    weightsStep: -1,
     record: {
       t: 0,
       pose: createPoseSummary(),
@@ -162,6 +165,7 @@ function resampleState(
   state.theta = spareTheta;
   state.count = draws;
   state.logWeight.fill(-Math.log(draws), 0, draws);
+  workspace.weights.fill(Math.exp(-Math.log(draws)), 0, draws);
   workspace.record.distinct = countDistinctAncestors(ancestors, draws, workspace.marks, n);
 }
 
@@ -197,7 +201,8 @@ export function advanceStep(
   );
   const predicted = workspace.predicted;
   if (withDiagnostics && measurements > 0) {
-    exponentiateWeights(state.logWeight, n, weights);
+    // weights = exp(logWeight) already holds when this workspace ran the previous step.
+    if (workspace.weightsStep !== step - 1) exponentiateWeights(state.logWeight, n, weights);
     weightedMeanPose(state.x, state.y, cosTheta, sinTheta, weights, n, predicted);
   }
   const logLikelihood = measurements > 0 ? updateWeights(state, stepLogLikelihood) : Number.NaN;
@@ -258,5 +263,6 @@ export function advanceStep(
   }
   record.particles = n;
   state.step = step;
+  workspace.weightsStep = step;
   return record;
 }
