@@ -106,7 +106,8 @@ export function detectMapOutOfDate(series: ReplaySeries, counts: FreeSpaceEndpoi
       first++;
     }
     share[k] = total > 0 ? free / total : 0;
-    if (usable[k] && share[k] >= MAP_FREE_SHARE) marked[k] = 1;
+    // The step itself must show free-space endpoints, so the window's tail does not stretch the flag.
+    if (usable[k] && counts.free[k] > 0 && share[k] >= MAP_FREE_SHARE) marked[k] = 1;
   }
   return findSustainedRuns(series.t, marked, MAP_MIN_DURATION, MAP_MAX_GAP).map((run) => {
     let peak = 0;

@@ -50,11 +50,12 @@ interface Signals {
 
 /** Trailing sums of the measurement corrections over DRIFT_WINDOW seconds. */
 function sumCorrections(series: ReplaySeries, signals: Signals): void {
-  let first = 0;
+  let first = 1;
   let sx = 0;
   let sy = 0;
   let st = 0;
-  for (let k = 0; k < series.t.length; k++) {
+  // Step 0's correction is the first weighting of the initial belief, not an odometry increment.
+  for (let k = 1; k < series.t.length; k++) {
     sx += series.correction_x[k];
     sy += series.correction_y[k];
     st += series.correction_theta[k];
