@@ -76,6 +76,17 @@ describe('signing in', () => {
     await page.context().close();
   });
 
+  it('shows a not-found page inside the shell for an unknown address', async () => {
+    const page = await openPage(browser, baseUrl);
+    await signInAs(page, 'legal');
+    await page.goto('/no-such-page');
+    await page.getByRole('heading', { name: 'Page not found' }).waitFor();
+    expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(true);
+    await page.goto('/cases/00000000-0000-4000-8000-000000000000');
+    await page.getByText('Case not found').waitFor();
+    await page.context().close();
+  });
+
   it('signs out from the user menu', async () => {
     const page = await openPage(browser, baseUrl);
     await signInAs(page, 'reviewer');

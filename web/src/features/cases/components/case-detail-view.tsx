@@ -5,8 +5,9 @@ import { SeverityBadge } from '@web/components/severity-badge';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
+import { isApiError } from '@web/lib/api-client';
 import { formatUtcDateTime } from '@web/lib/date-time';
-import { ArrowLeft, FileArchive } from 'lucide-react';
+import { ArrowLeft, FileArchive, FileQuestion } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { useCase } from '../api/get-case';
@@ -59,14 +60,21 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
   );
 
   if (caseQuery.isError) {
+    const isMissing = isApiError(caseQuery.error) && caseQuery.error.status === 404;
     return (
       <>
         {backLink}
-        <ErrorState
-          error={caseQuery.error}
-          title="Could not load this case"
-          onRetry={() => caseQuery.refetch()}
-        />
+        {isMissing ? (
+          <EmptyState icon={FileQuestion} title="Case not found">
+            No case has this address. It may have been mistyped, or you followed an old link.
+          </EmptyState>
+        ) : (
+          <ErrorState
+            error={caseQuery.error}
+            title="Could not load this case"
+            onRetry={() => caseQuery.refetch()}
+          />
+        )}
       </>
     );
   }
