@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { PoseColumns } from '../../../../shared/bundle/types';
 import { detectInputStreamProblems } from '../../../../shared/engine/flags/input-stream-gaps';
 import { makeSyntheticBundle } from '../../../support/engine-fixtures';
 
