@@ -3,13 +3,10 @@ import type { PoseColumns } from '../../../../shared/bundle/types';
 import { detectInputStreamProblems } from '../../../../shared/engine/flags/input-stream-gaps';
 import { makeSyntheticBundle } from '../../../support/engine-fixtures';
 
-/** Removes rows [from, to) of a struct-of-arrays table. */
-function dropRows<T extends Record<string, unknown>>(table: T, from: number, to: number): T {
-  const out: Record<string, unknown> = { ...table };
-  for (const [key, column] of Object.entries(table))
-    if (column instanceof Float64Array)
-      out[key] = Float64Array.from([...column.slice(0, from), ...column.slice(to)]);
-  return out as T;
+/** Removes rows [from, to) of a pose table. */
+function dropRows(table: PoseColumns, from: number, to: number): PoseColumns {
+  const cut = (column: Float64Array) => Float64Array.from([...column.slice(0, from), ...column.slice(to)]);
+  return { t: cut(table.t), x: cut(table.x), y: cut(table.y), theta: cut(table.theta) };
 }
 
 describe('detectInputStreamProblems', () => {
