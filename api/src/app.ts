@@ -19,7 +19,7 @@ import { healthRoutes } from './routes/health';
 import { replayRoutes } from './routes/replays';
 import { userRoutes } from './routes/users';
 import { createAuthService } from './services/auth/auth-service';
-import { createBundlesService } from './services/bundles/bundles-service';
+import { type BundlesService, createBundlesService } from './services/bundles/bundles-service';
 import { createCasesService } from './services/cases/cases-service';
 import { createEvidenceStore } from './services/evidence/evidence-store';
 import { type CaseWork, createCaseWork } from './services/lifecycle/case-work';
@@ -42,6 +42,7 @@ export interface DriftcaseApp extends Express {
     /** Case-work services; server.ts starts `caseWork.mailQueue`, tests drive it. */
     caseWork: CaseWork;
     replays: ReplaysService;
+    bundles: BundlesService;
     /** Stops background work (replay workers); the caller closes the database. */
     shutdown: () => Promise<void>;
   };
@@ -93,6 +94,7 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
   app.locals.routeSpecs = routeSpecs;
   app.locals.caseWork = caseWork;
   app.locals.replays = replays;
+  app.locals.bundles = bundles;
   app.locals.shutdown = () => pool.close();
 
   app.use(

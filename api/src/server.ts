@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { pino } from 'pino';
 import { createApp } from './app';
-import { loadConfig } from './config';
+import { loadConfig, PROJECT_ROOT } from './config';
 import { openDatabase } from './db/client';
 import { seedDemoData } from './seed/seed-demo';
 import { startFakeSmtpServer } from './services/mail/fake-smtp-server';
@@ -16,7 +16,6 @@ async function main() {
       : { kind: 'pglite-dir', dataDir: path.join(config.dataDir, 'pglite') },
   );
   logger.info({ kind: database.kind, dataDir: config.dataDir }, 'database ready');
-  if (config.demoSeed && (await seedDemoData(database.db))) logger.info('seeded demo accounts and cases');
   await ensureWebBuild(logger);
 
   // Without SMTP_URL, mail goes to a local fake server whose messages the Outbox page shows.
@@ -31,6 +30,10 @@ async function main() {
     webDir: WEB_DIST,
   });
   app.locals.caseWork.mailQueue.start();
+  const sampleDir = path.join(PROJECT_ROOT, 'sample-logs');
+  if (config.demoSeed && (await seedDemoData(database.db, { bundles: app.locals.bundles, sampleDir }))) {
+    logger.info('seeded demo accounts, cases and sample bundles');
+  }
   const interrupted = await app.locals.replays.failInterruptedReplays();
   if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
   const server = app.listen(config.port, config.host, () => {
