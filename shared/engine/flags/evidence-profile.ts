@@ -44,6 +44,8 @@ export function measureEvidenceProfile(series: ReplaySeries): EvidenceProfile {
   let head = 0;
   let tail = 0;
   const scratch = new Float64Array(steps);
+  const perMeasurement = new Float64Array(steps);
+  for (let k = 0; k < steps; k++) perMeasurement[k] = series.log_likelihood[k] / series.measurements[k];
   for (let k = 0; k < steps; k++) {
     const measurements = series.measurements[k];
     const logLikelihood = series.log_likelihood[k];
@@ -52,17 +54,14 @@ export function measureEvidenceProfile(series: ReplaySeries): EvidenceProfile {
     const size = tail - head;
     let isDropped = false;
     if (size >= MIN_REFERENCE_STEPS) {
-      for (let i = 0; i < size; i++) {
-        const j = accepted[head + i];
-        scratch[i] = series.log_likelihood[j] / series.measurements[j];
-      }
+      for (let i = 0; i < size; i++) scratch[i] = perMeasurement[accepted[head + i]];
       const level = medianInPlace(scratch, size);
       for (let i = 0; i < size; i++) scratch[i] = series.measurements[accepted[head + i]];
       const count = medianInPlace(scratch, size);
       profile.referenceLevel[k] = level;
       profile.referenceCount[k] = count;
       profile.countRatio[k] = measurements / count;
-      if (hasValue) profile.dropPerMeasurement[k] = level - logLikelihood / measurements;
+      if (hasValue) profile.dropPerMeasurement[k] = level - perMeasurement[k];
       isDropped =
         !hasValue ||
         profile.dropPerMeasurement[k] >= REFERENCE_EXCLUDE_DROP ||
