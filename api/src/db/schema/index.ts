@@ -1,4 +1,5 @@
 export * from './audit';
+export * from './bookmarks';
 export * from './bundles';
 export * from './cases';
 export * from './findings';
@@ -6,6 +7,7 @@ export * from './fixes';
 export * from './holds';
 export * from './mail';
 export * from './replays';
+export * from './saved-queries';
 export * from './server-secrets';
 export * from './sessions';
 export * from './users';
