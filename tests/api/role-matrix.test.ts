@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
+import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -38,6 +39,7 @@ const unique = () => `${Date.now()}-${uniqueCounter++}`;
 
 const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promise<Sample>> = {
   ...caseWorkSamples(() => t),
+  ...bundleViewSamples(),
   'get /health': () => ({ path: '/api/health' }),
   'post /auth/login': () => ({
     path: '/api/auth/login',

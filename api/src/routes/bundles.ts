@@ -8,6 +8,7 @@ import type { BundlesService } from '../services/bundles/bundles-service';
 import { ZCaseParams } from './cases';
 
 const ZBundleParams = z.object({ id: z.uuid('Bundle id must be a UUID') });
+const ZReplayOfBundleParams = ZBundleParams.extend({ replayId: z.uuid('Replay id must be a UUID') });
 const ZTableParams = ZBundleParams.extend({ name: z.string().min(1).max(40) });
 
 export interface BundleRouteOptions {
@@ -97,6 +98,35 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
         const { id } = ZBundleParams.parse(req.params);
         const original = await bundles.originalFile(id);
         res.download(original.path, original.name);
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id/map',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id } = ZBundleParams.parse(req.params);
+        res.setHeader('Cache-Control', 'private, max-age=3600');
+        res.json(await bundles.bundleMap(id));
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id/tracks',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id } = ZBundleParams.parse(req.params);
+        res.setHeader('Cache-Control', 'private, max-age=3600');
+        res.json(await bundles.bundleTracks(id));
+      },
+    },
+    {
+      method: 'get',
+      path: '/bundles/:id/replays/:replayId/clearance',
+      access: ROLES,
+      handler: async (req, res) => {
+        const { id, replayId } = ZReplayOfBundleParams.parse(req.params);
+        res.json(await bundles.replayClearance(id, replayId));
       },
     },
   ];

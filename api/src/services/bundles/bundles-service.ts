@@ -10,6 +10,7 @@ import type { Database } from '../../db/client';
 import { bundles, cases, users } from '../../db/schema';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
+import { createBundleViews } from './bundle-views';
 
 export interface BundlesServiceOptions {
   db: Database;
@@ -136,7 +137,13 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
     return { path: evidence.pathFor(bundle.sha256), name: bundle.originalName };
   }
 
-  return { uploadBundle, listCaseBundles, getBundle, tableFile, originalFile, tablesDir };
+  const views = createBundleViews({
+    originalPath: async (bundleId) => (await originalFile(bundleId)).path,
+    derivedDir,
+    maxUnpackedBytes,
+  });
+
+  return { uploadBundle, listCaseBundles, getBundle, tableFile, originalFile, tablesDir, ...views };
 }
 
 export type BundlesService = ReturnType<typeof createBundlesService>;
