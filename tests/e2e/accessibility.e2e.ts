@@ -1,6 +1,6 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchBrowser, openPage } from './support/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
 /** Form controls with no accessible name: no `<label>`, `aria-label` or `aria-labelledby`. */
@@ -19,17 +19,10 @@ function findUnlabelledControls(page: Page): Promise<string[]> {
 }
 
 describe('accessibility basics', () => {
-  const baseUrl = inject('baseUrl');
-  let browser: Browser;
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('every control on the main pages has a label', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'admin');
     for (const [path, ready] of [
       ['/cases', 'Cases'],
@@ -45,7 +38,7 @@ describe('accessibility basics', () => {
   });
 
   it('the first Tab reaches a visible skip link that moves focus to the content', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'reviewer');
     await page.keyboard.press('Tab');
     const focused = await page.evaluate(() => {
@@ -64,7 +57,7 @@ describe('accessibility basics', () => {
   });
 
   it('answers repeated failed sign-ins with the wait message', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     const email = 'nobody-here@driftcase.example';
     // The server locks an address and e-mail pair after ten failures in fifteen minutes.
     for (let attempt = 0; attempt < 10; attempt += 1) {

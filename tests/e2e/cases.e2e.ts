@@ -1,6 +1,6 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { DESKTOP, launchBrowser, NARROW, openPage, saveScreenshot } from './support/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { DESKTOP, NARROW, saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
 async function hasHorizontalOverflow(page: Page): Promise<boolean> {
@@ -8,19 +8,12 @@ async function hasHorizontalOverflow(page: Page): Promise<boolean> {
 }
 
 describe('cases', () => {
-  const baseUrl = inject('baseUrl');
-  let browser: Browser;
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('an investigator opens a case and finds it in the list', async () => {
     // Berlin is on CET (UTC+01:00) on 14 March 2026: EU summer time starts on the last Sunday of March
     // (Directive 2000/84/EC, article 2), which is 29 March in 2026.
-    const page = await openPage(browser, baseUrl, { timezoneId: 'Europe/Berlin' });
+    const page = await browser.open({ timezoneId: 'Europe/Berlin' });
     await signInAs(page, 'investigator');
     await page.getByRole('link', { name: 'New case' }).first().click();
     await page.getByRole('heading', { name: 'New case' }).waitFor();
@@ -55,7 +48,7 @@ describe('cases', () => {
   });
 
   it('shows client-side field errors beside the fields and sends nothing', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'investigator');
     await page.goto('/cases/new');
     let posted = false;
@@ -73,14 +66,20 @@ describe('cases', () => {
   });
 
   it('sorts by a column header and keeps the sort after a reload', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'reviewer');
     await page.getByRole('row').nth(1).waitFor();
     const titleHeader = page.getByRole('columnheader', { name: /Title/ });
+    // Wait for the sorted answer itself: the URL changes a moment before the table re-renders.
+    const sortedResponse = page.waitForResponse((response) => response.url().includes('sort=title'));
     await titleHeader.getByRole('button').click();
+    await sortedResponse;
     await page.waitForURL(/sort=title/);
-    expect(await titleHeader.getAttribute('aria-sort')).toBe('ascending');
-    await page.waitForFunction(() => !document.querySelector('table[aria-busy="true"]'));
+    await page.waitForFunction(
+      () =>
+        document.querySelector('th[aria-sort="ascending"]')?.textContent?.includes('Title') &&
+        !document.querySelector('table[aria-busy="true"]'),
+    );
     const titles = async () =>
       (await page.locator('tbody tr td:nth-child(2)').allTextContents()).map((t) => t.trim());
     const before = await titles();
@@ -101,7 +100,7 @@ describe('cases', () => {
       [DESKTOP, 'case-list'],
       [NARROW, 'case-list-1024'],
     ] as const) {
-      const page = await openPage(browser, baseUrl, { viewport });
+      const page = await browser.open({ viewport });
       await signInAs(page, 'investigator');
       await page.getByRole('row').nth(1).waitFor();
       await page.waitForFunction(() => !document.querySelector('[aria-busy="true"]'));

@@ -89,11 +89,20 @@ export default async function setup(project: TestProject) {
     stdio: ['ignore', 'pipe', 'pipe'],
     detached: true,
   });
+  // The whole server log is kept on disk, so a crash in the middle of a run can be diagnosed.
+  const logFile = path.join(ROOT, 'tests', 'output', 'e2e-server.log');
+  fs.mkdirSync(path.dirname(logFile), { recursive: true });
+  fs.writeFileSync(logFile, '');
   const keep = (chunk: Buffer) => {
     output = (output + chunk.toString()).slice(-20_000);
+    fs.appendFileSync(logFile, chunk);
   };
   server.stdout?.on('data', keep);
   server.stderr?.on('data', keep);
+
+  server.once('exit', (code, signal) => {
+    fs.appendFileSync(logFile, `\n[e2e setup] server exited: code ${code}, signal ${signal}\n`);
+  });
 
   const stop = async () => {
     if (server.exitCode === null && server.pid) {

@@ -1,7 +1,6 @@
 import { ROLES, type Role } from '@shared/roles';
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchBrowser, openPage, saveScreenshot } from './support/browser';
+import { describe, expect, it } from 'vitest';
+import { saveScreenshot, useBrowser } from './support/browser';
 import { DEMO_PASSWORD, demoEmail, fillSignIn, signInAs } from './support/sign-in';
 
 // The navigation each role must see, as the foundation issue's role table specifies it.
@@ -22,18 +21,11 @@ const ROLE_NAMES: Record<Role, string> = {
 };
 
 describe('signing in', () => {
-  const baseUrl = inject('baseUrl');
-  let browser: Browser;
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   for (const role of ROLES) {
     it(`shows the ${role}'s navigation`, async () => {
-      const page = await openPage(browser, baseUrl);
+      const page = await browser.open();
       await signInAs(page, role);
       expect(page.url()).toMatch(/\/cases$/);
       const links = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
@@ -45,7 +37,7 @@ describe('signing in', () => {
   }
 
   it('answers a wrong password with the generic message and stays on the form', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await fillSignIn(page, demoEmail('reviewer'), `${DEMO_PASSWORD}-wrong`);
     const alert = page.getByRole('alert');
     await alert.waitFor();
@@ -56,7 +48,7 @@ describe('signing in', () => {
   });
 
   it('sends a signed-out visitor to sign-in and back to the page they asked for', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await page.goto('/cases?severity=high');
     await page.getByRole('heading', { name: 'Sign in' }).waitFor();
     expect(new URL(page.url()).searchParams.get('next')).toBe('/cases?severity=high');
@@ -69,7 +61,7 @@ describe('signing in', () => {
   });
 
   it('tells an engineer that the user admin page is not for their role', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'engineer');
     await page.goto('/admin/users');
     await page.getByText('Not available for your role').waitFor();
@@ -77,7 +69,7 @@ describe('signing in', () => {
   });
 
   it('shows a not-found page inside the shell for an unknown address', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'legal');
     await page.goto('/no-such-page');
     await page.getByRole('heading', { name: 'Page not found' }).waitFor();
@@ -88,7 +80,7 @@ describe('signing in', () => {
   });
 
   it('signs out from the user menu', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'reviewer');
     await page.getByRole('button', { name: /Account menu/ }).click();
     await page.getByRole('button', { name: 'Sign out' }).click();

@@ -1,20 +1,12 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchBrowser, openPage, saveScreenshot } from './support/browser';
+import { describe, expect, it } from 'vitest';
+import { saveScreenshot, useBrowser } from './support/browser';
 import { fillSignIn, signInAs } from './support/sign-in';
 
 describe('user admin', () => {
-  const baseUrl = inject('baseUrl');
-  let browser: Browser;
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('an admin adds a user, changes their role and deactivates them', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'admin');
     await page.getByRole('link', { name: 'Users' }).click();
     await page.getByRole('heading', { name: 'Users' }).waitFor();
@@ -53,7 +45,7 @@ describe('user admin', () => {
     await page.context().close();
 
     // A deactivated account can no longer sign in.
-    const other = await openPage(browser, baseUrl);
+    const other = await browser.open();
     await fillSignIn(other, email, password);
     await other.getByRole('alert').waitFor();
     expect(new URL(other.url()).pathname).toBe('/sign-in');
@@ -61,7 +53,7 @@ describe('user admin', () => {
   });
 
   it('shows server field errors in the dialog when the e-mail is already taken', async () => {
-    const page = await openPage(browser, baseUrl);
+    const page = await browser.open();
     await signInAs(page, 'admin');
     await page.goto('/admin/users');
     await page.getByRole('button', { name: 'Add user' }).click();
