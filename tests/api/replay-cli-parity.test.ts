@@ -1,0 +1,74 @@
+import { execFile } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { promisify } from 'node:util';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { zipFolder } from '../../api/src/bundles/zip-folder';
+import type { TReplay } from '../../shared/contracts/replays';
+import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
+
+const run = promisify(execFile);
+const SAMPLE = path.resolve('sample-logs/wheel-slip');
+
+let bed: CaseTestbed;
+beforeAll(async () => {
+  bed = await createCaseTestbed();
+});
+afterAll(() => bed.close());
+
+async function cliReplay(jsonFile: string, extra: string[] = []) {
+  await run('npx', ['tsx', 'api/src/cli/main.ts', 'replay', SAMPLE, '--json', jsonFile, ...extra], {
+    timeout: 120_000,
+  });
+  return JSON.parse(fs.readFileSync(jsonFile, 'utf8'));
+}
+
+describe('one engine, one digest', () => {
+  it('gives the same digest and flags from two CLI runs and from the API', async () => {
+    const first = await cliReplay(path.join(bed.dir, 'a.json'));
+    const second = await cliReplay(path.join(bed.dir, 'b.json'));
+    expect(first.digest).toMatch(/^[0-9a-f]{64}$/);
+    expect(second.digest).toBe(first.digest);
+
+    const zip = await zipFolder(SAMPLE, path.join(bed.dir, 'wheel-slip.zip'));
+    const auth = { Authorization: `Bearer ${bed.token}` };
+    const upload = await request(bed.t.app)
+      .post(`/api/cases/${bed.caseId}/bundles`)
+      .set(auth)
+      .attach('bundle', zip);
+    const started = await request(bed.t.app)
+      .post(`/api/bundles/${upload.body.bundle.id}/replays`)
+      .set(auth)
+      .send({});
+    let replay: TReplay = started.body;
+    while (replay.status === 'queued' || replay.status === 'running') {
+      await new Promise((resolve) => setTimeout(resolve, 100));
+      replay = (await request(bed.t.app).get(`/api/replays/${replay.id}`).set(auth)).body;
+    }
+    expect(replay.status).toBe('done');
+    expect(replay.digest).toBe(first.digest);
+    expect(replay.flags.map((f) => f.kind)).toEqual(first.flags.map((f: { kind: string }) => f.kind));
+    // The wheel slip (18 s to 22 s, sample-logs/catalog.json) is flagged by the API replay too.
+    expect(
+      replay.flags.some((f) => f.kind === 'odometry_disagrees_with_scans' && f.start <= 21 && f.end >= 18),
+    ).toBe(true);
+  });
+
+  it('changes the digest with the seed and rejects a bad option with exit code 2', async () => {
+    const seeded = await cliReplay(path.join(bed.dir, 'c.json'), ['--seed', '99', '--particles', '300']);
+    const first = JSON.parse(fs.readFileSync(path.join(bed.dir, 'a.json'), 'utf8'));
+    expect(seeded.digest).not.toBe(first.digest);
+    expect(seeded.settings.particles).toBe(300);
+    const bad = await run('npx', [
+      'tsx',
+      'api/src/cli/main.ts',
+      'replay',
+      SAMPLE,
+      '--resampling',
+      'lottery',
+    ]).catch((error: { code: number; stderr: string }) => error);
+    expect((bad as { code: number }).code).toBe(2);
+    expect((bad as { stderr: string }).stderr).toMatch(/resampling/);
+  });
+});
