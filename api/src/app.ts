@@ -13,17 +13,22 @@ import { mountRoutes, type RouteSpec } from './http/route-spec';
 import { sessionMiddleware } from './http/session-middleware';
 import { createReplayPool, type ReplayPool } from './replays/replay-pool';
 import { authRoutes } from './routes/auth';
+import { bookmarkRoutes } from './routes/bookmarks';
 import { bundleRoutes } from './routes/bundles';
 import { caseRoutes } from './routes/cases';
 import { healthRoutes } from './routes/health';
 import { replayRoutes } from './routes/replays';
+import { savedQueryRoutes } from './routes/saved-queries';
 import { userRoutes } from './routes/users';
+import { createCaseArchives } from './services/archive/case-archives';
 import { createAuthService } from './services/auth/auth-service';
+import { createBookmarksService } from './services/bookmarks/bookmarks-service';
 import { type BundlesService, createBundlesService } from './services/bundles/bundles-service';
 import { createCasesService } from './services/cases/cases-service';
 import { createEvidenceStore } from './services/evidence/evidence-store';
 import { type CaseWork, createCaseWork } from './services/lifecycle/case-work';
 import { createReplaysService, type ReplaysService } from './services/replays/replays-service';
+import { createSavedQueriesService } from './services/saved-queries/saved-queries-service';
 import { createUsersService } from './services/users/users-service';
 
 export interface AppDependencies {
@@ -79,6 +84,12 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
     maxUnpackedBytes: config.maxUnpackedBytes,
   });
   const caseWork = createCaseWork({ db, config, logger });
+  const bookmarks = createBookmarksService({ db, holds: caseWork.holds });
+  const savedQueries = createSavedQueriesService({ db });
+  const archives = createCaseArchives({
+    ...{ config, cases, bundles, replays, evidence, derivedDir, caseWork },
+    workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
+  });
   const cookieOptions = { secure: config.secureCookies, maxAgeSeconds: config.sessionMaxAgeSeconds };
 
   const routeSpecs: RouteSpec[] = [
@@ -89,6 +100,9 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
     ...bundleRoutes(bundles, { incomingDir: evidence.incoming, maxUploadBytes: config.maxUploadBytes }),
     ...replayRoutes(replays),
     ...caseWork.routeSpecs,
+    ...archives.routeSpecs,
+    ...bookmarkRoutes(bookmarks),
+    ...savedQueryRoutes(savedQueries),
   ];
   caseWork.applyToRoutes(routeSpecs);
   app.locals.routeSpecs = routeSpecs;

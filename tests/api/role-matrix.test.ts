@@ -6,6 +6,7 @@ import { ROLES, type Role } from '../../shared/roles';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
 import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
+import { evidenceSamples } from '../support/evidence-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -39,6 +40,7 @@ const unique = () => `${Date.now()}-${uniqueCounter++}`;
 
 const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promise<Sample>> = {
   ...caseWorkSamples(() => t),
+  ...evidenceSamples(() => t),
   ...bundleViewSamples(),
   'get /health': () => ({ path: '/api/health' }),
   'post /auth/login': () => ({

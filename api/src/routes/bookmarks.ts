@@ -1,0 +1,72 @@
+import { z } from 'zod';
+import { ZCreateBookmarkRequest, ZUpdateBookmarkRequest } from '../../../shared/contracts/bookmarks';
+import { ROLES } from '../../../shared/roles';
+import type { RouteSpec } from '../http/route-spec';
+import type { BookmarksService } from '../services/bookmarks/bookmarks-service';
+import { ZCaseParams } from './cases';
+
+const ZBookmarkParams = z.object({ id: z.uuid('Bookmark id must be a UUID') });
+
+/** Facts of a bookmark write, read from the bookmark the handler sent back. */
+function bookmarkFacts(_req: unknown, body: unknown) {
+  const bookmark = body as { id?: string; caseId?: string; step?: number; replayId?: string };
+  return {
+    targetType: 'bookmark',
+    targetId: bookmark.id ?? null,
+    caseId: bookmark.caseId ?? null,
+    details: { replayId: bookmark.replayId, step: bookmark.step },
+  };
+}
+
+export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
+  return [
+    {
+      method: 'get',
+      path: '/cases/:id/bookmarks',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json({ items: await bookmarks.listBookmarks(ZCaseParams.parse(req.params).id) });
+      },
+    },
+    {
+      method: 'post',
+      path: '/cases/:id/bookmarks',
+      access: ['investigator'],
+      audit: { action: 'bookmark.create', facts: bookmarkFacts },
+      handler: async (req, res) => {
+        const { id } = ZCaseParams.parse(req.params);
+        const body = ZCreateBookmarkRequest.parse(req.body);
+        res.status(201).json(await bookmarks.createBookmark(id, body, req.user));
+      },
+    },
+    {
+      method: 'get',
+      path: '/bookmarks/:id',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json(await bookmarks.getBookmark(ZBookmarkParams.parse(req.params).id));
+      },
+    },
+    {
+      method: 'patch',
+      path: '/bookmarks/:id',
+      // The service narrows this to the author (or an admin).
+      access: ['investigator', 'admin'],
+      audit: { action: 'bookmark.edit_note', facts: bookmarkFacts },
+      handler: async (req, res) => {
+        const { id } = ZBookmarkParams.parse(req.params);
+        res.json(await bookmarks.updateNote(id, ZUpdateBookmarkRequest.parse(req.body), req.user));
+      },
+    },
+    {
+      method: 'delete',
+      path: '/bookmarks/:id',
+      access: ['investigator'],
+      audit: { action: 'bookmark.delete', facts: bookmarkFacts },
+      handler: async (req, res) => {
+        const { id } = ZBookmarkParams.parse(req.params);
+        res.json(await bookmarks.deleteBookmark(id, req.user));
+      },
+    },
+  ];
+}
