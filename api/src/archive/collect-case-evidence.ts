@@ -1,0 +1,95 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { AuditChainEntry } from '../../../shared/audit-chain';
+import type { TBundleRecord } from '../../../shared/contracts/bundles';
+import type { TCase } from '../../../shared/contracts/cases';
+import type { TFindingsVersion } from '../../../shared/contracts/findings';
+import type { TFix } from '../../../shared/contracts/fixes';
+import type { TJwkSet } from '../../../shared/contracts/keys';
+import type { TReplay } from '../../../shared/contracts/replays';
+import type { ReplayResultFile } from '../replays/replay-files';
+import { readReplayResultFile, replayDir } from '../replays/replay-files';
+
+/**
+ * Bookmarks and saved queries of a case, when the workspace services exist. Kept as an optional
+ * hook so the archive does not depend on them; each item is written as JSON unchanged.
+ */
+export interface WorkspaceEvidenceSource {
+  listBookmarks(caseId: string): Promise<unknown[]>;
+  /** Each saved query should carry its result hash (`resultSha256`). */
+  listSavedQueries(caseId: string): Promise<unknown[]>;
+}
+
+/** What the archive is made of, read once so every part of the archive tells the same story. */
+export interface CaseEvidence {
+  caseRecord: TCase;
+  bundles: { record: TBundleRecord; originalPath: string }[];
+  /** Finished replays only, oldest first; `series` is the stored per-step columns. */
+  replays: {
+    replay: TReplay;
+    bundleSha256: string;
+    result: ReplayResultFile;
+    series: Record<string, (number | null)[]>;
+  }[];
+  findings: TFindingsVersion[];
+  fixes: TFix[];
+  auditChain: AuditChainEntry[];
+  jwks: TJwkSet;
+  workspace: { bookmarks: unknown[]; savedQueries: unknown[] } | null;
+}
+
+export interface CaseEvidenceSources {
+  getCase(caseId: string): Promise<TCase>;
+  listCaseBundles(caseId: string): Promise<TBundleRecord[]>;
+  originalPathFor(sha256: string): string;
+  listBundleReplays(bundleId: string): Promise<TReplay[]>;
+  derivedDir: string;
+  listFindingsVersions(caseId: string): Promise<{ version: number }[]>;
+  getFindingsVersion(caseId: string, version: number): Promise<TFindingsVersion>;
+  listFixes(caseId: string): Promise<TFix[]>;
+  readCaseChain(caseId: string): Promise<AuditChainEntry[]>;
+  jwks(): Promise<TJwkSet>;
+  workspace?: WorkspaceEvidenceSource;
+}
+
+const byTimeThenId = (a: { createdAt: string; id: string }, b: { createdAt: string; id: string }) =>
+  a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id);
+
+/** Reads everything the archive of one case holds, in a fixed order. */
+export async function collectCaseEvidence(
+  caseId: string,
+  sources: CaseEvidenceSources,
+): Promise<CaseEvidence> {
+  const caseRecord = await sources.getCase(caseId);
+  const records = await sources.listCaseBundles(caseId);
+  const replays: CaseEvidence['replays'] = [];
+  for (const record of records) {
+    const finished = (await sources.listBundleReplays(record.id)).filter((r) => r.status === 'done');
+    for (const replay of finished.sort(byTimeThenId)) {
+      const dir = replayDir(sources.derivedDir, replay.id);
+      // A result folder lost from derived data is skipped; the replay can be run again.
+      if (!fs.existsSync(path.join(dir, 'result.json'))) continue;
+      const series = JSON.parse(fs.readFileSync(path.join(dir, 'series.json'), 'utf8'));
+      replays.push({ replay, bundleSha256: record.sha256, result: readReplayResultFile(dir), series });
+    }
+  }
+  const versions = await sources.listFindingsVersions(caseId);
+  const findings: TFindingsVersion[] = [];
+  for (const { version } of versions) findings.push(await sources.getFindingsVersion(caseId, version));
+  const workspace = sources.workspace
+    ? {
+        bookmarks: await sources.workspace.listBookmarks(caseId),
+        savedQueries: await sources.workspace.listSavedQueries(caseId),
+      }
+    : null;
+  return {
+    caseRecord,
+    bundles: records.map((record) => ({ record, originalPath: sources.originalPathFor(record.sha256) })),
+    replays,
+    findings,
+    fixes: await sources.listFixes(caseId),
+    auditChain: await sources.readCaseChain(caseId),
+    jwks: await sources.jwks(),
+    workspace,
+  };
+}

@@ -1,0 +1,109 @@
+import { verifyAuditChain } from '../../../../shared/audit-chain';
+import type { Bundle } from '../../../../shared/bundle/types';
+import { CAUSE_CATEGORY_LABELS, INCIDENT_CLASS_LABELS } from '../../../../shared/contracts/findings';
+import type { CaseEvidence } from '../collect-case-evidence';
+import { renderReplaySection } from './replay-section';
+import { escapeHtml } from './report-colours';
+import { reportStyles } from './report-styles';
+
+export interface ReportInput {
+  evidence: CaseEvidence;
+  /** Parsed bundles by SHA-256 for timelines and maps; null when too large or invalid. */
+  bundles: ReadonlyMap<string, Bundle | null>;
+  productVersion: string;
+  safetyCaution: string;
+}
+
+const row = (label: string, value: string) => `<tr><th>${escapeHtml(label)}</th><td>${value}</td></tr>`;
+
+function findingsSection(evidence: CaseEvidence): string {
+  const latestSigned = [...evidence.findings].reverse().find((v) => v.signature);
+  const shown = latestSigned ?? evidence.findings.at(-1);
+  if (!shown) return '<p>No findings have been submitted.</p>';
+  const status = shown.signature
+    ? shown.signature.valid
+      ? `<span class="ok">✓ Signature valid</span> — signed by ${escapeHtml(shown.signature.signedBy)} at ${escapeHtml(shown.signature.signedAt)} (key ${escapeHtml(shown.signature.kid)})`
+      : `<span class="bad">✗ Signature invalid</span>: ${escapeHtml(shown.signature.error)}`
+    : '<span class="bad">✗ Not signed</span>';
+  const c = shown.content;
+  const causes = c.contributingFactors
+    .map((f) => `<li>${escapeHtml(CAUSE_CATEGORY_LABELS[f.category])}: ${escapeHtml(f.text)}</li>`)
+    .join('');
+  const actions = c.correctiveActions
+    .map(
+      (a) => `<li>${escapeHtml(a.description)} — ${escapeHtml(a.owner)}, due ${escapeHtml(a.dueDate)}</li>`,
+    )
+    .join('');
+  const versions = evidence.findings
+    .map(
+      (v) =>
+        `<tr><td>${v.version}</td><td>${escapeHtml(v.state)}</td><td>${escapeHtml(v.author.name)}</td><td>${escapeHtml(v.submittedAt)}</td><td class="hash">${escapeHtml(v.sha256)}</td></tr>`,
+    )
+    .join('');
+  return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${escapeHtml(shown.submittedAt)}. ${status}</p>
+<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}${row('Evidence cited', `${c.evidence.length} item(s)`)}</tbody></table>
+<h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>`;
+}
+
+function fixesSection(evidence: CaseEvidence): string {
+  if (evidence.fixes.length === 0) return '<p>No fixes are linked.</p>';
+  const digests = new Map(evidence.replays.map((r) => [r.replay.id, r.result]));
+  return `<table><thead><tr><th>Fix</th><th>Link</th><th>Verification replay</th><th>Verified</th></tr></thead><tbody>${evidence.fixes
+    .map((fix) => {
+      const replay = fix.verificationReplayId ? digests.get(fix.verificationReplayId) : undefined;
+      return `<tr><td>${escapeHtml(fix.description)}<br><span class="unit">linked by ${escapeHtml(fix.linkedBy.name)} at ${escapeHtml(fix.linkedAt)}</span></td><td class="hash">${escapeHtml(fix.url ?? '')} ${escapeHtml(fix.commitId ?? '')}</td><td>${fix.verificationReplayId ? `<span class="hash">${escapeHtml(fix.verificationReplayId)}</span>${replay ? `<br>${replay.flags.length} flag(s), RMSE ${replay.metrics.rmse_reference?.toFixed(3) ?? '–'} m` : ''}` : 'none'}</td><td>${fix.verifiedAt ? `<span class="ok">✓</span> ${escapeHtml(fix.verifiedBy?.name)} at ${escapeHtml(fix.verifiedAt)}` : 'not yet'}</td></tr>`;
+    })
+    .join('')}</tbody></table>`;
+}
+
+function custodySection(evidence: CaseEvidence): string {
+  const exports = evidence.auditChain.filter((e) => e.action === 'archive.export');
+  const chain = verifyAuditChain(evidence.auditChain);
+  const counts = new Map<string, number>();
+  for (const entry of evidence.auditChain) counts.set(entry.action, (counts.get(entry.action) ?? 0) + 1);
+  const exportRows = exports
+    .map(
+      (e) =>
+        `<tr><td>${escapeHtml(e.at)}</td><td>${escapeHtml(e.actorEmail)}</td><td class="hash">${escapeHtml(e.details.sha256)}</td></tr>`,
+    )
+    .join('');
+  const actionRows = [...counts.entries()]
+    .sort(([a], [b]) => a.localeCompare(b))
+    .map(([action, n]) => `<tr><td>${escapeHtml(action)}</td><td>${n}</td></tr>`)
+    .join('');
+  return `<h3>Earlier exports</h3>${exports.length ? `<table><thead><tr><th>When</th><th>Who</th><th>Archive SHA-256</th></tr></thead><tbody>${exportRows}</tbody></table>` : '<p>This is the first export of the case.</p>'}
+<h3>Audit trail</h3><p>${evidence.auditChain.length} entries; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'none')}</span>.</p>
+<table><thead><tr><th>Action</th><th>Entries</th></tr></thead><tbody>${actionRows}</tbody></table>`;
+}
+
+/**
+ * The archive's self-contained report.html: no network requests (fonts, pictures and charts are
+ * inline). It holds only recorded facts, never the export time, so an unchanged case renders the
+ * same bytes.
+ */
+export function renderReport(input: ReportInput): string {
+  const { evidence } = input;
+  const c = evidence.caseRecord;
+  const bundleRows = evidence.bundles
+    .map(
+      ({ record }) =>
+        `<tr><td>${escapeHtml(record.originalName)}</td><td>${escapeHtml(record.status)}</td><td>${record.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(record.sha256)}</td></tr>`,
+    )
+    .join('');
+  const replays = evidence.replays
+    .map((entry) => renderReplaySection(entry, input.bundles.get(entry.bundleSha256) ?? null))
+    .join('');
+  return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
+<title>Evidence report ${escapeHtml(c.reference)}</title><style>${reportStyles()}</style></head><body>
+<header><h1>Evidence report — ${escapeHtml(c.reference)}</h1><p>${escapeHtml(c.title)}</p></header>
+<p class="caution" role="note">⚠ ${escapeHtml(input.safetyCaution)}</p>
+<section><h2>Case</h2><table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', escapeHtml(c.incidentTime))}${row('Severity', escapeHtml(c.severity))}${row('Status', escapeHtml(c.status))}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
+<section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}</section>
+<section><h2>Replays and flags</h2>${replays || '<p>No finished replays.</p>'}</section>
+<section><h2>Findings</h2>${findingsSection(evidence)}</section>
+<section><h2>Fixes and verification</h2>${fixesSection(evidence)}</section>
+<section><h2>Custody</h2>${custodySection(evidence)}</section>
+<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip</code> checks every file against manifest.json, the signatures, the audit chain, and re-runs every replay.</p></footer>
+</body></html>
+`;
+}

@@ -1,0 +1,203 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { JSONWebKeySet } from 'jose';
+import * as layout from '../../../shared/archive/archive-layout';
+import { compareWithManifest } from '../../../shared/archive/compare-with-manifest';
+import { type AuditChainEntry, verifyAuditChain } from '../../../shared/audit-chain';
+import {
+  type TArchiveCheck,
+  type TArchiveVerification,
+  ZArchiveManifest,
+} from '../../../shared/contracts/archives';
+import { runReplay } from '../../../shared/engine/filter';
+import type { ReplaySettings } from '../../../shared/engine/settings';
+import { loadBundleForReplay } from '../replays/replay-bundle-file';
+import { verifyDetached } from '../services/signing/detached-jws';
+import { hashFile, type ReadArchive, readArchiveEntries } from './read-archive-entries';
+
+export interface VerifyOptions {
+  /** Skip re-running replays (fast structural check only); the report says so. */
+  skipReplays?: boolean;
+}
+
+type Check = (kind: TArchiveCheck['kind'], ok: boolean, file: string | null, message: string) => void;
+
+function parseJson<T>(read: ReadArchive, file: string, check: Check): T | null {
+  const bytes = read.contents.get(file);
+  if (!bytes) return null;
+  try {
+    return JSON.parse(bytes.toString('utf8')) as T;
+  } catch (error) {
+    check('manifest', false, file, `${file}: not valid JSON (${(error as Error).message})`);
+    return null;
+  }
+}
+
+async function checkSignatures(read: ReadArchive, jwks: JSONWebKeySet | null, check: Check) {
+  const manifestJws = read.contents.get(layout.MANIFEST_SIGNATURE_PATH);
+  const manifest = read.contents.get(layout.MANIFEST_PATH);
+  const sign = async (
+    kind: 'signature',
+    file: string,
+    jws: Buffer | undefined,
+    payload: Buffer | undefined,
+    what: string,
+  ) => {
+    if (!jws || !payload) return check(kind, false, file, `${file}: missing, so ${what} cannot be checked`);
+    if (!jwks)
+      return check(
+        kind,
+        false,
+        layout.JWKS_PATH,
+        `${layout.JWKS_PATH}: missing or unreadable, so ${what} cannot be checked`,
+      );
+    const result = await verifyDetached(jws.toString('utf8').trim(), payload, jwks);
+    if (result.valid)
+      check(
+        kind,
+        true,
+        file,
+        `${file}: valid signature over ${what} (key ${result.header.kid}, signed by ${result.header.signedBy} at ${result.header.signedAt})`,
+      );
+    else check(kind, false, file, `${file}: signature over ${what} does NOT verify (${result.error})`);
+  };
+  await sign('signature', layout.MANIFEST_SIGNATURE_PATH, manifestJws, manifest, layout.MANIFEST_PATH);
+  for (const file of [...read.contents.keys()].sort()) {
+    const version = layout.versionOfSignaturePath(file);
+    if (version === null) continue;
+    const canonicalPath = layout.findingsVersionPath(version, 'canonical.json');
+    await sign('signature', file, read.contents.get(file), read.contents.get(canonicalPath), canonicalPath);
+  }
+}
+
+async function checkReplays(read: ReadArchive, check: Check) {
+  const bundles = new Map<string, Awaited<ReturnType<typeof loadBundleForReplay>>>();
+  for (const digestPath of [...read.contents.keys()].filter((f) => layout.replayIdOfDigestPath(f)).sort()) {
+    const id = layout.replayIdOfDigestPath(digestPath) as string;
+    const settingsPath = layout.replayFilePath(id, 'settings.json');
+    const info = parseJson<{ bundlePath?: string }>(read, layout.replayFilePath(id, 'replay.json'), check);
+    const settings = parseJson<ReplaySettings>(read, settingsPath, check);
+    const original = info?.bundlePath ? read.extracted.get(info.bundlePath) : undefined;
+    if (!info?.bundlePath || !settings || !original) {
+      check(
+        'replay',
+        false,
+        digestPath,
+        `replay ${id}: cannot re-run (replay.json, settings.json or the original bundle is missing)`,
+      );
+      continue;
+    }
+    try {
+      let bundle = bundles.get(original);
+      if (!bundle) {
+        bundle = await loadBundleForReplay(original);
+        bundles.set(original, bundle);
+      }
+      const expected = (read.contents.get(digestPath) as Buffer).toString('utf8').trim();
+      const actual = runReplay(bundle, settings, { keyframeInterval: 0 }).digest;
+      if (actual === expected)
+        check(
+          'replay',
+          true,
+          digestPath,
+          `replay ${id}: re-run from ${info.bundlePath} gives the recorded digest ${expected}`,
+        );
+      else
+        check(
+          'replay',
+          false,
+          digestPath,
+          `replay ${id}: re-run gives digest ${actual}, ${digestPath} says ${expected}`,
+        );
+    } catch (error) {
+      check('replay', false, digestPath, `replay ${id}: re-run failed (${(error as Error).message})`);
+    }
+  }
+}
+
+/**
+ * Verifies an evidence archive without the database: every file against manifest.json, the
+ * manifest's and findings' signatures against keys/jwks.json, the audit hash chain, and every
+ * replay re-run from the included original bundle. Throws only for an unreadable file.
+ */
+export async function verifyArchive(
+  zipPath: string,
+  options: VerifyOptions = {},
+): Promise<TArchiveVerification> {
+  const checks: TArchiveCheck[] = [];
+  const check: Check = (kind, ok, file, message) => checks.push({ kind, ok, file, message });
+  const { sha256: archiveSha256 } = await hashFile(zipPath);
+  const tempDir = await fs.promises.mkdtemp(path.join(os.tmpdir(), 'driftcase-verify-'));
+  try {
+    let read: ReadArchive;
+    try {
+      read = await readArchiveEntries(zipPath, tempDir);
+    } catch (error) {
+      check('file', false, null, `the file is not a readable zip archive (${(error as Error).message})`);
+      return { ok: false, archiveSha256, checks };
+    }
+    for (const name of read.duplicates)
+      check('file', false, name, `${name}: appears more than once in the archive`);
+    const rawManifest = parseJson<unknown>(read, layout.MANIFEST_PATH, check);
+    const manifest = ZArchiveManifest.safeParse(rawManifest);
+    if (!manifest.success) {
+      const why =
+        rawManifest === null
+          ? 'missing'
+          : `not a valid manifest (${manifest.error.issues[0]?.path.join('.')}: ${manifest.error.issues[0]?.message})`;
+      check('manifest', false, layout.MANIFEST_PATH, `${layout.MANIFEST_PATH}: ${why}`);
+    } else {
+      check(
+        'manifest',
+        true,
+        layout.MANIFEST_PATH,
+        `${layout.MANIFEST_PATH}: ${manifest.data.format}, case ${manifest.data.case.reference}, exported ${manifest.data.exportedAt} by ${manifest.data.exportedBy.email}, ${manifest.data.files.length} files`,
+      );
+      checks.push(
+        ...compareWithManifest(
+          manifest.data.files,
+          read.found,
+          new Set([layout.MANIFEST_PATH, layout.MANIFEST_SIGNATURE_PATH]),
+        ),
+      );
+    }
+    await checkSignatures(read, parseJson<JSONWebKeySet>(read, layout.JWKS_PATH, check), check);
+    const chain = parseJson<AuditChainEntry[]>(read, layout.AUDIT_CHAIN_PATH, check);
+    if (!Array.isArray(chain))
+      check(
+        'audit-chain',
+        false,
+        layout.AUDIT_CHAIN_PATH,
+        `${layout.AUDIT_CHAIN_PATH}: missing or not a list of entries`,
+      );
+    else {
+      const report = verifyAuditChain(chain);
+      if (report.ok)
+        check(
+          'audit-chain',
+          true,
+          layout.AUDIT_CHAIN_PATH,
+          `${layout.AUDIT_CHAIN_PATH}: ${report.entries} entries, hash chain intact`,
+        );
+      else
+        check(
+          'audit-chain',
+          false,
+          layout.AUDIT_CHAIN_PATH,
+          `${layout.AUDIT_CHAIN_PATH}: chain broken at entry ${report.firstBroken?.chainSeq} (${report.firstBroken?.reason})`,
+        );
+    }
+    if (options.skipReplays)
+      check('replay', true, null, 'replays: re-run skipped on request (digests not checked)');
+    else await checkReplays(read, check);
+  } finally {
+    await fs.promises.rm(tempDir, { recursive: true, force: true });
+  }
+  return { ok: checks.every((c) => c.ok), archiveSha256, checks };
+}
+
+/** One line per check, as the CLI prints them. */
+export function formatCheckLine(check: TArchiveCheck): string {
+  return `${check.ok ? 'ok  ' : 'FAIL'} ${check.kind.padEnd(11)} ${check.message}`;
+}

@@ -1,0 +1,132 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Writable } from 'node:stream';
+import type { Bundle } from '../../../../shared/bundle/types';
+import {
+  ARCHIVE_FORMAT,
+  type TArchiveExport,
+  type TArchiveManifest,
+} from '../../../../shared/contracts/archives';
+import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
+import { buildArchiveEntries } from '../../archive/archive-entries';
+import { type CaseEvidenceSources, collectCaseEvidence } from '../../archive/collect-case-evidence';
+import { renderReport } from '../../archive/report/render-report';
+import { signManifest } from '../../archive/sign-manifest';
+import { writeArchive } from '../../archive/write-archive';
+import { PROJECT_ROOT } from '../../config';
+import { loadBundleForReplay } from '../../replays/replay-bundle-file';
+import type { AuditService } from '../audit/audit-service';
+import type { Notifications } from '../mail/notifications';
+import type { SigningKeyStore } from '../signing/signing-key';
+
+/** Bundles larger than this are archived byte for byte but not parsed for the report's pictures. */
+const REPORT_PARSE_LIMIT_BYTES = 256 * 1024 * 1024;
+
+export interface ArchiveExporter {
+  id: string;
+  email: string;
+  role: string;
+}
+
+export function readProductVersion(): string {
+  return (JSON.parse(fs.readFileSync(path.join(PROJECT_ROOT, 'package.json'), 'utf8')) as { version: string })
+    .version;
+}
+
+/** Evidence archives: streamed export with custody, and the list of past exports. */
+export function createArchiveService(deps: {
+  sources: CaseEvidenceSources;
+  keys: SigningKeyStore;
+  audit: AuditService;
+  notify: Notifications;
+  maxUnpackedBytes: number;
+}) {
+  const productVersion = readProductVersion();
+
+  async function parseForReport(evidence: Awaited<ReturnType<typeof collectCaseEvidence>>) {
+    const parsed = new Map<string, Bundle | null>();
+    const replayed = new Set(evidence.replays.map((r) => r.bundleSha256));
+    for (const { record, originalPath } of evidence.bundles) {
+      const isUseful = record.status === 'valid' && replayed.has(record.sha256);
+      if (!isUseful || record.sizeBytes > REPORT_PARSE_LIMIT_BYTES) continue;
+      parsed.set(
+        record.sha256,
+        await loadBundleForReplay(originalPath, deps.maxUnpackedBytes).catch(() => null),
+      );
+    }
+    return parsed;
+  }
+
+  /**
+   * Reads the case (so a missing case fails before any byte is sent) and returns its file name and
+   * a writer. The writer streams the zip into `sink`, appends the custody entry with the archive's
+   * SHA-256 to the case's audit trail, notifies legal, and only then ends `sink`.
+   */
+  async function prepareExport(caseId: string, exporter: ArchiveExporter) {
+    const evidence = await collectCaseEvidence(caseId, deps.sources);
+    const reference = evidence.caseRecord.reference;
+    return {
+      fileName: `${reference}-evidence.zip`,
+      async writeTo(sink: Writable) {
+        const entries = buildArchiveEntries(evidence);
+        const report = renderReport({
+          evidence,
+          bundles: await parseForReport(evidence),
+          productVersion,
+          safetyCaution: SAFETY_CAUTION,
+        });
+        entries.unshift({ path: 'report.html', data: Buffer.from(report, 'utf8') });
+        const exportedAt = new Date().toISOString();
+        const key = await deps.keys.current();
+        const written = await writeArchive(
+          entries,
+          sink,
+          (files): TArchiveManifest => ({
+            format: ARCHIVE_FORMAT,
+            case: { id: caseId, reference, title: evidence.caseRecord.title },
+            exportedAt,
+            exportedBy: exporter,
+            productVersion,
+            safetyCaution: SAFETY_CAUTION,
+            files,
+          }),
+          (bytes) => signManifest(bytes, key, { signedBy: exporter.email, signedAt: exportedAt }),
+        );
+        await deps.audit.append({
+          actor: exporter,
+          action: 'archive.export',
+          targetType: 'archive',
+          targetId: written.sha256,
+          caseId,
+          payload: { exportedAt, files: written.files },
+          details: { sha256: written.sha256, size: written.size, files: written.files.length },
+        });
+        await deps.notify.archiveExported({
+          caseId,
+          sha256: written.sha256,
+          exportedByEmail: exporter.email,
+        });
+        return written;
+      },
+    };
+  }
+
+  /** Past exports of a case, oldest first, read from its audit trail (the custody record). */
+  async function listExports(caseId: string): Promise<TArchiveExport[]> {
+    await deps.sources.getCase(caseId);
+    const chain = await deps.audit.readCaseChain(caseId);
+    return chain
+      .filter((entry) => entry.action === 'archive.export')
+      .map((entry) => ({
+        auditEntry: entry.chainSeq,
+        exportedAt: entry.at,
+        exportedBy: entry.actorEmail,
+        sha256: String(entry.details.sha256),
+        size: typeof entry.details.size === 'number' ? entry.details.size : null,
+      }));
+  }
+
+  return { prepareExport, listExports };
+}
+
+export type ArchiveService = ReturnType<typeof createArchiveService>;
