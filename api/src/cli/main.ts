@@ -14,7 +14,10 @@ const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandMod
     summary: 'replay PATH [options]          re-run the particle filter over a bundle',
     load: () => import('./commands/replay'),
   },
-  'verify-archive': { summary: 'verify-archive FILE.zip [--json]  check an evidence archive offline', load: () => import('./commands/verify-archive') },
+  'verify-archive': {
+    summary: 'verify-archive FILE.zip [--json]  check an evidence archive offline',
+    load: () => import('./commands/verify-archive'),
+  },
 };
 
 function printUsage(): void {
