@@ -1,11 +1,18 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { paths } from '@web/config/paths';
 import { createBrowserRouter, type LoaderFunctionArgs, redirect } from 'react-router-dom';
+import { AuditRoute, auditLoader } from './routes/audit';
+import { BundleSqlConsoleRoute } from './routes/bundle-sql-console';
 import { CaseDetailRoute, caseDetailLoader } from './routes/case-detail';
 import { CasesRoute } from './routes/cases';
+import { FindingsRoute } from './routes/findings';
+import { FindingsDiffRoute } from './routes/findings-diff';
+import { FindingsVersionRoute } from './routes/findings-version';
+import { FixesRoute } from './routes/fixes';
 import { requireSession } from './routes/guards';
 import { NewCaseRoute, newCaseLoader } from './routes/new-case';
 import { NotFoundRoute } from './routes/not-found';
+import { OutboxRoute, outboxLoader } from './routes/outbox';
 import { RouteError } from './routes/route-error';
 import { SignInRoute, signInLoader } from './routes/sign-in';
 import { UsersRoute, usersLoader } from './routes/users';
@@ -55,11 +62,40 @@ export function createAppRouter(queryClient: QueryClient) {
               element: <CaseDetailRoute />,
               handle: title('Cases / Case'),
             },
+            { path: paths.caseFindings.path, element: <FindingsRoute />, handle: title('Cases / Findings') },
+            {
+              path: paths.caseFindingsVersion.path,
+              element: <FindingsVersionRoute />,
+              handle: title('Cases / Findings / Version'),
+            },
+            {
+              path: paths.caseFindingsDiff.path,
+              element: <FindingsDiffRoute />,
+              handle: title('Cases / Findings / Changes'),
+            },
+            { path: paths.caseFixes.path, element: <FixesRoute />, handle: title('Cases / Fixes') },
+            {
+              path: paths.caseAudit.path,
+              loader: auditLoader(queryClient),
+              element: <AuditRoute />,
+              handle: title('Cases / Audit trail'),
+            },
+            {
+              path: paths.outbox.path,
+              loader: outboxLoader(queryClient),
+              element: <OutboxRoute />,
+              handle: title('Administration / Outbox'),
+            },
             {
               path: paths.users.path,
               loader: usersLoader(queryClient),
               element: <UsersRoute />,
               handle: title('Administration / Users'),
+            },
+            {
+              path: paths.bundleSqlConsole.path,
+              element: <BundleSqlConsoleRoute />,
+              handle: title('Cases / Bundle / SQL console'),
             },
             { path: '*', element: <NotFoundRoute />, handle: title('Not found') },
           ],

@@ -1,6 +1,6 @@
 import { ROLES, type Role } from '@shared/roles';
 import { paths } from '@web/config/paths';
-import { FilePlus2, FolderKanban, type LucideIcon, Users } from 'lucide-react';
+import { FilePlus2, FolderKanban, Inbox, type LucideIcon, Mail, Users } from 'lucide-react';
 
 export interface NavItem {
   label: string;
@@ -32,11 +32,22 @@ export const NAV_SECTIONS: NavSection[] = [
         isCurrent: (pathname) => pathname.startsWith(paths.cases.href()) && pathname !== paths.newCase.href(),
       },
       { label: 'New case', href: paths.newCase.href(), icon: FilePlus2, roles: ['investigator'] },
+      {
+        label: 'Review queue',
+        href: paths.reviewQueue.href(),
+        icon: Inbox,
+        roles: ['reviewer'],
+        // The case list with the in-review filter; "Cases" stays current for the unfiltered list.
+        isCurrent: () => false,
+      },
     ],
   },
   {
     label: 'Administration',
-    items: [{ label: 'Users', href: paths.users.href(), icon: Users, roles: ['admin'] }],
+    items: [
+      { label: 'Users', href: paths.users.href(), icon: Users, roles: ['admin'] },
+      { label: 'Outbox', href: paths.outbox.href(), icon: Mail, roles: ['admin'] },
+    ],
   },
 ];
 

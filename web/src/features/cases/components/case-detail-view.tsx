@@ -5,6 +5,10 @@ import { SeverityBadge } from '@web/components/severity-badge';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
+import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
+import { useMe } from '@web/features/auth/api/get-me';
+import { CaseHoldPanel } from '@web/features/holds/components/case-hold-panel';
+import { CaseWorkSection } from '@web/features/lifecycle/components/case-work-section';
 import { isApiError } from '@web/lib/api-client';
 import { formatUtcDateTime } from '@web/lib/date-time';
 import { ArrowLeft, FileArchive, FileQuestion } from 'lucide-react';
@@ -52,6 +56,7 @@ const PANEL = 'rounded-lg border border-canvas-line bg-canvas-raised p-5 shadow-
 
 export function CaseDetailView({ caseId }: { caseId: string }) {
   const caseQuery = useCase(caseId);
+  const role = useMe().data?.user.role;
   const backLink = (
     <Link to={paths.cases.href()} className="inline-flex items-center gap-1 text-accent hover:underline">
       <ArrowLeft aria-hidden className="size-4" />
@@ -102,6 +107,23 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
         title={item.title}
         actions={<CaseStatusBadge status={item.status} />}
       />
+      {role && <CaseHoldPanel caseId={caseId} role={role} />}
+      {role === 'legal' && (
+        <section aria-labelledby="case-archive" className={`${PANEL} mb-5`}>
+          <h2 id="case-archive" className="mb-3 text-base font-bold">
+            Evidence archive
+          </h2>
+          <CaseArchivesPanel caseId={caseId} />
+        </section>
+      )}
+      {role && (
+        <section aria-labelledby="case-work" className={`${PANEL} mb-5`}>
+          <h2 id="case-work" className="mb-3 text-base font-bold">
+            Case work
+          </h2>
+          <CaseWorkSection caseId={caseId} role={role} />
+        </section>
+      )}
       <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
         <section aria-labelledby="case-facts" className={PANEL}>
           <h2 id="case-facts" className="text-base font-bold">
