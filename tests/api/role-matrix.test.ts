@@ -5,6 +5,7 @@ import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
 import { bundleViewSamples } from '../support/bundle-view-samples';
+import { archiveSamples } from '../support/archive-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { evidenceSamples } from '../support/evidence-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -40,6 +41,7 @@ const unique = () => `${Date.now()}-${uniqueCounter++}`;
 
 const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promise<Sample>> = {
   ...caseWorkSamples(() => t),
+  ...archiveSamples(() => t),
   ...evidenceSamples(() => t),
   ...bundleViewSamples(),
   'get /health': () => ({ path: '/api/health' }),

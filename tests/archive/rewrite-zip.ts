@@ -18,7 +18,7 @@ export async function readZipEntries(file: string): Promise<Map<string, Buffer>>
 export async function writeZipEntries(file: string, entries: Map<string, Buffer>): Promise<string> {
   const archive = new ZipArchive({ zlib: { level: 1 } });
   const output = fs.createWriteStream(file);
-  const closed = new Promise((resolve, reject) => {
+  const closed = new Promise<void>((resolve, reject) => {
     output.on('close', resolve);
     archive.on('error', reject);
   });
