@@ -6,6 +6,7 @@ import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
 import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
+import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
 import { useMe } from '@web/features/auth/api/get-me';
 import { CaseHoldPanel } from '@web/features/holds/components/case-hold-panel';
 import { CaseWorkSection } from '@web/features/lifecycle/components/case-work-section';
@@ -108,6 +109,14 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
         actions={<CaseStatusBadge status={item.status} />}
       />
       {role && <CaseHoldPanel caseId={caseId} role={role} />}
+      {role === 'legal' && (
+        <section aria-labelledby="case-archive" className={`${PANEL} mb-5`}>
+          <h2 id="case-archive" className="mb-3 text-base font-bold">
+            Evidence archive
+          </h2>
+          <CaseArchivesPanel caseId={caseId} />
+        </section>
+      )}
       {role === 'legal' && (
         <section aria-labelledby="case-archive" className={`${PANEL} mb-5`}>
           <h2 id="case-archive" className="mb-3 text-base font-bold">
