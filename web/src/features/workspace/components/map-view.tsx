@@ -1,0 +1,217 @@
+import type { TBundleMap, TBundleTracks } from '@shared/contracts/bundle-views';
+import type { TReplayStepResponse } from '@shared/contracts/replays';
+import { Button } from '@web/components/button';
+import { Crosshair, Maximize, Minus, Plus } from 'lucide-react';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { useReplayDisagreement } from '../api/get-replay-disagreement';
+import { useElementWidth } from '../hooks/use-element-width';
+import { useMapViewport } from '../hooks/use-map-viewport';
+import {
+  drawCovarianceEllipse,
+  drawFootprint,
+  drawLandmarks,
+  drawParticles,
+  drawPose,
+  drawScanEndpoints,
+  gridImage,
+  SERIES_COLOURS,
+} from '../lib/map-drawing';
+import { mapToScreen, nearestParticle, scaleBarLength, screenToMap } from '../lib/map-viewport';
+import { poseAtTime } from '../lib/pose-at-time';
+import { MapLegend } from './map-legend';
+
+export interface MapViewProps {
+  map: TBundleMap;
+  tracks: TBundleTracks | undefined;
+  replayId: string;
+  /** The particle set on screen (may lag the cursor by a step while the next one loads). */
+  particles: TReplayStepResponse | undefined;
+  /** Cursor time, s since start_time. */
+  time: number;
+  label?: string;
+  height?: number;
+}
+
+/** Canvas view of the map with the replay's belief, the onboard and reference poses at the cursor. */
+export function MapView({
+  map,
+  tracks,
+  replayId,
+  particles,
+  time,
+  label = 'Map',
+  height = 420,
+}: MapViewProps) {
+  const [containerRef, width] = useElementWidth<HTMLDivElement>();
+  const canvasRef = useRef<HTMLCanvasElement>(null);
+  const [isFollowing, setIsFollowing] = useState(false);
+  const [showHeat, setShowHeat] = useState(false);
+  const [hover, setHover] = useState<{ px: number; py: number; index: number } | null>(null);
+  const [drawnCount, setDrawnCount] = useState(0);
+  const heat = useReplayDisagreement(replayId, showHeat);
+  const follow = isFollowing && particles ? particles.mean : null;
+  const { view, zoom, fitToMap, handlers } = useMapViewport(map, width, height, follow);
+  const onboard = useMemo(() => poseAtTime(tracks?.onboard, time), [tracks, time]);
+  const reference = useMemo(() => poseAtTime(tracks?.reference, time), [tracks, time]);
+
+  // The grid is drawn once into an offscreen canvas, then scaled on every frame.
+  const gridCanvas = useMemo(() => {
+    if (!map.rows) return null;
+    const canvas = document.createElement('canvas');
+    canvas.width = map.width;
+    canvas.height = map.height;
+    canvas
+      .getContext('2d')
+      ?.putImageData(gridImage(map.rows, map.width, showHeat ? heat.data : undefined), 0, 0);
+    return canvas;
+  }, [map, showHeat, heat.data]);
+
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    if (!canvas || !view || width === 0) return;
+    const frame = requestAnimationFrame(() => {
+      const ratio = window.devicePixelRatio || 1;
+      if (canvas.width !== width * ratio) canvas.width = width * ratio;
+      if (canvas.height !== height * ratio) canvas.height = height * ratio;
+      const ctx = canvas.getContext('2d');
+      if (!ctx) return;
+      ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+      ctx.fillStyle = '#eceee8';
+      ctx.fillRect(0, 0, width, height);
+      const f = { ctx, view, width, height };
+      if (gridCanvas) {
+        const [x0, y0] = mapToScreen(
+          view,
+          width,
+          height,
+          map.origin[0],
+          map.origin[1] + map.height * map.resolution,
+        );
+        ctx.imageSmoothingEnabled = false;
+        ctx.drawImage(
+          gridCanvas,
+          x0,
+          y0,
+          map.width * map.resolution * view.pxPerMetre,
+          map.height * map.resolution * view.pxPerMetre,
+        );
+      }
+      drawLandmarks(f, map.landmarks);
+      let count = 0;
+      if (particles) {
+        drawScanEndpoints(f, particles.scanEndpoints);
+        count = drawParticles(f, particles);
+        drawCovarianceEllipse(f, particles);
+        drawFootprint(f, map.footprint, particles.mean.x, particles.mean.y, particles.mean.theta);
+        drawPose(f, particles.mean.x, particles.mean.y, particles.mean.theta, SERIES_COLOURS.replay);
+      }
+      if (reference) drawPose(f, reference.x, reference.y, reference.theta, SERIES_COLOURS.reference, 4);
+      if (onboard) drawPose(f, onboard.x, onboard.y, onboard.theta, SERIES_COLOURS.onboard, 4);
+      canvas.dataset.drawnStep = String(particles?.step ?? -1);
+      setDrawnCount(count);
+      // Frame timestamps for the scrub benchmark (performance timeline).
+      performance.mark('map-frame');
+    });
+    return () => cancelAnimationFrame(frame);
+  }, [view, width, height, gridCanvas, map, particles, onboard, reference]);
+
+  const bar = view ? scaleBarLength(view.pxPerMetre) : null;
+  const hovered = hover && particles && hover.index >= 0 ? hover : null;
+
+  return (
+    <figure aria-label={label} className="relative m-0">
+      <div ref={containerRef} className="relative overflow-hidden rounded-md border border-canvas-line">
+        <canvas
+          ref={canvasRef}
+          role="img"
+          aria-label={`${label}: occupancy grid with the replay's particles at ${time.toFixed(2)} s; drag to pan, wheel to zoom`}
+          data-testid="map-canvas"
+          data-particle-count={drawnCount}
+          style={{ width, height, touchAction: 'none' }}
+          className="block cursor-grab active:cursor-grabbing"
+          onWheel={handlers.onWheel}
+          onPointerDown={handlers.onPointerDown}
+          onPointerUp={handlers.onPointerUp}
+          onPointerLeave={() => setHover(null)}
+          onPointerMove={(event) => {
+            if (handlers.dragTo(event)) {
+              setIsFollowing(false);
+              return;
+            }
+            if (!view || !particles) return;
+            const rect = event.currentTarget.getBoundingClientRect();
+            const px = event.clientX - rect.left;
+            const py = event.clientY - rect.top;
+            const [mx, my] = screenToMap(view, width, height, px, py);
+            setHover({
+              px,
+              py,
+              index: nearestParticle(particles.x, particles.y, mx, my, 6 / view.pxPerMetre),
+            });
+          }}
+        />
+        {hovered && particles && (
+          <div
+            role="tooltip"
+            className="pointer-events-none absolute z-10 rounded border border-canvas-line bg-canvas-raised px-2 py-1 text-xs tabular-nums shadow"
+            style={{ left: Math.min(hovered.px + 12, width - 180), top: hovered.py + 12 }}
+          >
+            Particle {hovered.index + 1}: x {particles.x[hovered.index].toFixed(2)}{' '}
+            <span className="text-ink-muted">m</span>, y {particles.y[hovered.index].toFixed(2)}{' '}
+            <span className="text-ink-muted">m</span>, θ{' '}
+            {((particles.theta[hovered.index] * 180) / Math.PI).toFixed(1)}
+            <span className="text-ink-muted">°</span>, weight{' '}
+            {particles.weight[hovered.index].toExponential(2)}
+          </div>
+        )}
+        {bar && (
+          <div
+            data-testid="scale-bar"
+            className="absolute bottom-2 left-2 rounded bg-white/85 px-1.5 py-0.5 text-xs"
+          >
+            <div className="h-1.5 border-x-2 border-b-2 border-ink" style={{ width: bar.px }} />
+            <span className="sr-only">Scale bar: </span>
+            {bar.metres} <span className="text-ink-muted">m</span>
+          </div>
+        )}
+        <div className="absolute top-2 right-2 flex flex-col gap-1">
+          <Button size="sm" icon={Plus} aria-label="Zoom in" title="Zoom in" onClick={() => zoom(1.5)} />
+          <Button
+            size="sm"
+            icon={Minus}
+            aria-label="Zoom out"
+            title="Zoom out"
+            onClick={() => zoom(1 / 1.5)}
+          />
+          <Button
+            size="sm"
+            icon={Maximize}
+            aria-label="Show the whole map"
+            title="Show the whole map"
+            onClick={fitToMap}
+          />
+        </div>
+      </div>
+      <figcaption className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-sm">
+        <label className="flex items-center gap-1.5">
+          <input type="checkbox" checked={isFollowing} onChange={(e) => setIsFollowing(e.target.checked)} />
+          <Crosshair aria-hidden className="size-4" /> Follow robot
+        </label>
+        <label className="flex items-center gap-1.5">
+          <input type="checkbox" checked={showHeat} onChange={(e) => setShowHeat(e.target.checked)} />
+          Map-disagreement heat map
+          {showHeat && heat.isFetching && <span className="text-ink-muted">(loading…)</span>}
+          {showHeat && heat.isError && (
+            <span className="text-state-bad">(not available: {heat.error.message})</span>
+          )}
+        </label>
+        <span className="text-ink-muted tabular-nums">
+          {particles ? `${drawnCount} of ${particles.count} particles drawn` : 'Loading particles…'}
+        </span>
+      </figcaption>
+      <div className="mt-1">
+        <MapLegend />
+      </div>
+    </figure>
+  );
+}

@@ -1,0 +1,322 @@
+import type { TBundleTracks } from '@shared/contracts/bundle-views';
+import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/replays';
+import { axisBottom, brushX, scaleLinear, select } from 'd3';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { useElementWidth } from '../hooks/use-element-width';
+import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
+import { buildTrackPath, markerPositions } from '../lib/track-path';
+import { TimelineMarkers } from './timeline-markers';
+
+const LEFT = 132;
+const RIGHT = 16;
+const TRACK_HEIGHT = 46;
+const TRACK_GAP = 10;
+const BAND_HEIGHT = 44;
+
+interface TrackLine {
+  times: ArrayLike<number>;
+  values: ArrayLike<number | null>;
+  colour: string;
+  dashed?: boolean;
+}
+interface TrackSpec {
+  id: string;
+  label: string;
+  unit: string;
+  lines: TrackLine[];
+  /** Horizontal reference line (e.g. the resampling threshold), value in track units. */
+  rule?: { value: number; label: string };
+}
+
+export interface TimelineProps {
+  series: TReplaySeriesResponse;
+  tracks: TBundleTracks | undefined;
+  clearance: (number | null)[] | undefined;
+  flags: TReplayFlag[];
+  step: number;
+  onSeek: (step: number) => void;
+  /** Accessible name, to tell two timelines apart on the comparison page. */
+  label?: string;
+}
+
+function useTrackSpecs(
+  series: TReplaySeriesResponse,
+  tracks: TBundleTracks | undefined,
+  clearance?: (number | null)[],
+) {
+  return useMemo<TrackSpec[]>(() => {
+    const c = series.columns;
+    const t = c.t as number[];
+    const particles = c.particles?.[0] ?? 0;
+    const specs: TrackSpec[] = [
+      {
+        id: 'ess',
+        label: 'Effective sample size',
+        unit: 'particles',
+        lines: [{ times: t, values: c.ess, colour: '#0072B2' }],
+        rule: particles
+          ? { value: series.resamplingThreshold * particles, label: 'resampling threshold' }
+          : undefined,
+      },
+      {
+        id: 'loglik',
+        label: 'Log-likelihood',
+        unit: 'nats',
+        lines: [{ times: t, values: c.log_likelihood, colour: '#0072B2' }],
+      },
+      {
+        id: 'error',
+        label: 'Position error',
+        unit: 'm',
+        lines: [
+          { times: t, values: c.error_reference, colour: '#009E73' },
+          { times: t, values: c.error_onboard, colour: '#E69F00', dashed: true },
+        ],
+      },
+    ];
+    if (tracks) {
+      const speed: TrackLine[] = [{ times: tracks.speed.t, values: tracks.speed.speed, colour: '#5a6472' }];
+      if (tracks.commands)
+        speed.push({ times: tracks.commands.t, values: tracks.commands.v, colour: '#8a93a0', dashed: true });
+      specs.push({ id: 'speed', label: 'Speed', unit: 'm/s', lines: speed });
+    }
+    if (clearance) {
+      specs.push({
+        id: 'clearance',
+        label: 'Clearance to obstacle',
+        unit: 'm',
+        lines: [{ times: t, values: clearance, colour: '#0072B2' }],
+        rule: { value: 0, label: 'footprint touches' },
+      });
+    }
+    return specs;
+  }, [series, tracks, clearance]);
+}
+
+const formatValue = (v: number) =>
+  Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(1) : v.toFixed(2);
+
+/** Stacked diagnostic tracks over the replay's time, with events, flags, zoom brush and cursor. */
+export function Timeline({
+  series,
+  tracks,
+  clearance,
+  flags,
+  step,
+  onSeek,
+  label = 'Replay timeline',
+}: TimelineProps) {
+  const [containerRef, width] = useElementWidth<HTMLDivElement>();
+  const axisRef = useRef<SVGGElement>(null);
+  const brushRef = useRef<SVGGElement>(null);
+  const times = series.columns.t as number[];
+  const full = useMemo<TimeDomain>(() => ({ start: times[0] ?? 0, end: times.at(-1) ?? 0 }), [times]);
+  const [domain, setDomain] = useState<TimeDomain>(full);
+  const [hovered, setHovered] = useState<TReplayFlag | null>(null);
+  useEffect(() => setDomain(full), [full]);
+  const specs = useTrackSpecs(series, tracks, clearance);
+  const plotWidth = Math.max(50, width - LEFT - RIGHT);
+  const scale = useMemo(() => createTimeScale(domain, LEFT, LEFT + plotWidth), [domain, plotWidth]);
+  const tracksTop = BAND_HEIGHT + 24;
+  const height = tracksTop + specs.length * (TRACK_HEIGHT + TRACK_GAP) + 4;
+  const seekRef = useRef(onSeek);
+  seekRef.current = onSeek;
+
+  useEffect(() => {
+    if (!axisRef.current || width === 0) return;
+    const axisScale = scaleLinear()
+      .domain([scale.domain.start, scale.domain.end])
+      .range([LEFT, LEFT + plotWidth]);
+    const ticks = Math.max(2, Math.floor(plotWidth / 90));
+    select(axisRef.current).call(
+      axisBottom(axisScale)
+        .ticks(ticks)
+        .tickFormat((v) => `${v} s`),
+    );
+  }, [scale.domain.start, scale.domain.end, plotWidth, width]);
+
+  useEffect(() => {
+    if (!brushRef.current || width === 0) return;
+    const group = select(brushRef.current);
+    const brush = brushX<unknown>()
+      .extent([
+        [LEFT, tracksTop],
+        [LEFT + plotWidth, height],
+      ])
+      .on('end', (event) => {
+        const selection = event.selection as [number, number] | null;
+        if (selection) {
+          setDomain(
+            clampDomain({ start: scale.toTime(selection[0]), end: scale.toTime(selection[1]) }, full),
+          );
+          group.call(brush.move, null);
+        } else if (event.sourceEvent && 'offsetX' in event.sourceEvent) {
+          // A click without a drag moves the cursor there.
+          const k = nearestStep(times, scale.toTime((event.sourceEvent as MouseEvent).offsetX));
+          if (k >= 0) seekRef.current(k);
+        }
+      });
+    group.call(brush);
+    return () => {
+      group.on('.brush', null);
+    };
+  }, [width, plotWidth, height, tracksTop, scale, full, times]);
+
+  const resamplingTicks = useMemo(
+    () => markerPositions(times, (k) => (series.columns.resampled[k] ?? 0) > 0, domain, scale.toPx),
+    [times, series, domain, scale],
+  );
+  // Tracks depend on the zoom only, not on the cursor: scrubbing must not rebuild them.
+  const trackElements = useMemo(
+    () => (
+      <>
+        {specs.map((spec, index) => {
+          const top = tracksTop + index * (TRACK_HEIGHT + TRACK_GAP);
+          const geometries = spec.lines.map((line) =>
+            buildTrackPath(line.times, line.values, domain, plotWidth, TRACK_HEIGHT, scale.toPx),
+          );
+          const extents = geometries.flatMap((g) => (g.extent ? g.extent : []));
+          const low = extents.length ? Math.min(...extents, spec.rule?.value ?? Number.POSITIVE_INFINITY) : 0;
+          const high = extents.length
+            ? Math.max(...extents, spec.rule?.value ?? Number.NEGATIVE_INFINITY)
+            : 1;
+          const shared = spec.lines.map((line) =>
+            buildTrackPath(line.times, line.values, domain, plotWidth, TRACK_HEIGHT, scale.toPx, [low, high]),
+          );
+          const ruleY = spec.rule
+            ? TRACK_HEIGHT - ((spec.rule.value - low) / (high - low || 1)) * TRACK_HEIGHT
+            : null;
+          return (
+            <g key={spec.id} transform={`translate(0, ${top})`} data-track={spec.id}>
+              <rect x={LEFT} y={0} width={plotWidth} height={TRACK_HEIGHT} fill="#fafbf8" stroke="#d9dcd4" />
+              <text x={8} y={14} className="fill-ink text-xs font-bold">
+                {spec.label}
+              </text>
+              <text x={8} y={28} className="fill-ink-muted text-xs">
+                {spec.unit}
+              </text>
+              {extents.length > 0 && (
+                <>
+                  <text x={LEFT - 4} y={10} textAnchor="end" className="fill-ink-muted text-xs tabular-nums">
+                    {formatValue(high)}
+                  </text>
+                  <text
+                    x={LEFT - 4}
+                    y={TRACK_HEIGHT}
+                    textAnchor="end"
+                    className="fill-ink-muted text-xs tabular-nums"
+                  >
+                    {formatValue(low)}
+                  </text>
+                </>
+              )}
+              {ruleY !== null && Number.isFinite(ruleY) && (
+                <line
+                  x1={LEFT}
+                  x2={LEFT + plotWidth}
+                  y1={ruleY}
+                  y2={ruleY}
+                  stroke="#5a6472"
+                  strokeDasharray="4 3"
+                >
+                  <title>{spec.rule?.label}</title>
+                </line>
+              )}
+              {spec.id === 'ess' &&
+                resamplingTicks.map((x) => (
+                  <line
+                    key={x}
+                    x1={x}
+                    x2={x}
+                    y1={TRACK_HEIGHT - 5}
+                    y2={TRACK_HEIGHT}
+                    stroke="#0072B2"
+                    strokeOpacity={0.6}
+                  />
+                ))}
+              {shared.map((g, i) => (
+                <path
+                  key={spec.lines[i].colour}
+                  d={g.path}
+                  fill="none"
+                  stroke={spec.lines[i].colour}
+                  strokeWidth={1.3}
+                  strokeDasharray={spec.lines[i].dashed ? '3 2' : undefined}
+                />
+              ))}
+              {extents.length === 0 && (
+                <text x={LEFT + 8} y={TRACK_HEIGHT / 2 + 4} className="fill-ink-faint text-xs italic">
+                  no data for this track
+                </text>
+              )}
+            </g>
+          );
+        })}
+      </>
+    ),
+    [specs, domain, plotWidth, scale, tracksTop, resamplingTicks],
+  );
+  const cursorX = scale.toPx(times[step] ?? 0);
+
+  return (
+    <div ref={containerRef} className="relative w-full">
+      <svg
+        role="img"
+        aria-label={`${label}: diagnostics over time; drag to zoom, double-click to show everything`}
+        width={width}
+        height={height}
+        className="block select-none text-ink"
+        onDoubleClick={() => setDomain(full)}
+        data-testid="timeline"
+        data-drawn-steps={times.length}
+      >
+        <g ref={axisRef} transform={`translate(0, ${BAND_HEIGHT + 2})`} className="text-xs text-ink-muted" />
+        <TimelineMarkers
+          flags={flags}
+          events={tracks?.events ?? []}
+          toPx={scale.toPx}
+          domain={domain}
+          left={LEFT}
+          right={LEFT + plotWidth}
+          onHover={setHovered}
+          onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
+        />
+        {trackElements}
+        <g ref={brushRef} />
+        {cursorX >= LEFT && cursorX <= LEFT + plotWidth && (
+          <line
+            x1={cursorX}
+            x2={cursorX}
+            y1={0}
+            y2={height}
+            stroke="#1b2430"
+            strokeWidth={1.5}
+            pointerEvents="none"
+            data-testid="timeline-cursor"
+          />
+        )}
+      </svg>
+      {hovered && (
+        <div
+          role="tooltip"
+          className="pointer-events-none absolute top-6 left-36 z-10 max-w-md rounded-md border border-canvas-line bg-canvas-raised p-2 text-xs shadow-md"
+        >
+          <p className="font-bold">
+            {hovered.kind.replaceAll('_', ' ')} · {hovered.severity} · {hovered.start.toFixed(1)}–
+            {hovered.end.toFixed(1)} <span className="font-normal text-ink-muted">s</span>
+          </p>
+          <p className="mt-1 text-ink-muted">{hovered.evidence}</p>
+        </div>
+      )}
+      {(domain.start !== full.start || domain.end !== full.end) && (
+        <button
+          type="button"
+          className="absolute top-0 right-4 rounded border border-canvas-line bg-canvas-raised px-2 text-xs"
+          onClick={() => setDomain(full)}
+        >
+          Show whole replay
+        </button>
+      )}
+    </div>
+  );
+}
