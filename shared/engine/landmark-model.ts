@@ -66,11 +66,14 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
 
 /**
  * Best association term max_l N(r) N(b) P(reported | class_l) for a robot at (poseX, poseY,
- * poseTheta). Landmarks are considered when their distance d satisfies d <= max_range and
- * |r - d| <= RANGE_GATE_SIGMAS sigma_r, tested on d^2 against [lowerSquared, upperSquared].
+ * poseTheta) over the landmarks candidates[0..candidateCount). A landmark is considered when its
+ * distance d satisfies d <= max_range and |r - d| <= RANGE_GATE_SIGMAS sigma_r, tested on d^2
+ * against [lowerSquared, upperSquared].
  */
 function bestAssociation(
   model: LandmarkModel,
+  candidates: Int32Array,
+  candidateCount: number,
   poseX: number,
   poseY: number,
   poseTheta: number,
@@ -83,13 +86,13 @@ function bestAssociation(
   const inverseRangeVariance = 1 / (model.rangeSigma * model.rangeSigma);
   const inverseBearingVariance = 1 / (model.bearingSigma * model.bearingSigma);
   let best = 0;
-  for (let l = 0; l < model.count; l++) {
+  for (let c = 0; c < candidateCount; c++) {
+    const l = candidates[c];
     const dx = model.x[l] - poseX;
     const dy = model.y[l] - poseY;
     const distanceSquared = dx * dx + dy * dy;
     if (distanceSquared > upperSquared || distanceSquared < lowerSquared) continue;
     const trueClass = model.classIndex[l];
-    if (trueClass < 0) continue;
     const rangeResidual = range - Math.sqrt(distanceSquared);
     let bearingResidual = bearing - (Math.atan2(dy, dx) - poseTheta);
     if (bearingResidual > Math.PI || bearingResidual <= -Math.PI) {
@@ -117,6 +120,39 @@ function gateWindow(model: LandmarkModel, range: number): [number, number] {
 }
 
 /**
+ * Writes to `candidates` the landmarks of known class whose squared distance to some point of the
+ * box [minX, maxX] x [minY, maxY] (m) can fall in [lowerSquared, upperSquared], and returns how
+ * many. The box bounds use the same subtractions and squares as the per-particle gate, and rounded
+ * arithmetic is monotone, so every landmark a particle in the box would pass is kept: filtering
+ * changes no result, it only spares the per-particle loop the landmarks no particle can see.
+ */
+function gateCandidates(
+  model: LandmarkModel,
+  minX: number,
+  maxX: number,
+  minY: number,
+  maxY: number,
+  lowerSquared: number,
+  upperSquared: number,
+  candidates: Int32Array,
+): number {
+  let count = 0;
+  for (let l = 0; l < model.count; l++) {
+    if (model.classIndex[l] < 0) continue;
+    const lx = model.x[l];
+    const ly = model.y[l];
+    const nearX = lx < minX ? lx - minX : lx > maxX ? lx - maxX : 0;
+    const nearY = ly < minY ? ly - minY : ly > maxY ? ly - maxY : 0;
+    const farX = Math.max(Math.abs(lx - minX), Math.abs(lx - maxX));
+    const farY = Math.max(Math.abs(ly - minY), Math.abs(ly - maxY));
+    if (nearX * nearX + nearY * nearY > upperSquared) continue;
+    if (farX * farX + farY * farY < lowerSquared) continue;
+    candidates[count++] = l;
+  }
+  return count;
+}
+
+/**
  * Likelihood (density, 1 / (m rad) per class) of one detection (reported class index, range m,
  * bearing rad in the robot frame) for a robot at pose (x, y, theta), map frame.
  */
@@ -130,11 +166,28 @@ export function detectionLikelihood(
   bearing: number,
 ): number {
   const [lower, upper] = gateWindow(model, range);
-  const best = bestAssociation(model, poseX, poseY, poseTheta, reportedClass, range, bearing, lower, upper);
+  const candidates = new Int32Array(model.count);
+  const count = gateCandidates(model, poseX, poseX, poseY, poseY, lower, upper, candidates);
+  const best = bestAssociation(
+    model,
+    candidates,
+    count,
+    poseX,
+    poseY,
+    poseTheta,
+    reportedClass,
+    range,
+    bearing,
+    lower,
+    upper,
+  );
   return (1 - model.clutter) * best + model.clutter * model.clutterDensity;
 }
 
-/** Adds log p(detection | particle pose) to out[i] for particles [from, to). */
+/**
+ * Adds log p(detection | particle pose) to out[i] for particles [from, to). Landmarks are first
+ * narrowed to those within the gate of the particles' bounding box (see gateCandidates).
+ */
 export function accumulateDetectionLogLikelihood(
   model: LandmarkModel,
   x: Float64Array,
@@ -147,11 +200,38 @@ export function accumulateDetectionLogLikelihood(
   bearing: number,
   out: Float64Array,
 ): void {
+  if (to <= from) return;
   const [lower, upper] = gateWindow(model, range);
+  let minX = x[from];
+  let maxX = minX;
+  let minY = y[from];
+  let maxY = minY;
+  for (let i = from + 1; i < to; i++) {
+    const px = x[i];
+    const py = y[i];
+    if (px < minX) minX = px;
+    if (px > maxX) maxX = px;
+    if (py < minY) minY = py;
+    if (py > maxY) maxY = py;
+  }
+  const candidates = new Int32Array(model.count);
+  const count = gateCandidates(model, minX, maxX, minY, maxY, lower, upper, candidates);
   const hitWeight = 1 - model.clutter;
   const clutterTerm = model.clutter * model.clutterDensity;
   for (let i = from; i < to; i++) {
-    const best = bestAssociation(model, x[i], y[i], theta[i], reportedClass, range, bearing, lower, upper);
+    const best = bestAssociation(
+      model,
+      candidates,
+      count,
+      x[i],
+      y[i],
+      theta[i],
+      reportedClass,
+      range,
+      bearing,
+      lower,
+      upper,
+    );
     out[i] += Math.log(hitWeight * best + clutterTerm);
   }
 }

@@ -5,8 +5,17 @@
  *   var(trans) = a3 trans^2 + a4 (rot1^2 + rot2^2)
  *   var(rot2)  = a1 rot2^2 + a2 trans^2
  */
-import { fillThreeNormals, type RandomScratch, RNG_PURPOSE, seedKeyHigh, seedKeyLow } from './random';
+import {
+  philox4x32Pair,
+  type RandomScratch,
+  RNG_PURPOSE,
+  seedKeyHigh,
+  seedKeyLow,
+  uniformFromWord,
+} from './random';
 import { wrapAngle } from './stats';
+
+const TWO_PI = 2 * Math.PI;
 
 /** Below this translation (m) the heading of travel is meaningless, so rot1 is set to 0 (common practice). */
 export const MIN_TRANSLATION_FOR_ROT1 = 1e-3;
@@ -58,9 +67,39 @@ export function odometryNoiseSigmas(
 }
 
 /**
+ * Moves particle i by the increment perturbed with three standard normals from one Philox block
+ * (words[offset..offset+3]): Box–Muller (Box & Muller 1958) on the pairs (w0, w1) and (w2, w3),
+ * giving z0 = r_a cos, z1 = r_a sin, z2 = r_b cos (the fourth normal is not needed).
+ */
+function moveParticle(
+  x: Float64Array,
+  y: Float64Array,
+  theta: Float64Array,
+  i: number,
+  words: Uint32Array,
+  offset: number,
+  increment: OdometryIncrement,
+  sigmas: readonly [number, number, number],
+): void {
+  const radiusA = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset])));
+  const angleA = TWO_PI * uniformFromWord(words[offset + 1]);
+  const radiusB = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset + 2])));
+  const angleB = TWO_PI * uniformFromWord(words[offset + 3]);
+  const noisyRot1 = increment.rot1 - sigmas[0] * (radiusA * Math.cos(angleA));
+  const noisyTrans = increment.trans - sigmas[1] * (radiusA * Math.sin(angleA));
+  const noisyRot2 = increment.rot2 - sigmas[2] * (radiusB * Math.cos(angleB));
+  const heading = theta[i] + noisyRot1;
+  x[i] += noisyTrans * Math.cos(heading);
+  y[i] += noisyTrans * Math.sin(heading);
+  const next = heading + noisyRot2;
+  theta[i] = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
+}
+
+/**
  * Moves particles [from, to) in place by one sampled odometry increment (map frame, m and rad).
- * Noise for particle i at `step` comes from the counter RNG keyed (seed, motion, step, i), so the
- * result does not depend on how particle ranges are split between threads.
+ * Noise for particle i at `step` comes from the counter RNG block (0, i, step, motion) under the
+ * seed's key, so the result does not depend on how particle ranges are split between threads
+ * (particles are computed two at a time only to overlap the two Philox chains).
  */
 export function sampleOdometryMotion(
   x: Float64Array,
@@ -74,21 +113,14 @@ export function sampleOdometryMotion(
   step: number,
   scratch: RandomScratch,
 ): void {
-  const [sigmaRot1, sigmaTrans, sigmaRot2] = odometryNoiseSigmas(increment, alpha);
-  const { rot1, trans, rot2 } = increment;
-  const normals = scratch.values;
+  const sigmas = odometryNoiseSigmas(increment, alpha);
+  const words = scratch.words;
   const keyLow = seedKeyLow(seed);
   const keyHigh = seedKeyHigh(seed);
   const purpose = RNG_PURPOSE.motion;
-  for (let i = from; i < to; i++) {
-    fillThreeNormals(keyLow, keyHigh, purpose, step, i, scratch);
-    const noisyRot1 = rot1 - sigmaRot1 * normals[0];
-    const noisyTrans = trans - sigmaTrans * normals[1];
-    const noisyRot2 = rot2 - sigmaRot2 * normals[2];
-    const heading = theta[i] + noisyRot1;
-    x[i] += noisyTrans * Math.cos(heading);
-    y[i] += noisyTrans * Math.sin(heading);
-    const next = heading + noisyRot2;
-    theta[i] = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
+  for (let i = from; i < to; i += 2) {
+    philox4x32Pair(0, i, i + 1, step, purpose, keyLow, keyHigh, words);
+    moveParticle(x, y, theta, i, words, 0, increment, sigmas);
+    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas);
   }
 }

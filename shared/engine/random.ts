@@ -26,20 +26,36 @@ export const RNG_PURPOSE = {
 
 const PHILOX_M0 = 0xd2511f53;
 const PHILOX_M1 = 0xcd9e8d57;
-const PHILOX_W0 = 0x9e3779b9;
-const PHILOX_W1 = 0xbb67ae85;
+const PHILOX_W0 = 0x9e3779b9 | 0;
+const PHILOX_W1 = 0xbb67ae85 | 0;
 const M0_HI = PHILOX_M0 >>> 16;
 const M0_LO = PHILOX_M0 & 0xffff;
 const M1_HI = PHILOX_M1 >>> 16;
 const M1_LO = PHILOX_M1 & 0xffff;
-const TWO_POW_16 = 65536;
 const TWO_POW_32 = 4294967296;
 const UNIFORM_SCALE = 1 / TWO_POW_32;
 const TWO_PI = 2 * Math.PI;
 
 /**
+ * High 32 bits of the 64-bit product a * m (a a 32-bit word, m = mHigh 2^16 + mLow) from four
+ * 16 x 16-bit partial products with Math.imul, all in 32-bit integer arithmetic (JavaScript has no
+ * 64-bit integer multiply on numbers; staying in integers avoids float round trips). Returned as
+ * a signed 32-bit integer with the right bit pattern.
+ */
+function multiplyHigh(a: number, mHigh: number, mLow: number): number {
+  const aHigh = a >>> 16;
+  const aLow = a & 0xffff;
+  const lowLow = Math.imul(aLow, mLow);
+  const highLow = Math.imul(aHigh, mLow);
+  const lowHigh = Math.imul(aLow, mHigh);
+  const middle = (lowLow >>> 16) + (highLow & 0xffff) + (lowHigh & 0xffff);
+  return (Math.imul(aHigh, mHigh) + (highLow >>> 16) + (lowHigh >>> 16) + (middle >>> 16)) | 0;
+}
+
+/**
  * Philox4x32 with 10 rounds. Writes the four output words to `out[0..3]` (unsigned 32-bit).
- * All inputs are unsigned 32-bit integers.
+ * All inputs are unsigned 32-bit integers. Runs the paired kernel on one counter twice so the
+ * round function exists once; single blocks are off the hot path (motion uses the pair).
  */
 export function philox4x32(
   c0: number,
@@ -50,47 +66,81 @@ export function philox4x32(
   k1: number,
   out: Uint32Array,
 ): void {
-  let x0 = c0 >>> 0;
-  let x1 = c1 >>> 0;
-  let x2 = c2 >>> 0;
-  let x3 = c3 >>> 0;
-  let key0 = k0 >>> 0;
-  let key1 = k1 >>> 0;
+  philox4x32Pair(c0, c1, c1, c2, c3, k0, k1, out, 0);
+}
+
+/**
+ * Two Philox4x32-10 blocks whose counters differ only in the second word (c1First, c1Second),
+ * computed interleaved: each round's dependency chain is long, so two independent chains roughly
+ * double the throughput. Writes block one to out[0..3] and block two to out[secondOffset..+3]
+ * (default 4); each block is exactly Philox4x32-10 of its own counter.
+ */
+export function philox4x32Pair(
+  c0: number,
+  c1First: number,
+  c1Second: number,
+  c2: number,
+  c3: number,
+  k0: number,
+  k1: number,
+  out: Uint32Array,
+  secondOffset = 4,
+): void {
+  let a0 = c0 | 0;
+  let a1 = c1First | 0;
+  let a2 = c2 | 0;
+  let a3 = c3 | 0;
+  let b0 = a0;
+  let b1 = c1Second | 0;
+  let b2 = a2;
+  let b3 = a3;
+  let key0 = k0 | 0;
+  let key1 = k1 | 0;
   for (let round = 0; round < 10; round++) {
-    // High words of the 32x32 products from 16-bit halves: every partial sum stays below 2^53,
-    // so the float arithmetic is exact (JavaScript has no 64-bit integer multiply on numbers).
-    const a0High = x0 >>> 16;
-    const a0Low = x0 & 0xffff;
-    const cross0 = a0High * M0_LO + a0Low * M0_HI + ((a0Low * M0_LO) >>> 16);
-    const hi0 = (a0High * M0_HI + Math.floor(cross0 / TWO_POW_16)) >>> 0;
-    const lo0 = Math.imul(x0, PHILOX_M0) >>> 0;
-    const a2High = x2 >>> 16;
-    const a2Low = x2 & 0xffff;
-    const cross2 = a2High * M1_LO + a2Low * M1_HI + ((a2Low * M1_LO) >>> 16);
-    const hi1 = (a2High * M1_HI + Math.floor(cross2 / TWO_POW_16)) >>> 0;
-    const lo1 = Math.imul(x2, PHILOX_M1) >>> 0;
-    x0 = (hi1 ^ x1 ^ key0) >>> 0;
-    x1 = lo1;
-    x2 = (hi0 ^ x3 ^ key1) >>> 0;
-    x3 = lo0;
-    key0 = (key0 + PHILOX_W0) >>> 0;
-    key1 = (key1 + PHILOX_W1) >>> 0;
+    const aHi0 = multiplyHigh(a0, M0_HI, M0_LO);
+    const aLo0 = Math.imul(a0, PHILOX_M0);
+    const aHi1 = multiplyHigh(a2, M1_HI, M1_LO);
+    const aLo1 = Math.imul(a2, PHILOX_M1);
+    const bHi0 = multiplyHigh(b0, M0_HI, M0_LO);
+    const bLo0 = Math.imul(b0, PHILOX_M0);
+    const bHi1 = multiplyHigh(b2, M1_HI, M1_LO);
+    const bLo1 = Math.imul(b2, PHILOX_M1);
+    a0 = aHi1 ^ a1 ^ key0;
+    a1 = aLo1;
+    a2 = aHi0 ^ a3 ^ key1;
+    a3 = aLo0;
+    b0 = bHi1 ^ b1 ^ key0;
+    b1 = bLo1;
+    b2 = bHi0 ^ b3 ^ key1;
+    b3 = bLo0;
+    key0 = (key0 + PHILOX_W0) | 0;
+    key1 = (key1 + PHILOX_W1) | 0;
   }
-  out[0] = x0;
-  out[1] = x1;
-  out[2] = x2;
-  out[3] = x3;
+  out[0] = a0;
+  out[1] = a1;
+  out[2] = a2;
+  out[3] = a3;
+  out[secondOffset] = b0;
+  out[secondOffset + 1] = b1;
+  out[secondOffset + 2] = b2;
+  out[secondOffset + 3] = b3;
 }
 
 /** Reusable scratch for one caller (one per thread); avoids allocation in hot loops. */
 export interface RandomScratch {
+  /** Philox output words; eight, so `philox4x32Pair` fits. */
   words: Uint32Array;
   /** Last four uniforms or normals produced. */
   values: Float64Array;
 }
 
 export function createRandomScratch(): RandomScratch {
-  return { words: new Uint32Array(4), values: new Float64Array(4) };
+  return { words: new Uint32Array(8), values: new Float64Array(4) };
+}
+
+/** Uniform in (0, 1) with 32-bit resolution from one unsigned output word: (word + 0.5) / 2^32. */
+export function uniformFromWord(word: number): number {
+  return (word + 0.5) * UNIFORM_SCALE;
 }
 
 /** Low key word for a seed (non-negative integer < 2^53). */
@@ -122,31 +172,6 @@ export function fillUniforms(
   values[1] = (words[1] + 0.5) * UNIFORM_SCALE;
   values[2] = (words[2] + 0.5) * UNIFORM_SCALE;
   values[3] = (words[3] + 0.5) * UNIFORM_SCALE;
-}
-
-/**
- * Three standard normals for the counter (draw, particle, step, purpose) with the key words
- * already split (see seedKeyLow/seedKeyHigh), written to `scratch.values[0..2]`: the first three
- * outputs of `fillNormals`, without computing the unused fourth. Hot-loop variant for motion noise.
- */
-export function fillThreeNormals(
-  keyLow: number,
-  keyHigh: number,
-  purpose: number,
-  step: number,
-  particle: number,
-  scratch: RandomScratch,
-): void {
-  const words = scratch.words;
-  const values = scratch.values;
-  philox4x32(0, particle, step, purpose, keyLow, keyHigh, words);
-  const radiusA = Math.sqrt(-2 * Math.log((words[0] + 0.5) * UNIFORM_SCALE));
-  const angleA = TWO_PI * ((words[1] + 0.5) * UNIFORM_SCALE);
-  const radiusB = Math.sqrt(-2 * Math.log((words[2] + 0.5) * UNIFORM_SCALE));
-  const angleB = TWO_PI * ((words[3] + 0.5) * UNIFORM_SCALE);
-  values[0] = radiusA * Math.cos(angleA);
-  values[1] = radiusA * Math.sin(angleA);
-  values[2] = radiusB * Math.cos(angleB);
 }
 
 /**

@@ -1,6 +1,10 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { buildLandmarkModel, detectionLikelihood } from '../../../shared/engine/landmark-model';
+import {
+  accumulateDetectionLogLikelihood,
+  buildLandmarkModel,
+  detectionLikelihood,
+} from '../../../shared/engine/landmark-model';
 import { WAREHOUSE_DETECTOR } from '../../support/engine-fixtures';
 
 const model = buildLandmarkModel(
@@ -34,5 +38,34 @@ describe('landmark detection model', () => {
     expect(towardB).toBeGreaterThan(towardA);
     // Landmark C lies 20 m away, beyond the 8 m max_range: only clutter explains the detection.
     expect(detectionLikelihood(model, 0, 0, 0, 2, 20, 0)).toBeCloseTo(CLUTTER, 15);
+  });
+
+  it('gives every particle of a spread cloud the same log-likelihood as the single-pose model', () => {
+    // The per-range loop narrows landmarks to those a bounding box of the particles can see; that
+    // must not change any value. Particles spread over 10 m so landmarks enter and leave the gate.
+    const n = 2001;
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
+    const theta = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      x[i] = -2 + (10 * ((i * 7919) % n)) / n;
+      y[i] = -3 + (8 * ((i * 104729) % n)) / n;
+      theta[i] = -Math.PI + (2 * Math.PI * ((i * 31) % n)) / n;
+    }
+    for (const [reported, range, bearing] of [
+      [0, 3.04, 0.02],
+      [1, 4, 1.5],
+      [2, 2.2, -2.9],
+    ]) {
+      const out = new Float64Array(n);
+      accumulateDetectionLogLikelihood(model, x, y, theta, 0, n, reported, range, bearing, out);
+      for (let i = 0; i < n; i++) {
+        const single = Math.log(detectionLikelihood(model, x[i], y[i], theta[i], reported, range, bearing));
+        if (out[i] !== single) expect({ i, value: out[i] }).toEqual({ i, value: single });
+      }
+      // The cloud covers poses that see a landmark (well above the clutter floor) and poses that do not.
+      expect(Math.max(...out)).toBeGreaterThan(Math.log(CLUTTER) + 5);
+      expect(Math.min(...out)).toBeCloseTo(Math.log(CLUTTER), 12);
+    }
   });
 });

@@ -104,4 +104,35 @@ describe('beam selection', () => {
     expect(endY[1]).toBeCloseTo(0.1 + 2, 6);
     expect(robotFrameEndpoints(ranges, 1, scan, geometry, endX, endY)).toBe(1);
   });
+
+  it('sums each particle over odd and even particle ranges exactly like a one-particle-at-a-time loop', () => {
+    // The kernel handles particles in pairs; every range split must give the plain per-particle sum.
+    const field = buildLikelihoodField(smallGrid(), MODEL, RANGE_MAX);
+    const n = 7;
+    const x = Float64Array.from({ length: n }, (_, i) => 1.2 + 0.11 * i);
+    const y = Float64Array.from({ length: n }, (_, i) => 2.3 + 0.07 * i);
+    const heading = Float64Array.from({ length: n }, (_, i) => -3 + 0.9 * i);
+    const cos = heading.map(Math.cos);
+    const sin = heading.map(Math.sin);
+    const endX = Float64Array.of(0.3, -0.2, 0.5, 40);
+    const endY = Float64Array.of(0.1, 0.4, -0.35, 0);
+    const expected = new Float64Array(n);
+    for (let i = 0; i < n; i++)
+      accumulateScanLogLikelihood(field, x, y, cos, sin, i, i + 1, endX, endY, 4, expected);
+    for (const [from, to] of [
+      [0, 7],
+      [0, 6],
+      [1, 7],
+      [2, 5],
+      [3, 3],
+    ]) {
+      const out = new Float64Array(n);
+      accumulateScanLogLikelihood(field, x, y, cos, sin, from, to, endX, endY, 4, out);
+      for (let i = 0; i < n; i++) expect(out[i]).toBe(i >= from && i < to ? expected[i] : 0);
+    }
+    // Independent check of one particle against the table (Thrun, Burgard, Fox 2005, Table 6.3):
+    // the endpoint 40 m ahead is off the grid and gets the floor.
+    expect(expected[0]).toBeLessThan(0);
+    expect(expected.some((v) => v > 4 * Math.log(0.1 / RANGE_MAX))).toBe(true);
+  });
 });

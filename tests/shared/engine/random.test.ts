@@ -4,6 +4,7 @@ import {
   fillNormals,
   fillUniforms,
   philox4x32,
+  philox4x32Pair,
   RNG_PURPOSE,
 } from '../../../shared/engine/random';
 
@@ -27,6 +28,26 @@ describe('philox4x32-10', () => {
     const [c0, c1, c2, c3, k0, k1] = input;
     philox4x32(c0, c1, c2, c3, k0, k1, out);
     expect(hex(out)).toBe(expected);
+  });
+
+  it('computes two interleaved blocks equal to the known-answer vectors of each counter', () => {
+    // Random123 kat_vectors "philox4x32 10", zero counter and key (value from memory, as above).
+    const pair = new Uint32Array(8);
+    philox4x32Pair(0, 0, 0, 0, 0, 0, 0, pair);
+    expect(hex(pair.subarray(0, 4))).toBe('6627e8d5 e169c58d bc57ac4c 9b00dbd8');
+    expect(hex(pair.subarray(4, 8))).toBe('6627e8d5 e169c58d bc57ac4c 9b00dbd8');
+    const single = new Uint32Array(4);
+    for (const [first, second] of [
+      [1, 2],
+      [0x7fffffff, 0x80000000],
+      [0xfffffffe, 0xffffffff],
+    ]) {
+      philox4x32Pair(0x243f6a88, first, second, 0x13198a2e, 0x03707344, 0xa4093822, 0x299f31d0, pair);
+      philox4x32(0x243f6a88, first, 0x13198a2e, 0x03707344, 0xa4093822, 0x299f31d0, single);
+      expect(hex(pair.subarray(0, 4))).toBe(hex(single));
+      philox4x32(0x243f6a88, second, 0x13198a2e, 0x03707344, 0xa4093822, 0x299f31d0, single);
+      expect(hex(pair.subarray(4, 8))).toBe(hex(single));
+    }
   });
 
   it('gives the same numbers for a particle whatever order particles are drawn in', () => {
