@@ -1,0 +1,115 @@
+import type { TReplay } from '@shared/contracts/replays';
+import { ErrorState, SkeletonBar } from '@web/components/states';
+import { type ReactNode, useCallback, useMemo, useState } from 'react';
+import { useReplayStep } from '../api/get-replay-step';
+import { usePlayback } from '../hooks/use-playback';
+import { useReplayViewData } from '../hooks/use-replay-view-data';
+import { nearestStep } from '../lib/time-scale';
+import { FlagsPanel } from './flags-panel';
+import { MapView } from './map-view';
+import { Scrubber } from './scrubber';
+import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
+import { Timeline } from './timeline';
+
+/** The moment on screen, handed to side-panel content (e.g. "pin this moment"). */
+export interface WorkspaceMoment {
+  replayId: string;
+  step: number;
+  /** s since start_time */
+  time: number;
+}
+
+export interface ReplayWorkspaceProps {
+  bundleId: string;
+  replay: TReplay;
+  /** Extra side-panel tabs after "Flags" (bookmarks, SQL console), given the current moment. */
+  extraTabs?: (moment: WorkspaceMoment, seekTime: (t: number) => void) => SidePanelTab[];
+  initialTime?: number;
+  /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
+  toolbar?: (moment: WorkspaceMoment) => ReactNode;
+}
+
+/** A finished replay: scrubber, map view and timeline sharing one cursor, and the side panel. */
+export function ReplayWorkspace({ bundleId, replay, extraTabs, initialTime, toolbar }: ReplayWorkspaceProps) {
+  const data = useReplayViewData(bundleId, replay.id);
+  const times = (data.series?.columns.t ?? []) as number[];
+  const [step, setStep] = useState<number | null>(null);
+  const current =
+    step ?? (initialTime !== undefined && times.length ? Math.max(0, nearestStep(times, initialTime)) : 0);
+  const last = Math.max(0, times.length - 1);
+  const particles = useReplayStep(replay.id, Math.min(current, last), last);
+  const playback = usePlayback(times, current, setStep);
+  const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
+  const moments = useMemo(
+    () => [...replay.flags.map((f) => f.start), ...(data.tracks?.events.map((e) => e.t) ?? [])],
+    [replay.flags, data.tracks],
+  );
+
+  if (data.error)
+    return <ErrorState error={data.error} title="Could not load this replay" onRetry={data.retry} />;
+  if (data.isLoading || !data.series || !data.map) {
+    return (
+      <div aria-busy className="space-y-3 p-4" data-testid="workspace-loading">
+        <p className="text-sm text-ink-muted">Loading the replay's series and the map…</p>
+        <SkeletonBar className="h-64 w-full" />
+        <SkeletonBar className="h-40 w-full" />
+      </div>
+    );
+  }
+  const time = times[current] ?? 0;
+  const moment = { replayId: replay.id, step: current, time };
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
+      <div className="min-w-0 space-y-3">
+        <div className="rounded-lg border border-canvas-line bg-canvas-raised p-3">
+          <Scrubber
+            times={times}
+            step={current}
+            onStep={setStep}
+            moments={moments}
+            isPlaying={playback.isPlaying}
+            onTogglePlay={playback.togglePlaying}
+            speed={playback.speed}
+            onSpeed={playback.setSpeed}
+          />
+          {toolbar && <div className="mt-2">{toolbar(moment)}</div>}
+        </div>
+        <MapView
+          map={data.map}
+          tracks={data.tracks}
+          replayId={replay.id}
+          particles={particles.data}
+          time={time}
+        />
+        {particles.isError && (
+          <p className="text-sm text-state-bad">Particles at this step: {particles.error.message}</p>
+        )}
+        <div className="rounded-lg border border-canvas-line bg-canvas-raised p-2">
+          <Timeline
+            series={data.series}
+            tracks={data.tracks}
+            clearance={data.clearance}
+            flags={replay.flags}
+            step={current}
+            onSeek={setStep}
+          />
+        </div>
+      </div>
+      <aside
+        aria-label="Workspace side panel"
+        className="rounded-lg border border-canvas-line bg-canvas-raised p-3"
+      >
+        <SidePanelTabs
+          tabs={[
+            {
+              id: 'flags',
+              label: `Flags (${replay.flags.length})`,
+              content: <FlagsPanel flags={replay.flags} onOpen={seekTime} />,
+            },
+            ...(extraTabs?.(moment, seekTime) ?? []),
+          ]}
+        />
+      </aside>
+    </div>
+  );
+}
