@@ -47,6 +47,7 @@ describe('SQL console', () => {
     await page.getByRole('button', { name: 'Save query' }).click();
     const saved = page.getByRole('list', { name: 'Saved queries' }).getByText(title, { exact: true });
     await saved.waitFor();
+    await saved.scrollIntoViewIfNeeded();
     await saveScreenshot(page, 'sql-console');
 
     // The hash the browser sent matches the shared canonical hash of the stored (whole) preview.

@@ -113,7 +113,12 @@ export function SqlConsolePanel({ caseId, bundleId, tables }: SqlConsolePanelPro
           </Button>
         </div>
       </form>
-      {state.status === 'error' && <Alert title="DuckDB could not run this query">{state.message}</Alert>}
+      {state.status === 'error' && (
+        <Alert title="DuckDB could not run this query">
+          {/* DuckDB points at the error with a caret on its own line; keep the line breaks. */}
+          <pre className="whitespace-pre-wrap font-mono text-xs">{state.message}</pre>
+        </Alert>
+      )}
       {state.status === 'done' &&
         (state.result.columns.length ? (
           <QueryResultsTable

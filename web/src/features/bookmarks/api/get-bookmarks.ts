@@ -1,0 +1,21 @@
+import { type TBookmark, ZBookmarkList } from '@shared/contracts/bookmarks';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { caseWorkKey } from '@web/components/case-work-query-key';
+import { apiPaths } from '@web/config/paths';
+import { apiRequest } from '@web/lib/api-client';
+
+export async function getBookmarks(caseId: string, signal?: AbortSignal): Promise<TBookmark[]> {
+  return (await apiRequest(apiPaths.caseBookmarks(caseId), { schema: ZBookmarkList, signal })).items;
+}
+
+/** Under the case-work key, so a bookmark write also refreshes the findings evidence pickers. */
+export function bookmarksQueryOptions(caseId: string) {
+  return queryOptions({
+    queryKey: [...caseWorkKey(caseId), 'bookmarks'] as const,
+    queryFn: ({ signal }) => getBookmarks(caseId, signal),
+  });
+}
+
+export function useBookmarks(caseId: string) {
+  return useQuery(bookmarksQueryOptions(caseId));
+}
