@@ -35,12 +35,8 @@ export function FindingsRoute() {
                 onRetry={() => findings.refetch()}
               />
             ) : findings.data ? (
-              // Keyed by the draft's save time so a draft saved elsewhere refills the form.
-              <FindingsEditor
-                key={findings.data.draft?.updatedAt ?? 'new'}
-                caseId={caseId}
-                findings={findings.data}
-              />
+              // Not keyed by the draft's save time: saving would remount the form in the middle of a submit.
+              <FindingsEditor caseId={caseId} findings={findings.data} />
             ) : (
               <SkeletonBar className="w-64" />
             )}

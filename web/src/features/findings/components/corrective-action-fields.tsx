@@ -14,15 +14,15 @@ export function CorrectiveActionFields({ form }: { form: UseFormReturn<FindingsF
       <ol className="space-y-3">
         {actions.fields.map((field, index) => (
           <li key={field.id} className="grid grid-cols-[minmax(0,1fr)_12rem_10rem_auto] items-start gap-3">
-            <FormField label={`Action ${index + 1}`} error={errors?.[index]?.description?.message}>
+            <FormField label={`Corrective action ${index + 1}`} error={errors?.[index]?.description?.message}>
               {(control) => (
                 <TextInput {...control} {...form.register(`correctiveActions.${index}.description`)} />
               )}
             </FormField>
-            <FormField label="Owner" error={errors?.[index]?.owner?.message}>
+            <FormField label={`Owner of action ${index + 1}`} error={errors?.[index]?.owner?.message}>
               {(control) => <TextInput {...control} {...form.register(`correctiveActions.${index}.owner`)} />}
             </FormField>
-            <FormField label="Due date" error={errors?.[index]?.dueDate?.message}>
+            <FormField label={`Due date of action ${index + 1}`} error={errors?.[index]?.dueDate?.message}>
               {(control) => (
                 <TextInput
                   type="date"
