@@ -30,12 +30,15 @@ async function main() {
     webDir: WEB_DIST,
   });
   app.locals.caseWork.mailQueue.start();
-  const sampleDir = path.join(PROJECT_ROOT, 'sample-logs');
-  if (config.demoSeed && (await seedDemoData(database.db, { bundles: app.locals.bundles, sampleDir }))) {
-    logger.info('seeded demo accounts, cases and sample bundles');
-  }
   const interrupted = await app.locals.replays.failInterruptedReplays();
   if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
+  const sampleDir = path.join(PROJECT_ROOT, 'sample-logs');
+  if (
+    config.demoSeed &&
+    (await seedDemoData(database.db, { bundles: app.locals.bundles, replays: app.locals.replays, sampleDir }))
+  ) {
+    logger.info('seeded demo accounts, cases and sample bundles');
+  }
   const server = app.listen(config.port, config.host, () => {
     logger.info(`Driftcase is listening on http://localhost:${config.port}`);
   });

@@ -7,12 +7,15 @@ import type { Database } from '../db/client';
 import { users } from '../db/schema';
 import type { BundlesService } from '../services/bundles/bundles-service';
 import { createCasesService } from '../services/cases/cases-service';
+import type { ReplaysService } from '../services/replays/replays-service';
 import { createUsersService } from '../services/users/users-service';
 import { DEMO_CASES } from './demo-cases';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 
 export interface DemoBundleSeeding {
   bundles: BundlesService;
+  /** When given, each sample bundle also gets a replay with the robot's own settings. */
+  replays?: ReplaysService;
   /** Folder holding the sample bundles (`sample-logs/`). */
   sampleDir: string;
 }
@@ -38,12 +41,15 @@ export async function seedDemoData(db: Database, withBundles?: DemoBundleSeeding
       const folder = withBundles && path.join(withBundles.sampleDir, sampleFolder);
       if (!withBundles || !folder || !fs.existsSync(folder)) continue;
       const zip = await zipFolder(folder, path.join(zipDir, `${sampleFolder}.zip`));
-      await withBundles.bundles.uploadBundle({
+      const { bundle } = await withBundles.bundles.uploadBundle({
         caseId: created.id,
         tempFile: zip,
         originalName: `${sampleFolder}.zip`,
         uploaderId: investigator.id,
       });
+      if (withBundles.replays && bundle.status === 'valid') {
+        await withBundles.replays.startReplay(bundle.id, { label: "Robot's own settings" }, investigator.id);
+      }
     }
   } finally {
     if (zipDir) fs.rmSync(zipDir, { recursive: true, force: true });
