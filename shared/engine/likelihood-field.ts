@@ -25,20 +25,33 @@ export interface LikelihoodField {
   logLikelihood: Float32Array;
   /** Distance (m) from each cell centre to the nearest occupied cell, south-up rows; Infinity if none. */
   distance: Float32Array;
-  /** log(z_rand / z_max): the value for endpoints outside the grid or on unknown cells. */
+  /** log(z_rand / z_max) rounded to Float32: the value for endpoints outside the grid or on unknown cells. */
   floorLogLikelihood: number;
   /**
-   * `logLikelihood` with a one-cell border of `floorLogLikelihood` on every side ((width + 2) x
-   * (height + 2), south-up): lets the hot loop truncate coordinates with `| 0` and bounds-check
-   * with two unsigned comparisons, since anything in (-1, 0) lands on the border.
+   * `logLikelihood` with a border of `padding` cells of `floorLogLikelihood` on every side
+   * ((width + 2 padding) x (height + 2 padding), south-up). The border reaches one sensor range
+   * (plus a metre for the mount) past the map, so for a particle inside the map every beam
+   * endpoint lands in the table and the hot loop needs no bounds check (see scan-likelihood.ts).
    */
   paddedLogLikelihood: Float32Array;
+  /** Border width (cells) of `paddedLogLikelihood`, >= 1. */
+  padding: number;
 }
 
-function padTable(table: Float32Array, width: number, height: number, border: number): Float32Array {
-  const padded = new Float32Array((width + 2) * (height + 2)).fill(border);
+/** Extra reach (m) of the padded border beyond range_max, for the sensor mount offset. */
+const MOUNT_ALLOWANCE = 1;
+
+function padTable(
+  table: Float32Array,
+  width: number,
+  height: number,
+  padding: number,
+  border: number,
+): Float32Array {
+  const paddedWidth = width + 2 * padding;
+  const padded = new Float32Array(paddedWidth * (height + 2 * padding)).fill(border);
   for (let row = 0; row < height; row++)
-    padded.set(table.subarray(row * width, (row + 1) * width), (row + 1) * (width + 2) + 1);
+    padded.set(table.subarray(row * width, (row + 1) * width), (row + padding) * paddedWidth + padding);
   return padded;
 }
 
@@ -56,8 +69,11 @@ export function buildLikelihoodField(
       occupiedSouthUp[row * width + j] = grid.cells[i * width + j] === CELL_OCCUPIED ? 1 : 0;
   }
   const squared = squaredDistanceTransform(occupiedSouthUp, width, height);
+  const padding = Math.ceil((rangeMax + MOUNT_ALLOWANCE) / resolution) + 2;
   const randomTerm = model.z_rand / rangeMax;
-  const floorLogLikelihood = Math.log(randomTerm);
+  // Rounded to Float32 like every table cell, so an endpoint off the map adds the same value
+  // whether it is read from the padded border or substituted by a bounds check.
+  const floorLogLikelihood = Math.fround(Math.log(randomTerm));
   const logLikelihood = new Float32Array(width * height);
   const distance = new Float32Array(width * height);
   for (let row = 0; row < height; row++) {
@@ -84,7 +100,8 @@ export function buildLikelihoodField(
     logLikelihood,
     distance,
     floorLogLikelihood,
-    paddedLogLikelihood: padTable(logLikelihood, width, height, floorLogLikelihood),
+    paddedLogLikelihood: padTable(logLikelihood, width, height, padding, floorLogLikelihood),
+    padding,
   };
 }
 
@@ -147,61 +164,4 @@ export function robotFrameEndpoints(
   return count;
 }
 
-/**
- * Adds, for each particle i in [from, to), the sum over `count` robot-frame endpoints of the field's
- * log-likelihood at the endpoint transformed by the particle pose (map frame) into `out[i]`.
- * `cosTheta`/`sinTheta` hold the particles' heading cosines and sines (computed once per step).
- *
- * Particles go two at a time: one particle's sum is a serial chain of additions, two independent
- * chains let the processor overlap them (about 15 % faster here). Each particle still adds its beams
- * in order 0..count-1 from 0, so the result is bit-identical to one particle at a time.
- */
-export function accumulateScanLogLikelihood(
-  field: LikelihoodField,
-  x: Float64Array,
-  y: Float64Array,
-  cosTheta: Float64Array,
-  sinTheta: Float64Array,
-  from: number,
-  to: number,
-  endX: Float64Array,
-  endY: Float64Array,
-  count: number,
-  out: Float64Array,
-): void {
-  const { inverseResolution, originX, originY, paddedLogLikelihood: table, floorLogLikelihood } = field;
-  const paddedWidth = field.width + 2;
-  const paddedHeight = field.height + 2;
-  // An odd range starts with one particle paired with itself (its second sum is discarded).
-  for (let i = from, j = (to - from) % 2 === 1 ? from : from + 1; j < to; i = j + 1, j = i + 1) {
-    // Grid coordinates shifted by the one-cell border (see paddedLogLikelihood).
-    const gridXa = (x[i] - originX) * inverseResolution + 1;
-    const gridYa = (y[i] - originY) * inverseResolution + 1;
-    const cosA = cosTheta[i] * inverseResolution;
-    const sinA = sinTheta[i] * inverseResolution;
-    const gridXb = (x[j] - originX) * inverseResolution + 1;
-    const gridYb = (y[j] - originY) * inverseResolution + 1;
-    const cosB = cosTheta[j] * inverseResolution;
-    const sinB = sinTheta[j] * inverseResolution;
-    let sumA = 0;
-    let sumB = 0;
-    for (let k = 0; k < count; k++) {
-      const ex = endX[k];
-      const ey = endY[k];
-      const columnA = (gridXa + cosA * ex - sinA * ey) | 0;
-      const rowA = (gridYa + sinA * ex + cosA * ey) | 0;
-      const columnB = (gridXb + cosB * ex - sinB * ey) | 0;
-      const rowB = (gridYb + sinB * ex + cosB * ey) | 0;
-      sumA +=
-        columnA >>> 0 < paddedWidth && rowA >>> 0 < paddedHeight
-          ? table[rowA * paddedWidth + columnA]
-          : floorLogLikelihood;
-      sumB +=
-        columnB >>> 0 < paddedWidth && rowB >>> 0 < paddedHeight
-          ? table[rowB * paddedWidth + columnB]
-          : floorLogLikelihood;
-    }
-    if (i !== j) out[i] += sumA;
-    out[j] += sumB;
-  }
-}
+export { accumulateScanLogLikelihood } from './scan-likelihood';

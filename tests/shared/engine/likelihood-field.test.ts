@@ -135,4 +135,41 @@ describe('beam selection', () => {
     expect(expected[0]).toBeLessThan(0);
     expect(expected.some((v) => v > 4 * Math.log(0.1 / RANGE_MAX))).toBe(true);
   });
+
+  it('looks up the cell under each transformed endpoint, inside the map and past its edges', () => {
+    // Reference: transform each endpoint by the pose (x + c ex - s ey, y + s ex + c ey) and read
+    // the cell containing it, floor value off the grid (Thrun, Burgard, Fox 2005, Table 6.3).
+    const field = buildLikelihoodField(smallGrid(), MODEL, RANGE_MAX);
+    const cellAt = (mx: number, my: number) => {
+      const column = Math.floor((mx - 1) / 0.1);
+      const row = Math.floor((my - 2) / 0.1);
+      const isOnGrid = column >= 0 && column < 20 && row >= 0 && row < 10;
+      return isOnGrid ? field.logLikelihood[row * 20 + column] : Math.log(0.1 / RANGE_MAX);
+    };
+    const endX = Float64Array.of(0.31, -0.17, 0.52, 0.05, -0.43);
+    const endY = Float64Array.of(0.12, 0.41, -0.36, -0.07, -0.21);
+    let state = 12345;
+    const next = () => {
+      state = (Math.imul(state, 1103515245) + 12345) >>> 0;
+      return state / 4294967296;
+    };
+    const n = 400;
+    // Positions from 1 m west of the grid to 1 m east of it (the grid spans x 1..3, y 2..3).
+    const x = Float64Array.from({ length: n }, () => 0 + 4 * next());
+    const y = Float64Array.from({ length: n }, () => 1 + 3 * next());
+    const heading = Float64Array.from({ length: n }, () => Math.PI * (2 * next() - 1));
+    const cos = heading.map(Math.cos);
+    const sin = heading.map(Math.sin);
+    const out = new Float64Array(n);
+    accumulateScanLogLikelihood(field, x, y, cos, sin, 0, n, endX, endY, 5, out);
+    for (let i = 0; i < n; i++) {
+      let expected = 0;
+      for (let k = 0; k < 5; k++)
+        expected += cellAt(
+          x[i] + cos[i] * endX[k] - sin[i] * endY[k],
+          y[i] + sin[i] * endX[k] + cos[i] * endY[k],
+        );
+      expect(out[i]).toBeCloseTo(expected, 5);
+    }
+  });
 });
