@@ -26,15 +26,15 @@ export interface FindingsFormValues {
   correctiveActions: { description: string; owner: string; dueDate: string }[];
 }
 
-/** Form values from a saved draft (or none), filling what is missing with empty fields. */
+/** Form values from a saved draft (or none), filling what is missing; copies, so editing never alters the draft. */
 export function formValuesFromDraft(draft: TFindingsDraft | null | undefined): FindingsFormValues {
   return {
     summary: draft?.summary ?? '',
     incidentClass: draft?.incidentClass ?? '',
-    rootCause: draft?.rootCause ?? { category: '', text: '' },
-    contributingFactors: draft?.contributingFactors ?? [],
-    evidence: draft?.evidence ?? [],
-    correctiveActions: draft?.correctiveActions ?? [],
+    rootCause: { category: '', text: '', ...draft?.rootCause },
+    contributingFactors: (draft?.contributingFactors ?? []).map((f) => ({ ...f })),
+    evidence: (draft?.evidence ?? []).map((e) => ({ ...e })),
+    correctiveActions: (draft?.correctiveActions ?? []).map((a) => ({ ...a })),
   };
 }
 

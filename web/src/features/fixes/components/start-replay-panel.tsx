@@ -1,4 +1,3 @@
-import { ZReplayOverrides } from '@shared/contracts/replays';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import type { CaseReplays } from '@web/components/case-replays-query';
@@ -7,21 +6,7 @@ import { SelectInput, TextArea, TextInput } from '@web/components/inputs';
 import { Play } from 'lucide-react';
 import { useState } from 'react';
 import { useStartVerificationReplay } from '../api/start-verification-replay';
-
-/** Parses the overrides box: empty means the manifest's settings; otherwise JSON the engine accepts. */
-export function parseOverrides(text: string): { overrides?: Record<string, unknown>; problem?: string } {
-  if (text.trim() === '') return { overrides: {} };
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch {
-    return { problem: 'Overrides must be JSON, e.g. {"particles": 2000, "recovery": true}.' };
-  }
-  const parsed = ZReplayOverrides.safeParse(json);
-  if (parsed.success) return { overrides: parsed.data };
-  const issue = parsed.error.issues[0];
-  return { problem: `Overrides, field "${issue?.path.join('.') || '(root)'}": ${issue?.message}` };
-}
+import { parseOverrides } from '../lib/parse-overrides';
 
 /** Starts a replay of a bundle under the fixed settings and hands its id to the fix form. */
 export function StartReplayPanel({
