@@ -20,7 +20,7 @@ import {
   weightedMeanPose,
 } from './pose-statistics';
 import { createRandomScratch } from './random';
-import { injectionProbability, injectRandomParticles, updateLogAverage } from './recovery';
+import { injectionProbability, injectRecoveryParticles, updateLogAverage } from './recovery';
 import type { ReplayContext } from './replay-context';
 import { countDistinctAncestors, RESAMPLING_METHOD_CODE, resampleAncestors } from './resampling';
 import { logSumExp } from './stats';
@@ -247,18 +247,7 @@ export function advanceStep(
     if (settings.recovery.enabled) {
       const probability = injectionProbability(state.logSlow, state.logFast);
       const random = workspace.range.random;
-      record.injected = injectRandomParticles(
-        context.freeSpace,
-        state.x,
-        state.y,
-        state.theta,
-        0,
-        n,
-        probability,
-        settings.seed,
-        step,
-        random,
-      );
+      record.injected = injectRecoveryParticles(context, state, step, probability, record.pose, random);
     }
   }
   record.particles = n;
