@@ -57,7 +57,7 @@ beforeAll(async () => {
     new VoidLogger(),
     NODE_RUNTIME,
   );
-  await db.instantiate();
+  await db.instantiate(() => {});
   db.open({ query: { castDecimalToDouble: true, castBigIntToDouble: false } });
   connection = db.connect();
   const tables = bundleToArrowTables(bundle);
