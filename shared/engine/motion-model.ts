@@ -14,8 +14,7 @@ import {
   uniformFromWord,
 } from './random';
 import { wrapAngle } from './stats';
-
-const TWO_PI = 2 * Math.PI;
+import { cosSinOfWordTurn } from './turn-trig';
 
 /** Below this translation (m) the heading of travel is meaningless, so rot1 is set to 0 (common practice). */
 export const MIN_TRANSLATION_FOR_ROT1 = 1e-3;
@@ -69,7 +68,8 @@ export function odometryNoiseSigmas(
 /**
  * Moves particle i by the increment perturbed with three standard normals from one Philox block
  * (words[offset..offset+3]): Box–Muller (Box & Muller 1958) on the pairs (w0, w1) and (w2, w3),
- * giving z0 = r_a cos, z1 = r_a sin, z2 = r_b cos (the fourth normal is not needed).
+ * giving z0 = r_a cos, z1 = r_a sin, z2 = r_b cos (the fourth normal is not needed), with the
+ * angle's cos/sin from the table in turn-trig.ts. `trig` is two numbers of scratch.
  */
 function moveParticle(
   x: Float64Array,
@@ -80,14 +80,15 @@ function moveParticle(
   offset: number,
   increment: OdometryIncrement,
   sigmas: readonly [number, number, number],
+  trig: Float64Array,
 ): void {
   const radiusA = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset])));
-  const angleA = TWO_PI * uniformFromWord(words[offset + 1]);
   const radiusB = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset + 2])));
-  const angleB = TWO_PI * uniformFromWord(words[offset + 3]);
-  const noisyRot1 = increment.rot1 - sigmas[0] * (radiusA * Math.cos(angleA));
-  const noisyTrans = increment.trans - sigmas[1] * (radiusA * Math.sin(angleA));
-  const noisyRot2 = increment.rot2 - sigmas[2] * (radiusB * Math.cos(angleB));
+  cosSinOfWordTurn(words[offset + 1], trig);
+  const noisyRot1 = increment.rot1 - sigmas[0] * (radiusA * trig[0]);
+  const noisyTrans = increment.trans - sigmas[1] * (radiusA * trig[1]);
+  cosSinOfWordTurn(words[offset + 3], trig);
+  const noisyRot2 = increment.rot2 - sigmas[2] * (radiusB * trig[0]);
   const heading = theta[i] + noisyRot1;
   x[i] += noisyTrans * Math.cos(heading);
   y[i] += noisyTrans * Math.sin(heading);
@@ -114,13 +115,13 @@ export function sampleOdometryMotion(
   scratch: RandomScratch,
 ): void {
   const sigmas = odometryNoiseSigmas(increment, alpha);
-  const words = scratch.words;
+  const { words, values } = scratch;
   const keyLow = seedKeyLow(seed);
   const keyHigh = seedKeyHigh(seed);
   const purpose = RNG_PURPOSE.motion;
   for (let i = from; i < to; i += 2) {
     philox4x32Pair(0, i, i + 1, step, purpose, keyLow, keyHigh, words);
-    moveParticle(x, y, theta, i, words, 0, increment, sigmas);
-    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas);
+    moveParticle(x, y, theta, i, words, 0, increment, sigmas, values);
+    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas, values);
   }
 }
