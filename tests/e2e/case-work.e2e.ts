@@ -203,4 +203,34 @@ describe('case work', () => {
 
     for (const page of [investigator, reviewer, engineer, admin]) await page.context().close();
   });
+
+  it('legal places a hold: the case shows a banner and the findings cannot be edited until it is lifted', async () => {
+    const legal = await browser.open();
+    await signInAs(legal, 'legal');
+    const cases = (await (await legal.request.get('/api/cases?q=freezer')).json()) as {
+      items: { id: string }[];
+    };
+    const caseId = cases.items[0]?.id ?? '';
+    await legal.goto(`/cases/${caseId}`);
+    await legal.getByRole('button', { name: 'Place legal hold' }).click();
+    const dialog = legal.getByRole('dialog', { name: 'Place a legal hold' });
+    await dialog.getByLabel('Reason').fill('Insurer notified; preserve all records.');
+    await dialog.getByRole('button', { name: 'Place hold' }).click();
+    await legal.getByText('Legal hold: nothing of this case may be deleted or edited').waitFor();
+
+    const investigator = await openAs(browser, 'investigator', `/cases/${caseId}/findings`);
+    await investigator.getByText('Editing is not possible now').waitFor();
+    expect(await investigator.getByRole('button', { name: 'Save draft' }).isDisabled()).toBe(true);
+
+    await legal.getByRole('button', { name: 'Lift hold' }).click();
+    await legal
+      .getByRole('dialog', { name: 'Lift the legal hold' })
+      .getByRole('button', { name: 'Lift hold' })
+      .click();
+    await legal.getByRole('button', { name: 'Place legal hold' }).waitFor();
+    await investigator.reload();
+    await investigator.getByLabel('Summary').waitFor();
+    expect(await investigator.getByRole('button', { name: 'Save draft' }).isDisabled()).toBe(false);
+    for (const page of [legal, investigator]) await page.context().close();
+  });
 });

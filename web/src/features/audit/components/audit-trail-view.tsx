@@ -54,9 +54,13 @@ function EntryRow({ entry }: { entry: TAuditEntry }) {
       <td className="py-2 pr-3">
         <code>{entry.action}</code>
       </td>
-      <td className="py-2 pr-3 break-all text-xs">
-        {entry.targetType}
-        {entry.targetId && ` ${entry.targetId}`}
+      <td className="py-2 pr-3 text-xs">
+        {entry.targetType.replaceAll('_', ' ')}{' '}
+        {entry.targetId && (
+          <code title={entry.targetId}>
+            {entry.targetId.length > 12 ? `${entry.targetId.slice(0, 8)}…` : entry.targetId}
+          </code>
+        )}
       </td>
       <td className="py-2">
         <code className="text-xs" title={`SHA-256 of the payload: ${entry.payloadSha256}`}>
@@ -92,12 +96,12 @@ export function AuditTrailView({ caseId }: { caseId: string }) {
             <thead className="text-left text-xs text-ink-muted uppercase">
               <tr>
                 <th className="w-12 py-1">#</th>
-                <th className="w-56">Time (RFC 3339 / local)</th>
-                <th className="w-56">Actor</th>
-                <th className="w-32">Role</th>
-                <th className="w-40">Action</th>
+                <th className="w-52">Time (RFC 3339 / local)</th>
+                <th className="w-52">Actor</th>
+                <th className="w-28">Role</th>
+                <th className="w-36">Action</th>
                 <th>Target</th>
-                <th className="w-32">Payload hash</th>
+                <th className="w-28">Payload hash</th>
               </tr>
             </thead>
             <tbody>
