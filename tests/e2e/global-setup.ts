@@ -73,6 +73,8 @@ async function waitForHealth(baseUrl: string, server: ChildProcess, log: () => s
 export default async function setup(project: TestProject) {
   buildWebIfNeeded();
   const port = await findFreePort();
+  // The fake SMTP server gets its own free port too, so parallel runs on one machine do not clash.
+  const smtpPort = await findFreePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-e2e-'));
   const baseUrl = `http://127.0.0.1:${port}`;
   let output = '';
@@ -83,7 +85,7 @@ export default async function setup(project: TestProject) {
       PORT: String(port),
       DATA_DIR: dataDir,
       DEMO_SEED: '1',
-      SMTP_FAKE: '1',
+      SMTP_FAKE_PORT: String(smtpPort),
       LOG_LEVEL: 'warn',
     },
     stdio: ['ignore', 'pipe', 'pipe'],

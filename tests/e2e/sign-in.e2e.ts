@@ -6,10 +6,10 @@ import { DEMO_PASSWORD, demoEmail, fillSignIn, signInAs } from './support/sign-i
 // The navigation each role must see, as the foundation issue's role table specifies it.
 const EXPECTED_NAVIGATION: Record<Role, string[]> = {
   investigator: ['Cases', 'New case'],
-  reviewer: ['Cases'],
+  reviewer: ['Cases', 'Review queue'],
   legal: ['Cases'],
   engineer: ['Cases'],
-  admin: ['Cases', 'Users'],
+  admin: ['Cases', 'Users', 'Outbox'],
 };
 
 const ROLE_NAMES: Record<Role, string> = {
