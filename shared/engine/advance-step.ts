@@ -4,13 +4,7 @@
  * and random-particle injection. Mutates the state; fills `workspace.record`.
  */
 import { type ClusterScratch, countBeliefClusters, createClusterScratch } from './cluster-count';
-import {
-  computeHeadingTrig,
-  createRangeScratch,
-  moveParticleRange,
-  type RangeScratch,
-  weighParticleRange,
-} from './filter-step';
+import { createRangeScratch, type RangeScratch, runParticleStages } from './filter-step';
 import { kldTargetCount } from './kld-sampling';
 import type { ParticleState } from './particle-state';
 import {
@@ -45,7 +39,15 @@ export interface StepRecord {
   clusters: number;
 }
 
+/**
+ * Runs `runParticleStages` for step `step` over all `count` particles, split as the caller likes
+ * (e.g. across worker threads sharing the state's buffers), and returns the measurement count.
+ */
+export type ParticleStagesRunner = (step: number, count: number) => number;
+
 export interface StepWorkspace {
+  /** Replaces the single-threaded per-particle stages when set. */
+  particleStages?: ParticleStagesRunner;
   weights: Float64Array;
   stepLogLikelihood: Float64Array;
   cosTheta: Float64Array;
@@ -185,20 +187,16 @@ export function advanceStep(
   const record = workspace.record;
   const { weights, cosTheta, sinTheta, stepLogLikelihood } = workspace;
   let n = state.count;
-  if (step > 0) moveParticleRange(context, state, step, 0, n, workspace.range);
-  computeHeadingTrig(state.theta, 0, n, cosTheta, sinTheta);
-  stepLogLikelihood.fill(0, 0, n);
-  const measurements = weighParticleRange(
-    context,
-    state,
-    step,
-    0,
-    n,
-    cosTheta,
-    sinTheta,
-    stepLogLikelihood,
-    workspace.range,
-  );
+  const measurements = workspace.particleStages
+    ? workspace.particleStages(step, n)
+    : runParticleStages(
+        context,
+        state,
+        step,
+        [0, n],
+        { cosTheta, sinTheta, logLikelihood: stepLogLikelihood },
+        workspace.range,
+      );
   const predicted = workspace.predicted;
   if (withDiagnostics && measurements > 0) {
     // weights = exp(logWeight) already holds when this workspace ran the previous step.

@@ -25,7 +25,7 @@ export function createRangeScratch(context: ReplayContext, random: RandomScratch
 
 /**
  * Applies the odometry increment of step `step` (>= 1) to particles [from, to), sampled by the
- * odometry motion model.
+ * odometry motion model; when given, `cosTheta`/`sinTheta` receive the new headings' cos and sin.
  */
 export function moveParticleRange(
   context: ReplayContext,
@@ -34,6 +34,8 @@ export function moveParticleRange(
   from: number,
   to: number,
   scratch: RangeScratch,
+  cosTheta?: Float64Array,
+  sinTheta?: Float64Array,
 ): void {
   const odometry = context.bundle.odometry;
   const increment = decomposeOdometry(
@@ -56,6 +58,8 @@ export function moveParticleRange(
     context.settings.seed,
     step,
     scratch.random,
+    cosTheta,
+    sinTheta,
   );
 }
 
@@ -139,4 +143,34 @@ export function weighParticleRange(
     }
   }
   return measurements;
+}
+
+/** The per-particle outputs of a step that later stages read (length >= particle count). */
+export interface StageBuffers {
+  /** cos and sin of each particle's heading after motion. */
+  cosTheta: Float64Array;
+  sinTheta: Float64Array;
+  /** Each particle's measurement log-likelihood for the step. */
+  logLikelihood: Float64Array;
+}
+
+/**
+ * Every per-particle stage of step `step` over particles [from, to): motion (step >= 1), heading
+ * cos/sin, and the measurement log-likelihoods (zeroed here first). Returns the number of
+ * measurements used. The unit of work of a thread when a step is split.
+ */
+export function runParticleStages(
+  context: ReplayContext,
+  state: ParticleState,
+  step: number,
+  range: readonly [from: number, to: number],
+  buffers: StageBuffers,
+  scratch: RangeScratch,
+): number {
+  const [from, to] = range;
+  const { cosTheta, sinTheta, logLikelihood } = buffers;
+  if (step > 0) moveParticleRange(context, state, step, from, to, scratch, cosTheta, sinTheta);
+  else computeHeadingTrig(state.theta, from, to, cosTheta, sinTheta);
+  logLikelihood.fill(0, from, to);
+  return weighParticleRange(context, state, step, from, to, cosTheta, sinTheta, logLikelihood, scratch);
 }

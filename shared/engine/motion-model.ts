@@ -81,6 +81,8 @@ function moveParticle(
   increment: OdometryIncrement,
   sigmas: readonly [number, number, number],
   trig: Float64Array,
+  cosTheta: Float64Array | undefined,
+  sinTheta: Float64Array | undefined,
 ): void {
   const radiusA = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset])));
   const radiusB = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset + 2])));
@@ -93,14 +95,20 @@ function moveParticle(
   x[i] += noisyTrans * Math.cos(heading);
   y[i] += noisyTrans * Math.sin(heading);
   const next = heading + noisyRot2;
-  theta[i] = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
+  const wrapped = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
+  theta[i] = wrapped;
+  if (cosTheta && sinTheta) {
+    cosTheta[i] = Math.cos(wrapped);
+    sinTheta[i] = Math.sin(wrapped);
+  }
 }
 
 /**
  * Moves particles [from, to) in place by one sampled odometry increment (map frame, m and rad).
  * Noise for particle i at `step` comes from the counter RNG block (0, i, step, motion) under the
  * seed's key, so the result does not depend on how particle ranges are split between threads
- * (particles are computed two at a time only to overlap the two Philox chains).
+ * (particles are computed two at a time only to overlap the two Philox chains). When given,
+ * `cosTheta`/`sinTheta` receive cos and sin of each new heading, saving the weighting a pass.
  */
 export function sampleOdometryMotion(
   x: Float64Array,
@@ -113,6 +121,8 @@ export function sampleOdometryMotion(
   seed: number,
   step: number,
   scratch: RandomScratch,
+  cosTheta?: Float64Array,
+  sinTheta?: Float64Array,
 ): void {
   const sigmas = odometryNoiseSigmas(increment, alpha);
   const { words, values } = scratch;
@@ -121,7 +131,7 @@ export function sampleOdometryMotion(
   const purpose = RNG_PURPOSE.motion;
   for (let i = from; i < to; i += 2) {
     philox4x32Pair(0, i, i + 1, step, purpose, keyLow, keyHigh, words);
-    moveParticle(x, y, theta, i, words, 0, increment, sigmas, values);
-    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas, values);
+    moveParticle(x, y, theta, i, words, 0, increment, sigmas, values, cosTheta, sinTheta);
+    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas, values, cosTheta, sinTheta);
   }
 }
