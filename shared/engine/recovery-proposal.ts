@@ -12,25 +12,30 @@
  * re-weights injected particles only at the next measurement, so in a warehouse of repeated aisles a
  * pose one aisle over, which explains scans and detections as well as the true one, wins as often
  * as the truth. Mixture MCL weights each pose drawn from p(z | x) by the predicted belief at x; we
- * use a smoothed belief, an isotropic Gaussian around the belief mean whose spread is the belief's
- * own plus `BELIEF_SPREAD` (how far an unnoticed push or slip can carry the robot between
- * measurements), instead of a density tree. Entries are multiplied by it, and single-detection
+ * use a smoothed belief, a Gaussian around the belief's mean pose whose spreads are the belief's own
+ * plus how far an unnoticed push or slip can carry the robot between measurements (recovery.ts),
+ * instead of a density tree. Entries are multiplied by it, and single-detection
  * angles are drawn around the point of the circle nearest the mean.
  */
 import type { DetectionTable } from '../bundle/types';
 import type { LandmarkModel } from './landmark-model';
 import { detectionPoint, placeFromDetectionPair } from './measurement-sampling';
+import { wrapAngle } from './stats';
 
 /** Pair entries lighter than this fraction of the heaviest are dropped (inconsistent geometry). */
 const PAIR_WEIGHT_FLOOR = 1e-6;
 /** Pairs whose landmark separation is more than this many spreads from the detections' are skipped. */
 const PAIR_GATE = 4;
 
-/** Smoothed predicted belief used to weight proposals: mean (m, map frame) and isotropic sigma (m). */
+/** Smoothed predicted belief used to weight proposals: mean pose (m, rad, map frame) and spreads. */
 export interface BeliefPrior {
   x: number;
   y: number;
+  theta: number;
+  /** Isotropic position sigma, m. */
   sigma: number;
+  /** Heading sigma, rad. */
+  headingSigma: number;
 }
 
 /** The step's association table, struct-of-arrays; see the file comment. */
@@ -118,7 +123,9 @@ function pairEntries(
           let weight = weightA * weightB * gaussianFactor(residual, spread);
           if (prior) {
             placeFromDetectionPair(model, a, b, range[i], bearing[i], range[j], bearing[j], pose);
-            weight *= gaussianFactor(Math.hypot(pose[0] - prior.x, pose[1] - prior.y), prior.sigma);
+            weight *=
+              gaussianFactor(Math.hypot(pose[0] - prior.x, pose[1] - prior.y), prior.sigma) *
+              gaussianFactor(wrapAngle(pose[2] - prior.theta), prior.headingSigma);
           }
           entries.push({ i, j, a, b, weight, nearestAngle: 0, angleSigma: 0 });
         }
@@ -150,7 +157,10 @@ function singleEntries(
         const toMean = Math.hypot(prior.x - model.x[a], prior.y - model.y[a]);
         nearestAngle = Math.atan2(model.y[a] - prior.y, model.x[a] - prior.x);
         angleSigma = prior.sigma / Math.max(range, model.rangeSigma);
-        weight *= gaussianFactor(toMean - range, prior.sigma);
+        const heading = wrapAngle(nearestAngle - detections.bearing[i]);
+        weight *=
+          gaussianFactor(toMean - range, prior.sigma) *
+          gaussianFactor(wrapAngle(heading - prior.theta), prior.headingSigma);
       }
       entries.push({ i, j: i, a, b: a, weight, nearestAngle, angleSigma });
     }

@@ -35,6 +35,12 @@ import type { ReplayContext } from './replay-context';
  */
 export const BELIEF_SPREAD = 0.5;
 
+/**
+ * How far (rad, one sigma) an unnoticed slip may turn the heading: enough for wheel-slip's turn,
+ * while the mirror-image pose a symmetric landmark pair also explains (heading off by pi) drops out.
+ */
+export const BELIEF_HEADING_SPREAD = 0.5;
+
 /** Draws from the measurement model that land off free space are retried this many times. */
 export const PROPOSAL_ATTEMPTS = 8;
 
@@ -141,7 +147,9 @@ export function buildInjectionProposal(
   const prior: BeliefPrior = {
     x: pose.x,
     y: pose.y,
+    theta: pose.theta,
     sigma: Math.sqrt(BELIEF_SPREAD ** 2 + 0.5 * (pose.covXX + pose.covYY)),
+    headingSigma: Math.sqrt(BELIEF_HEADING_SPREAD ** 2 + pose.covTT),
   };
   const from = timeline.detectionStart[step];
   const table = buildMeasurementProposal(
