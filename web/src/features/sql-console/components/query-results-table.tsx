@@ -1,7 +1,8 @@
 import { Button } from '@web/components/button';
 import { ChevronLeft, ChevronRight, Download } from 'lucide-react';
 import { useState } from 'react';
-import { formatCell, type QueryResult } from '../lib/query-result';
+import { formatCell } from '../lib/format-cell';
+import type { QueryResult } from '../lib/query-result';
 import { resultToCsv } from '../lib/result-csv';
 
 const ROWS_PER_PAGE = 50;

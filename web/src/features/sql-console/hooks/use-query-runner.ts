@@ -1,6 +1,6 @@
 import { useCallback, useState } from 'react';
 import type { DuckDbSession } from '../lib/duckdb-engine';
-import { type QueryResult, readQueryResult } from '../lib/query-result';
+import type { QueryResult } from '../lib/query-result';
 
 export type RunState =
   | { status: 'idle' }
@@ -18,7 +18,7 @@ export function useQueryRunner(session: DuckDbSession | undefined) {
       setState({ status: 'running', sql });
       const started = performance.now();
       try {
-        const result = readQueryResult(await session.runToIpc(sql));
+        const result = await session.run(sql);
         setState({ status: 'done', sql, result, elapsedMs: performance.now() - started });
       } catch (error) {
         setState({ status: 'error', sql, message: error instanceof Error ? error.message : String(error) });

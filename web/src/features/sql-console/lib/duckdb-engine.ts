@@ -3,11 +3,15 @@ import ehWorker from '@duckdb/duckdb-wasm/dist/duckdb-browser-eh.worker.js?url';
 import mvpWorker from '@duckdb/duckdb-wasm/dist/duckdb-browser-mvp.worker.js?url';
 import ehWasm from '@duckdb/duckdb-wasm/dist/duckdb-eh.wasm?url';
 import mvpWasm from '@duckdb/duckdb-wasm/dist/duckdb-mvp.wasm?url';
+import { type QueryResult, readQueryResult } from './query-result';
 
 /** One DuckDB connection in a worker, fed the bundle's tables as Arrow IPC bytes. */
 export interface DuckDbSession {
-  /** Runs SQL and returns the result as an Arrow IPC stream (bytes, to avoid the Arrow version trap). */
-  runToIpc(sql: string): Promise<Uint8Array>;
+  /**
+   * Runs SQL. DuckDB answers with Arrow IPC bytes, decoded with this app's Arrow: passing Arrow
+   * objects between DuckDB's bundled Arrow and ours silently loses data.
+   */
+  run(sql: string): Promise<QueryResult>;
   close(): Promise<void>;
 }
 
@@ -35,7 +39,8 @@ export async function openDuckDbSession(
       await connection.insertArrowFromIPCStream(table.bytes, { name: table.name, create: true });
     }
     return {
-      runToIpc: (sql) => connection.useUnsafe((bindings, id) => bindings.runQuery(id, sql)),
+      run: async (sql) =>
+        readQueryResult(await connection.useUnsafe((bindings, id) => bindings.runQuery(id, sql))),
       close: async () => {
         await connection.close();
         await db.terminate();

@@ -17,7 +17,10 @@ function isTemporal(type: DataType): boolean {
   return DataType.isDate(type) || DataType.isTimestamp(type);
 }
 
-/** Decodes DuckDB's Arrow IPC bytes with this app's Arrow and normalises the cells. */
+/**
+ * Decodes DuckDB's Arrow IPC bytes with this app's Arrow and normalises the cells. Only the lazily
+ * loaded DuckDB module imports this, so Arrow stays out of the main bundle.
+ */
 export function readQueryResult(ipcBytes: Uint8Array): QueryResult {
   const table = tableFromIPC(ipcBytes);
   const fields = table.schema.fields;
@@ -37,11 +40,4 @@ export function readQueryResult(ipcBytes: Uint8Array): QueryResult {
     );
   }
   return { columns: fields.map((field) => ({ name: field.name, type: String(field.type) })), rows };
-}
-
-/** How a cell reads in the table and in CSV. */
-export function formatCell(cell: QueryCell): string {
-  if (cell === null) return '';
-  if (typeof cell === 'object') return JSON.stringify(cell);
-  return String(cell);
 }

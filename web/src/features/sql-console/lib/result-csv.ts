@@ -1,5 +1,5 @@
 import type { QueryCell } from '@shared/query-result-hash';
-import { formatCell } from './query-result';
+import { formatCell } from './format-cell';
 
 /** Quotes a field when it holds a comma, quote or line break, doubling inner quotes (RFC 4180 section 2). */
 function csvField(text: string): string {
