@@ -1,4 +1,5 @@
 import type { TBookmark } from '@shared/contracts/bookmarks';
+import type { Role } from '@shared/roles';
 import { Button } from '@web/components/button';
 import { ConfirmDialog } from '@web/components/confirm-dialog';
 import { LocalTime } from '@web/components/local-time';
@@ -14,15 +15,20 @@ interface BookmarkPanelProps {
   caseId: string;
   /** Restores the bookmark's replay, step and map view. */
   onOpen: (bookmark: TBookmark) => void;
+  /** The signed-in person; when given, edit shows for the author or an admin and delete for the author. */
+  viewer?: { id: string; role: Role };
 }
 
 /** The case's bookmarks: open one to return to its moment, edit its note, or delete it. */
-export function BookmarkPanel({ caseId, onOpen }: BookmarkPanelProps) {
+export function BookmarkPanel({ caseId, onOpen, viewer }: BookmarkPanelProps) {
   const bookmarks = useBookmarks(caseId);
   const update = useUpdateBookmark(caseId);
   const remove = useDeleteBookmark(caseId);
   const [editing, setEditing] = useState<TBookmark | null>(null);
   const [deleting, setDeleting] = useState<TBookmark | null>(null);
+
+  const isAuthor = (bookmark: TBookmark) => !viewer || viewer.id === bookmark.author.id;
+  const canEdit = (bookmark: TBookmark) => isAuthor(bookmark) || viewer?.role === 'admin';
 
   if (bookmarks.isPending) return <SkeletonBar className="w-48" />;
   if (bookmarks.isError)
@@ -62,24 +68,28 @@ export function BookmarkPanel({ caseId, onOpen }: BookmarkPanelProps) {
               >
                 Open
               </Button>
-              <Button
-                size="sm"
-                variant="ghost"
-                icon={Pencil}
-                aria-label={`Edit note: ${bookmark.note}`}
-                onClick={() => setEditing(bookmark)}
-              >
-                Edit note
-              </Button>
-              <Button
-                size="sm"
-                variant="ghost"
-                icon={Trash2}
-                aria-label={`Delete bookmark: ${bookmark.note}`}
-                onClick={() => setDeleting(bookmark)}
-              >
-                Delete
-              </Button>
+              {canEdit(bookmark) && (
+                <Button
+                  size="sm"
+                  variant="ghost"
+                  icon={Pencil}
+                  aria-label={`Edit note: ${bookmark.note}`}
+                  onClick={() => setEditing(bookmark)}
+                >
+                  Edit note
+                </Button>
+              )}
+              {isAuthor(bookmark) && (
+                <Button
+                  size="sm"
+                  variant="ghost"
+                  icon={Trash2}
+                  aria-label={`Delete bookmark: ${bookmark.note}`}
+                  onClick={() => setDeleting(bookmark)}
+                >
+                  Delete
+                </Button>
+              )}
             </div>
           </li>
         ))}

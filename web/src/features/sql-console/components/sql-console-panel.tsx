@@ -16,10 +16,12 @@ interface SqlConsolePanelProps {
   bundleId: string;
   /** The bundle's table names (`TBundleRecord.tables[].name`). */
   tables: readonly string[];
+  /** Only investigators may save queries to the case; others can still run and download them. */
+  canSave?: boolean;
 }
 
 /** SQL over the bundle's tables, run in the browser with DuckDB-wasm; results can be saved as evidence. */
-export function SqlConsolePanel({ caseId, bundleId, tables }: SqlConsolePanelProps) {
+export function SqlConsolePanel({ caseId, bundleId, tables, canSave = true }: SqlConsolePanelProps) {
   const session = useDuckDbSession(bundleId, tables);
   const ready = session.status === 'ready' ? session.session : undefined;
   const { state, run } = useQueryRunner(ready);
@@ -104,13 +106,15 @@ export function SqlConsolePanel({ caseId, bundleId, tables }: SqlConsolePanelPro
           >
             Run query
           </Button>
-          <Button
-            icon={Save}
-            disabled={state.status !== 'done' || !state.result.columns.length}
-            onClick={() => setIsSaving(true)}
-          >
-            Save to case as evidence
-          </Button>
+          {canSave && (
+            <Button
+              icon={Save}
+              disabled={state.status !== 'done' || !state.result.columns.length}
+              onClick={() => setIsSaving(true)}
+            >
+              Save to case as evidence
+            </Button>
+          )}
         </div>
       </form>
       {state.status === 'error' && (
