@@ -19,21 +19,28 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { validateBundleFiles } from '../../shared/bundle/validate-bundle-files';
-import { runReplay } from '../../shared/engine/filter';
+import { nearestKeyframe, resumeFrom, runReplay } from '../../shared/engine/filter';
+import { buildReplayContext } from '../../shared/engine/replay-context';
 import { resolveReplaySettings } from '../../shared/engine/settings';
 import { rootMeanSquare } from '../../shared/engine/trajectory-error';
 
 const SAMPLES = join(import.meta.dirname, '../../sample-logs');
 
-function replay(folder: string, recovery: boolean) {
+function loadBundle(folder: string) {
   const files: Record<string, string> = {};
   for (const name of readdirSync(join(SAMPLES, folder)))
     files[name] = readFileSync(join(SAMPLES, folder, name), 'utf8');
   const read = validateBundleFiles(files);
   if (!read.ok || !read.bundle) throw new Error(`${folder} does not read`);
-  const resolved = resolveReplaySettings(read.bundle.manifest, { recovery });
+  return read.bundle;
+}
+
+function replay(folder: string, recovery: boolean, keyframeInterval = 0) {
+  const bundle = loadBundle(folder);
+  const resolved = resolveReplaySettings(bundle.manifest, { recovery });
   if (!resolved.ok) throw new Error(`${folder} settings: ${JSON.stringify(resolved.issues)}`);
-  return runReplay(read.bundle, resolved.settings, { keyframeInterval: 0 });
+  const context = buildReplayContext(bundle, resolved.settings);
+  return { ...runReplay(bundle, resolved.settings, { keyframeInterval, context }), context };
 }
 
 function faultStart(folder: string): number {
@@ -53,7 +60,7 @@ describe('pushed-aside with recovery', () => {
   let on: ReturnType<typeof replay>;
   let off: ReturnType<typeof replay>;
   beforeAll(() => {
-    on = replay('pushed-aside', true);
+    on = replay('pushed-aside', true, 100);
     off = replay('pushed-aside', false);
   }, 120_000);
   const push = faultStart('pushed-aside');
@@ -69,6 +76,17 @@ describe('pushed-aside with recovery', () => {
   it('has a whole-run RMSE within the tracking tolerance, far below the run without recovery', () => {
     expect(on.metrics.rmse_reference!).toBeLessThan(TRACKING);
     expect(on.metrics.rmse_reference!).toBeLessThan(off.metrics.rmse_reference! / 4);
+  });
+
+  it('resumes from a keyframe to the same particles as the full run, through the injections', () => {
+    // Steps 200-300 (20-30 s) hold the push and its injections; resume at 300 from the keyframe at 200.
+    const injections = on.series.injected.subarray(200, 301).reduce((sum, count) => sum + count, 0);
+    expect(injections).toBeGreaterThan(0);
+    const expected = on.keyframes.find((keyframe) => keyframe.step === 300);
+    expect(nearestKeyframe(on.keyframes, 299)?.step).toBe(200);
+    const resumed = resumeFrom(on.context, nearestKeyframe(on.keyframes, 299), 300);
+    expect(resumed.x.slice(0, resumed.count)).toEqual(expected!.x);
+    expect(resumed.theta.slice(0, resumed.count)).toEqual(expected!.theta);
   });
 });
 
