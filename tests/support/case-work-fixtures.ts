@@ -12,14 +12,9 @@ export const SAMPLE_FINDINGS: TFindingsDraft = {
     text: 'Wheel slip on the wet ramp inflated the odometry by 0.4 m.',
   },
   contributingFactors: [{ category: 'environment', text: 'Ramp surface was wet after cleaning.' }],
-  evidence: [
-    { type: 'bookmark', bookmarkId: '6f1c2a1e-3b7d-4d3a-9a51-0c2f3e4b5a61' },
-    {
-      type: 'saved_query',
-      queryId: '0b7e9d12-5c44-4f0e-8a2b-6e1d9f3c7a20',
-      resultSha256: 'a'.repeat(64),
-    },
-  ],
+  // Submitting checks that cited bookmarks and saved queries exist on the case; tests that need
+  // citations make them first (tests/support/evidence-samples.ts).
+  evidence: [],
   correctiveActions: [
     { description: 'Raise slip detection threshold', owner: 'Emeka Lindqvist', dueDate: '2026-12-15' },
   ],

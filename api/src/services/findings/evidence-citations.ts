@@ -2,11 +2,12 @@ import { eq } from 'drizzle-orm';
 import type { TEvidenceItem } from '../../../../shared/contracts/findings';
 import { AppError, type FieldIssue } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
-import { bundles, replays } from '../../db/schema';
+import { bookmarks, bundles, replays, savedQueries } from '../../db/schema';
 
 /**
  * Checks that cited replays and bundle files exist in this case and that the cited hash is the
- * stored one. Bookmarks and saved queries are checked for shape only until their tables exist.
+ * stored one; cited bookmarks and saved queries must belong to the case, and a saved query's
+ * result hash must be the stored one.
  */
 export async function validateEvidence(
   db: Database,
@@ -28,6 +29,26 @@ export async function validateEvidence(
         issues.push({
           path: `${at}.digest`,
           message: `Replay ${item.replayId} has digest ${row.digest ?? '(none yet)'}`,
+        });
+      }
+    } else if (item.type === 'bookmark') {
+      const [row] = await db
+        .select({ caseId: bookmarks.caseId })
+        .from(bookmarks)
+        .where(eq(bookmarks.id, item.bookmarkId));
+      if (!row || row.caseId !== caseId)
+        issues.push({ path: `${at}.bookmarkId`, message: `No bookmark ${item.bookmarkId} in this case` });
+    } else if (item.type === 'saved_query') {
+      const [row] = await db
+        .select({ caseId: savedQueries.caseId, resultSha256: savedQueries.resultSha256 })
+        .from(savedQueries)
+        .where(eq(savedQueries.id, item.queryId));
+      if (!row || row.caseId !== caseId)
+        issues.push({ path: `${at}.queryId`, message: `No saved query ${item.queryId} in this case` });
+      else if (row.resultSha256 !== item.resultSha256) {
+        issues.push({
+          path: `${at}.resultSha256`,
+          message: `Saved query ${item.queryId} has result SHA-256 ${row.resultSha256}`,
         });
       }
     } else if (item.type === 'bundle_file') {
