@@ -6,14 +6,14 @@ import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextInput } from '@web/components/inputs';
 import { Play, RotateCcw } from 'lucide-react';
-import { type FormEvent, useEffect, useMemo, useState } from 'react';
+import { type FormEvent, useMemo, useState } from 'react';
 import { useStartReplay } from '../api/start-replay';
 import { defaultsFrom, type ReplayFormValues, toStartRequest } from './replay-form-values';
 
 interface ReplayLauncherProps {
   bundleId: string;
-  /** The manifest's filter block; undefined while it loads. */
-  defaults: FilterConfig | undefined;
+  /** The manifest's filter block (mount the form once it has loaded). */
+  defaults: FilterConfig;
   onStarted: (replay: TReplay) => void;
 }
 
@@ -32,7 +32,6 @@ export function ReplayLauncher({ bundleId, defaults, onStarted }: ReplayLauncher
   const [values, setValues] = useState<ReplayFormValues>(initial);
   const [issues, setIssues] = useState<Record<string, string>>({});
   const start = useStartReplay(bundleId);
-  useEffect(() => setValues(initial), [initial]);
   const set = <K extends keyof ReplayFormValues>(key: K, value: ReplayFormValues[K]) =>
     setValues((current) => ({ ...current, [key]: value }));
 
@@ -141,7 +140,7 @@ export function ReplayLauncher({ bundleId, defaults, onStarted }: ReplayLauncher
       </div>
       {start.isError && <Alert title="The replay did not start">{start.error.message}</Alert>}
       <div className="flex gap-2">
-        <Button type="submit" variant="primary" icon={Play} isBusy={start.isPending} disabled={!defaults}>
+        <Button type="submit" variant="primary" icon={Play} isBusy={start.isPending}>
           Start replay
         </Button>
         <Button

@@ -1,0 +1,133 @@
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
+import { signInAs } from './support/sign-in';
+
+/** Starts a replay from the workspace's launcher and waits until the workspace shows it. */
+async function startReplayAndWait(page: Page, label: string, edit?: (page: Page) => Promise<void>) {
+  const launcher = page.getByRole('form', { name: 'Start a replay' });
+  const details = page.locator('details').filter({ hasText: 'Replays (' });
+  await details.waitFor();
+  if ((await details.getAttribute('open')) === null) await details.locator('summary').click();
+  await launcher.getByLabel('Label').fill(label);
+  await edit?.(page);
+  await launcher.getByRole('button', { name: 'Start replay' }).click();
+  const row = page.getByTestId('replay-row').filter({ hasText: label });
+  try {
+    await expect
+      .poll(
+        () =>
+          row
+            .first()
+            .getAttribute('data-status', { timeout: 1000 })
+            .catch(() => null),
+        { timeout: 150_000, interval: 500 },
+      )
+      .toBe('done');
+  } catch (error) {
+    await saveScreenshot(page, 'workspace-replay-failed');
+    throw error;
+  }
+}
+
+describe('investigator workspace', () => {
+  const browser = useBrowser();
+
+  it('goes from sign-in to the flagged moment of the wheel-slip incident (leaking defrost drain) and compares two replays', async () => {
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    await page
+      .getByRole('row')
+      .filter({ hasText: /leaking defrost drain/i })
+      .getByRole('link')
+      .first()
+      .click();
+    await page.getByRole('link', { name: 'Open workspace' }).first().click();
+    await page.getByRole('heading', { name: /Workspace/ }).waitFor();
+
+    await startReplayAndWait(page, `Manifest settings ${Date.now() % 100_000}`);
+    const scrubber = page.getByRole('slider', { name: 'Replay time' });
+    await scrubber.waitFor({ timeout: 60_000 });
+    const canvas = page.getByTestId('map-canvas');
+
+    // Keyboard only: End, Home, one step, then "]" to the next flag or event.
+    await scrubber.focus();
+    await page.keyboard.press('End');
+    const lastStep = Number(await scrubber.getAttribute('aria-valuemax'));
+    expect(Number(await scrubber.getAttribute('aria-valuenow'))).toBe(lastStep);
+    await page.keyboard.press('Home');
+    await page.keyboard.press('ArrowRight');
+    expect(await scrubber.getAttribute('aria-valuenow')).toBe('1');
+    await page.keyboard.press('Shift+ArrowRight');
+    expect(Number(await scrubber.getAttribute('aria-valuenow'))).toBeGreaterThan(1);
+
+    // The flags panel lists the engine's flags; jump with "]" until the cursor is inside one.
+    const flags = await page.getByRole('list', { name: 'Flags in this replay' }).getByRole('button').count();
+    expect(flags).toBeGreaterThan(0);
+    const replayId = new URL(page.url()).searchParams.get('replay');
+    const replay = await (await page.request.get(`/api/replays/${replayId}`)).json();
+    const isInFlag = (t: number) =>
+      replay.flags.some((f: { start: number; end: number }) => t >= f.start - 0.06 && t <= f.end + 0.06);
+    const cursorTime = async () => Number((await scrubber.getAttribute('aria-valuetext'))?.split(' ')[0]);
+    for (let i = 0; i < 40 && !isInFlag(await cursorTime()); i++) await page.keyboard.press(']');
+    expect(isInFlag(await cursorTime())).toBe(true);
+
+    // The map has drawn this very step's particle set (DOM attributes set by the draw call).
+    const step = await scrubber.getAttribute('aria-valuenow');
+    await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 20_000 }).toBe(step);
+    expect(Number(await canvas.getAttribute('data-particle-count'))).toBeGreaterThan(0);
+    // And pixels of the replay colour (#0072B2) are on the canvas.
+    const bluePixels = await canvas.evaluate((element) => {
+      const c = element as HTMLCanvasElement;
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      let count = 0;
+      for (let i = 0; i < data.length; i += 4) {
+        if (
+          Math.abs(data[i] - 0) < 40 &&
+          Math.abs(data[i + 1] - 114) < 40 &&
+          Math.abs(data[i + 2] - 178) < 40
+        )
+          count++;
+      }
+      return count;
+    });
+    expect(bluePixels).toBeGreaterThan(20);
+    expect(await page.getByTestId('cursor-readout').textContent()).toContain(`step ${step}`);
+    await saveScreenshot(page, 'workspace');
+
+    // A what-if replay with more particles and recovery, then the comparison page.
+    await startReplayAndWait(page, `More particles ${Date.now() % 100_000}`, async (p) => {
+      await p.getByLabel('Particles').fill('1500');
+      await p.getByLabel('Recovery (random particles when lost)').check();
+    });
+    await page.getByRole('link', { name: 'Compare replays' }).click();
+    const table = page.getByTestId('comparison-table');
+    await table.waitFor({ timeout: 30_000 });
+    expect(await table.textContent()).toContain('particles');
+    await page.getByRole('slider', { name: 'Replay time' }).focus();
+    await page.keyboard.press(']');
+    await expect
+      .poll(
+        () =>
+          page
+            .getByTestId('map-canvas')
+            .evaluateAll((all) => all.map((c) => Number(c.getAttribute('data-particle-count')))),
+        {
+          timeout: 30_000,
+        },
+      )
+      .toEqual([expect.any(Number), expect.any(Number)]);
+    await expect
+      .poll(
+        async () =>
+          Math.min(
+            ...(await page
+              .getByTestId('map-canvas')
+              .evaluateAll((all) => all.map((c) => Number(c.getAttribute('data-particle-count'))))),
+          ),
+        { timeout: 30_000 },
+      )
+      .toBeGreaterThan(0);
+    await saveScreenshot(page, 'workspace-compare');
+  }, 400_000);
+});

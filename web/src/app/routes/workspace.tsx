@@ -1,0 +1,146 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { PageHeader } from '@web/components/page-header';
+import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
+import { paths } from '@web/config/paths';
+import { bundleQueryOptions, useBundle } from '@web/features/bundles/api/get-bundle';
+import { bundleReplaysQueryOptions, useBundleReplays } from '@web/features/replays/api/get-bundle-replays';
+import { ReplayLauncher } from '@web/features/replays/components/replay-launcher';
+import { ReplayList } from '@web/features/replays/components/replay-list';
+import { SqlConsolePanel } from '@web/features/sql-console/components/sql-console-panel';
+import { useBundleTracks } from '@web/features/workspace/api/get-bundle-tracks';
+import { ReplayWorkspace } from '@web/features/workspace/components/replay-workspace';
+import { ArrowLeft, Bookmark, Columns2, History } from 'lucide-react';
+import { Link, type LoaderFunctionArgs, useParams, useSearchParams } from 'react-router-dom';
+
+export const workspaceLoader =
+  (queryClient: QueryClient) =>
+  ({ params }: LoaderFunctionArgs) => {
+    if (params.bundleId) {
+      void queryClient.prefetchQuery(bundleQueryOptions(params.bundleId));
+      void queryClient.prefetchQuery(bundleReplaysQueryOptions(params.bundleId));
+    }
+    return null;
+  };
+
+/** The investigator's workspace for one bundle: launch replays, pick one, scrub it. */
+export function WorkspaceRoute() {
+  const { bundleId = '' } = useParams();
+  const [search, setSearch] = useSearchParams();
+  const bundle = useBundle(bundleId);
+  const replays = useBundleReplays(bundleId);
+  const tracks = useBundleTracks(bundleId);
+  const items = replays.data?.items ?? [];
+  const finished = items.filter((r) => r.status === 'done');
+  const chosenId = search.get('replay') ?? finished[0]?.id;
+  const chosen = items.find((r) => r.id === chosenId && r.status === 'done');
+  const choose = (replayId: string) => setSearch({ replay: replayId }, { replace: false });
+
+  if (bundle.isError)
+    return (
+      <ErrorState error={bundle.error} title="Could not open this bundle" onRetry={() => bundle.refetch()} />
+    );
+  if (!bundle.data) return <SkeletonBar className="h-6 w-96" />;
+  const caseId = bundle.data.caseId;
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <Link
+            to={paths.caseDetail.href(caseId)}
+            className="inline-flex items-center gap-1 text-accent hover:underline"
+          >
+            <ArrowLeft aria-hidden className="size-4" /> Back to the case
+          </Link>
+        }
+        title={`Workspace · ${bundle.data.originalName}`}
+        actions={
+          finished.length >= 2 && (
+            <Link
+              to={paths.compareReplays.href(bundleId, finished[1].id, finished[0].id)}
+              className="inline-flex items-center gap-1.5 rounded-md border border-canvas-line bg-canvas-raised px-3 py-1.5 text-sm font-bold"
+            >
+              <Columns2 aria-hidden className="size-4" /> Compare replays
+            </Link>
+          )
+        }
+      />
+      <details open={!chosen} className="mb-4 rounded-lg border border-canvas-line bg-canvas-raised p-4">
+        <summary className="cursor-pointer font-bold">
+          Replays ({items.length})
+          {chosen && (
+            <span className="font-normal text-ink-muted"> · showing {chosen.label || 'untitled replay'}</span>
+          )}
+        </summary>
+        <div className="mt-3 grid grid-cols-2 gap-6">
+          <section aria-label="Start a replay">
+            <h2 className="mb-2 text-sm font-bold">Start a replay</h2>
+            {tracks.isError ? (
+              <ErrorState
+                error={tracks.error}
+                title="Could not read the manifest's settings"
+                onRetry={() => tracks.refetch()}
+              />
+            ) : tracks.data ? (
+              <ReplayLauncher
+                bundleId={bundleId}
+                defaults={tracks.data.filter}
+                onStarted={(replay) => choose(replay.id)}
+              />
+            ) : (
+              <SkeletonBar className="h-40 w-full" />
+            )}
+          </section>
+          <section aria-label="Replays">
+            <h2 className="mb-2 text-sm font-bold">Replays of this bundle</h2>
+            {replays.isError ? (
+              <ErrorState
+                error={replays.error}
+                title="Could not load the replays"
+                onRetry={() => replays.refetch()}
+              />
+            ) : replays.data ? (
+              <ReplayList replays={items} currentId={chosen?.id} onChoose={choose} />
+            ) : (
+              <SkeletonBar className="h-20 w-full" />
+            )}
+          </section>
+        </div>
+      </details>
+      {chosen ? (
+        <ReplayWorkspace
+          key={chosen.id}
+          bundleId={bundleId}
+          replay={chosen}
+          extraTabs={() => [
+            // Slot for the case's bookmarks; the bookmarks panel mounts here when it exists.
+            {
+              id: 'bookmarks',
+              label: 'Bookmarks',
+              content: (
+                <EmptyState icon={Bookmark} title="Bookmarks are not available yet">
+                  Pinned moments of this case will be listed here.
+                </EmptyState>
+              ),
+            },
+            {
+              id: 'sql',
+              label: 'SQL',
+              content: (
+                <SqlConsolePanel
+                  caseId={caseId}
+                  bundleId={bundleId}
+                  tables={bundle.data.tables.map((t) => t.name)}
+                />
+              ),
+            },
+          ]}
+        />
+      ) : (
+        <EmptyState icon={History} title="No finished replay to show">
+          Start a replay above; when it finishes, its map and timeline open here.
+        </EmptyState>
+      )}
+    </>
+  );
+}
