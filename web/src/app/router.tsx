@@ -5,6 +5,7 @@ import { AuditRoute, auditLoader } from './routes/audit';
 import { BundleSqlConsoleRoute } from './routes/bundle-sql-console';
 import { CaseDetailRoute, caseDetailLoader } from './routes/case-detail';
 import { CasesRoute } from './routes/cases';
+import { CompareRoute } from './routes/compare';
 import { FindingsRoute } from './routes/findings';
 import { FindingsDiffRoute } from './routes/findings-diff';
 import { FindingsVersionRoute } from './routes/findings-version';
@@ -15,7 +16,9 @@ import { NotFoundRoute } from './routes/not-found';
 import { OutboxRoute, outboxLoader } from './routes/outbox';
 import { RouteError } from './routes/route-error';
 import { SignInRoute, signInLoader } from './routes/sign-in';
+import { UploadRoute } from './routes/upload';
 import { UsersRoute, usersLoader } from './routes/users';
+import { WorkspaceRoute, workspaceLoader } from './routes/workspace';
 import { AppShell } from './shell/app-shell';
 import type { RouteHandle } from './shell/page-title';
 
@@ -96,6 +99,22 @@ export function createAppRouter(queryClient: QueryClient) {
               path: paths.bundleSqlConsole.path,
               element: <BundleSqlConsoleRoute />,
               handle: title('Cases / Bundle / SQL console'),
+            },
+            {
+              path: paths.uploadBundle.path,
+              element: <UploadRoute />,
+              handle: title('Cases / Upload bundle'),
+            },
+            {
+              path: paths.workspace.path,
+              loader: workspaceLoader(queryClient),
+              element: <WorkspaceRoute />,
+              handle: title('Cases / Workspace'),
+            },
+            {
+              path: paths.compareReplays.path,
+              element: <CompareRoute />,
+              handle: title('Cases / Compare replays'),
             },
             { path: '*', element: <NotFoundRoute />, handle: title('Not found') },
           ],
