@@ -6,8 +6,8 @@ import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
 import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
-import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
 import { useMe } from '@web/features/auth/api/get-me';
+import { CaseBundlesList } from '@web/features/bundles/components/case-bundles-list';
 import { CaseHoldPanel } from '@web/features/holds/components/case-hold-panel';
 import { CaseWorkSection } from '@web/features/lifecycle/components/case-work-section';
 import { isApiError } from '@web/lib/api-client';
@@ -117,14 +117,6 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
           <CaseArchivesPanel caseId={caseId} />
         </section>
       )}
-      {role === 'legal' && (
-        <section aria-labelledby="case-archive" className={`${PANEL} mb-5`}>
-          <h2 id="case-archive" className="mb-3 text-base font-bold">
-            Evidence archive
-          </h2>
-          <CaseArchivesPanel caseId={caseId} />
-        </section>
-      )}
       {role && (
         <section aria-labelledby="case-work" className={`${PANEL} mb-5`}>
           <h2 id="case-work" className="mb-3 text-base font-bold">
@@ -148,10 +140,7 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
           <h2 id="case-bundles" className="text-base font-bold">
             Bundles and replays
           </h2>
-          <EmptyState icon={FileArchive} title="No log bundles attached">
-            A bundle is the robot's recorded logs around the incident. Once one is attached, its replays,
-            flags and findings are listed here.
-          </EmptyState>
+          <CaseBundlesList caseId={caseId} canUpload={role === 'investigator'} />
         </section>
       </div>
     </>
