@@ -89,10 +89,10 @@ export function UploadView({ caseId }: { caseId: string }) {
             {outcome.message} It stays listed on the case as invalid with its SHA-256, so nothing is lost.
           </Alert>
           <div className="mt-4">
-            <BundleOverview bundle={outcome.bundle} />
-          </div>
-          <div className="mt-4">
             <ValidationReport issues={outcome.issues} />
+          </div>
+          <div className="mt-6">
+            <BundleOverview bundle={outcome.bundle} />
           </div>
         </section>
       )}

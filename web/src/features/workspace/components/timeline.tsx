@@ -7,7 +7,7 @@ import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../l
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { TimelineMarkers } from './timeline-markers';
 
-const LEFT = 132;
+const LEFT = 168;
 const RIGHT = 16;
 const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
@@ -83,8 +83,8 @@ function useTrackSpecs(
     if (clearance) {
       specs.push({
         id: 'clearance',
-        label: 'Clearance to obstacle',
-        unit: 'm',
+        label: 'Clearance',
+        unit: 'm, footprint to map',
         lines: [{ times: t, values: clearance, colour: '#0072B2' }],
         rule: { value: 0, label: 'footprint touches' },
       });
