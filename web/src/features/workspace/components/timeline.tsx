@@ -283,19 +283,16 @@ export function Timeline({
         />
         {trackElements}
         <g ref={brushRef} />
-        {cursorX >= LEFT && cursorX <= LEFT + plotWidth && (
-          <line
-            x1={cursorX}
-            x2={cursorX}
-            y1={0}
-            y2={height}
-            stroke="#1b2430"
-            strokeWidth={1.5}
-            pointerEvents="none"
-            data-testid="timeline-cursor"
-          />
-        )}
       </svg>
+      {cursorX >= LEFT && cursorX <= LEFT + plotWidth && (
+        // A separate element, so moving the cursor does not repaint the whole SVG.
+        <div
+          aria-hidden
+          data-testid="timeline-cursor"
+          className="pointer-events-none absolute top-0 w-0.5 bg-ink"
+          style={{ height, transform: `translateX(${cursorX - 1}px)`, left: 0, willChange: 'transform' }}
+        />
+      )}
       {hovered && (
         <div
           role="tooltip"
