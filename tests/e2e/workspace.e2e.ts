@@ -95,9 +95,24 @@ describe('investigator workspace', () => {
     expect(await page.getByTestId('cursor-readout').textContent()).toContain(`step ${step}`);
     await saveScreenshot(page, 'workspace');
 
+    // Pin the flagged moment, move away, then open the bookmark: the cursor returns to it.
+    const note = `Belief drifts at the flag, run ${Date.now() % 100_000}`;
+    await page.getByRole('button', { name: 'Pin this moment' }).click();
+    await page.getByLabel('Note').fill(note);
+    await page.getByRole('button', { name: 'Save bookmark' }).click();
+    await page.getByRole('button', { name: 'Save bookmark' }).waitFor({ state: 'detached' });
+    await scrubber.focus();
+    await page.keyboard.press('Home');
+    expect(await scrubber.getAttribute('aria-valuenow')).toBe('0');
+    await page.getByRole('tab', { name: 'Bookmarks' }).click();
+    await page.getByRole('button', { name: `Open bookmark: ${note}` }).click();
+    await expect
+      .poll(() => page.getByRole('slider', { name: 'Replay time' }).getAttribute('aria-valuenow'))
+      .toBe(step);
+
     // A what-if replay with more particles and recovery, then the comparison page.
     await startReplayAndWait(page, `More particles ${Date.now() % 100_000}`, async (p) => {
-      await p.getByLabel('Particles').fill('1500');
+      await p.getByLabel('Particles', { exact: true }).fill('1500');
       await p.getByLabel('Recovery (random particles when lost)').check();
     });
     await page.getByRole('link', { name: 'Compare replays' }).click();

@@ -1,7 +1,11 @@
+import type { TBookmark } from '@shared/contracts/bookmarks';
 import type { QueryClient } from '@tanstack/react-query';
 import { PageHeader } from '@web/components/page-header';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { paths } from '@web/config/paths';
+import { useMe } from '@web/features/auth/api/get-me';
+import { BookmarkPanel } from '@web/features/bookmarks/components/bookmark-panel';
+import { PinMomentButton } from '@web/features/bookmarks/components/pin-moment-button';
 import { bundleQueryOptions, useBundle } from '@web/features/bundles/api/get-bundle';
 import { bundleReplaysQueryOptions, useBundleReplays } from '@web/features/replays/api/get-bundle-replays';
 import { ReplayLauncher } from '@web/features/replays/components/replay-launcher';
@@ -9,8 +13,9 @@ import { ReplayList } from '@web/features/replays/components/replay-list';
 import { SqlConsolePanel } from '@web/features/sql-console/components/sql-console-panel';
 import { useBundleTracks } from '@web/features/workspace/api/get-bundle-tracks';
 import { ReplayWorkspace } from '@web/features/workspace/components/replay-workspace';
-import { ArrowLeft, Bookmark, Columns2, History } from 'lucide-react';
-import { Link, type LoaderFunctionArgs, useParams, useSearchParams } from 'react-router-dom';
+import { ArrowLeft, Columns2, History } from 'lucide-react';
+import { useState } from 'react';
+import { Link, type LoaderFunctionArgs, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 
 export const workspaceLoader =
   (queryClient: QueryClient) =>
@@ -34,6 +39,19 @@ export function WorkspaceRoute() {
   const chosenId = search.get('replay') ?? finished[0]?.id;
   const chosen = items.find((r) => r.id === chosenId && r.status === 'done');
   const choose = (replayId: string) => setSearch({ replay: replayId }, { replace: false });
+  const me = useMe();
+  const navigate = useNavigate();
+  // The bookmark being opened restores its step and map view in a fresh workspace.
+  const [opened, setOpened] = useState<TBookmark | null>(null);
+  const openBookmark = (bookmark: TBookmark) => {
+    if (bookmark.bundleId !== bundleId) {
+      navigate(paths.workspace.href(bookmark.bundleId, bookmark.replayId));
+      return;
+    }
+    setOpened(bookmark);
+    choose(bookmark.replayId);
+  };
+  const restoring = opened && opened.replayId === chosen?.id ? opened : null;
 
   if (bundle.isError)
     return (
@@ -109,18 +127,32 @@ export function WorkspaceRoute() {
       </details>
       {chosen ? (
         <ReplayWorkspace
-          key={chosen.id}
+          key={`${chosen.id}-${restoring?.id ?? ''}`}
           bundleId={bundleId}
           replay={chosen}
+          initialStep={restoring?.step}
+          initialView={restoring?.view}
+          toolbar={(moment) =>
+            me.data?.user.role === 'investigator' && (
+              <PinMomentButton
+                caseId={caseId}
+                replayId={moment.replayId}
+                step={moment.step}
+                t={moment.time}
+                view={moment.view ?? { centerX: 0, centerY: 0, zoom: 1 }}
+              />
+            )
+          }
           extraTabs={() => [
-            // Slot for the case's bookmarks; the bookmarks panel mounts here when it exists.
             {
               id: 'bookmarks',
               label: 'Bookmarks',
               content: (
-                <EmptyState icon={Bookmark} title="Bookmarks are not available yet">
-                  Pinned moments of this case will be listed here.
-                </EmptyState>
+                <BookmarkPanel
+                  caseId={caseId}
+                  onOpen={openBookmark}
+                  viewer={me.data ? { id: me.data.user.id, role: me.data.user.role } : undefined}
+                />
               ),
             },
             {

@@ -16,6 +16,7 @@ import {
   gridImage,
   SERIES_COLOURS,
 } from '../lib/map-drawing';
+import { HEATMAP_LAYER, type MapViewState } from '../lib/map-view-state';
 import { mapToScreen, nearestParticle, scaleBarLength, screenToMap } from '../lib/map-viewport';
 import { poseAtTime } from '../lib/pose-at-time';
 import { MapLegend } from './map-legend';
@@ -30,6 +31,10 @@ export interface MapViewProps {
   time: number;
   label?: string;
   height?: number;
+  /** Restores a pinned view (e.g. from a bookmark). */
+  initialView?: MapViewState;
+  /** Told whenever the view changes, so the moment can be pinned with it. */
+  onViewChange?: (view: MapViewState) => void;
 }
 
 /** Canvas view of the map with the replay's belief, the onboard and reference poses at the cursor. */
@@ -41,16 +46,40 @@ export function MapView({
   time,
   label = 'Map',
   height = 420,
+  initialView,
+  onViewChange,
 }: MapViewProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const canvasRef = useRef<HTMLCanvasElement>(null);
-  const [isFollowing, setIsFollowing] = useState(false);
-  const [showHeat, setShowHeat] = useState(false);
+  const [isFollowing, setIsFollowing] = useState(initialView?.followRobot ?? false);
+  const [showHeat, setShowHeat] = useState(initialView?.layers?.includes(HEATMAP_LAYER) ?? false);
   const [hover, setHover] = useState<{ px: number; py: number; index: number } | null>(null);
   const [drawnCount, setDrawnCount] = useState(0);
   const heat = useReplayDisagreement(replayId, showHeat);
   const follow = isFollowing && particles ? particles.mean : null;
-  const { view, zoom, fitToMap, handlers } = useMapViewport(map, width, height, follow);
+  const { view, zoom, fitToMap, handlers } = useMapViewport(
+    map,
+    width,
+    height,
+    follow,
+    initialView && {
+      centerX: initialView.centerX,
+      centerY: initialView.centerY,
+      pxPerMetre: initialView.zoom,
+    },
+  );
+  const onViewChangeRef = useRef(onViewChange);
+  onViewChangeRef.current = onViewChange;
+  useEffect(() => {
+    if (!view) return;
+    onViewChangeRef.current?.({
+      centerX: view.centerX,
+      centerY: view.centerY,
+      zoom: view.pxPerMetre,
+      followRobot: isFollowing,
+      layers: ['particles', 'scan', ...(showHeat ? [HEATMAP_LAYER] : [])],
+    });
+  }, [view, isFollowing, showHeat]);
   const onboard = useMemo(() => poseAtTime(tracks?.onboard, time), [tracks, time]);
   const reference = useMemo(() => poseAtTime(tracks?.reference, time), [tracks, time]);
 

@@ -4,6 +4,7 @@ import { type ReactNode, useCallback, useMemo, useState } from 'react';
 import { useReplayStep } from '../api/get-replay-step';
 import { usePlayback } from '../hooks/use-playback';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
+import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
@@ -17,6 +18,8 @@ export interface WorkspaceMoment {
   step: number;
   /** s since start_time */
   time: number;
+  /** The map view on screen; null until the map has been laid out. */
+  view: MapViewState | null;
 }
 
 export interface ReplayWorkspaceProps {
@@ -24,18 +27,27 @@ export interface ReplayWorkspaceProps {
   replay: TReplay;
   /** Extra side-panel tabs after "Flags" (bookmarks, SQL console), given the current moment. */
   extraTabs?: (moment: WorkspaceMoment, seekTime: (t: number) => void) => SidePanelTab[];
-  initialTime?: number;
+  /** Opens at this step and map view (e.g. a bookmark). */
+  initialStep?: number;
+  initialView?: MapViewState;
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
 }
 
 /** A finished replay: scrubber, map view and timeline sharing one cursor, and the side panel. */
-export function ReplayWorkspace({ bundleId, replay, extraTabs, initialTime, toolbar }: ReplayWorkspaceProps) {
+export function ReplayWorkspace({
+  bundleId,
+  replay,
+  extraTabs,
+  initialStep,
+  initialView,
+  toolbar,
+}: ReplayWorkspaceProps) {
   const data = useReplayViewData(bundleId, replay.id);
   const times = (data.series?.columns.t ?? []) as number[];
   const [step, setStep] = useState<number | null>(null);
-  const current =
-    step ?? (initialTime !== undefined && times.length ? Math.max(0, nearestStep(times, initialTime)) : 0);
+  const [mapView, setMapView] = useState<MapViewState | null>(initialView ?? null);
+  const current = step ?? initialStep ?? 0;
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
   const playback = usePlayback(times, current, setStep);
@@ -57,7 +69,7 @@ export function ReplayWorkspace({ bundleId, replay, extraTabs, initialTime, tool
     );
   }
   const time = times[current] ?? 0;
-  const moment = { replayId: replay.id, step: current, time };
+  const moment = { replayId: replay.id, step: current, time, view: mapView };
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
       <div className="min-w-0 space-y-3">
@@ -80,6 +92,8 @@ export function ReplayWorkspace({ bundleId, replay, extraTabs, initialTime, tool
           replayId={replay.id}
           particles={particles.data}
           time={time}
+          initialView={initialView}
+          onViewChange={setMapView}
         />
         {particles.isError && (
           <p className="text-sm text-state-bad">Particles at this step: {particles.error.message}</p>

@@ -8,8 +8,9 @@ export function useMapViewport(
   width: number,
   height: number,
   follow: { x: number; y: number } | null,
+  initial?: MapViewport,
 ) {
-  const [view, setView] = useState<MapViewport | null>(null);
+  const [view, setView] = useState<MapViewport | null>(initial ?? null);
   const drag = useRef<{ x: number; y: number } | null>(null);
   const fitToMap = useCallback(
     () =>
