@@ -13,6 +13,8 @@ const CELL_CHAR = ['.', '#', '?'];
 export interface BundleViewsOptions {
   /** Path of the stored original zip of a bundle (checked to exist by the caller). */
   originalPath: (bundleId: string) => Promise<string>;
+  /** Whether the replay was run on this bundle (its clearance is measured on this bundle's map). */
+  isReplayOf: (bundleId: string, replayId: string) => Promise<boolean>;
   derivedDir: string;
   maxUnpackedBytes: number;
 }
@@ -93,7 +95,12 @@ export function clearanceAlong(
 }
 
 /** Read-only views of a stored bundle for the workspace: map, tracks, clearance along a replay. */
-export function createBundleViews({ originalPath, derivedDir, maxUnpackedBytes }: BundleViewsOptions) {
+export function createBundleViews({
+  originalPath,
+  isReplayOf,
+  derivedDir,
+  maxUnpackedBytes,
+}: BundleViewsOptions) {
   // Parsing a bundle takes a while; the last few stay in memory while an investigator scrubs.
   const cache = new Map<string, Promise<Bundle>>();
   function parsedBundle(bundleId: string): Promise<Bundle> {
@@ -142,10 +149,14 @@ export function createBundleViews({ originalPath, derivedDir, maxUnpackedBytes }
             v: Array.from(bundle.commands.v, (v) => round(v)),
           }
         : null,
+      filter: bundle.manifest.filter,
     };
   }
 
   async function replayClearance(bundleId: string, replayId: string): Promise<TReplayClearance> {
+    if (!(await isReplayOf(bundleId, replayId))) {
+      throw new AppError('not_found', `Bundle ${bundleId} has no replay ${replayId}.`);
+    }
     const file = path.join(replayDir(derivedDir, replayId), 'series.json');
     const raw = await fs.promises.readFile(file, 'utf8').catch(() => {
       throw new AppError('not_found', `Replay ${replayId} of bundle ${bundleId} has no finished series.`);

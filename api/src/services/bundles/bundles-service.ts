@@ -7,7 +7,7 @@ import { AppError } from '../../../../shared/errors';
 import { inspectBundle } from '../../bundles/inspect-bundle';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
 import type { Database } from '../../db/client';
-import { bundles, cases, users } from '../../db/schema';
+import { bundles, cases, replays, users } from '../../db/schema';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
@@ -139,6 +139,13 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
 
   const views = createBundleViews({
     originalPath: async (bundleId) => (await originalFile(bundleId)).path,
+    isReplayOf: async (bundleId, replayId) => {
+      const [found] = await db
+        .select({ id: replays.id })
+        .from(replays)
+        .where(and(eq(replays.id, replayId), eq(replays.bundleId, bundleId)));
+      return Boolean(found);
+    },
     derivedDir,
     maxUnpackedBytes,
   });
