@@ -3,6 +3,7 @@ import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/repla
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
+import { useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { TimelineMarkers } from './timeline-markers';
@@ -13,21 +14,6 @@ const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
 const BAND_HEIGHT = 44;
 
-interface TrackLine {
-  times: ArrayLike<number>;
-  values: ArrayLike<number | null>;
-  colour: string;
-  dashed?: boolean;
-}
-interface TrackSpec {
-  id: string;
-  label: string;
-  unit: string;
-  lines: TrackLine[];
-  /** Horizontal reference line (e.g. the resampling threshold), value in track units. */
-  rule?: { value: number; label: string };
-}
-
 export interface TimelineProps {
   series: TReplaySeriesResponse;
   tracks: TBundleTracks | undefined;
@@ -37,60 +23,6 @@ export interface TimelineProps {
   onSeek: (step: number) => void;
   /** Accessible name, to tell two timelines apart on the comparison page. */
   label?: string;
-}
-
-function useTrackSpecs(
-  series: TReplaySeriesResponse,
-  tracks: TBundleTracks | undefined,
-  clearance?: (number | null)[],
-) {
-  return useMemo<TrackSpec[]>(() => {
-    const c = series.columns;
-    const t = c.t as number[];
-    const particles = c.particles?.[0] ?? 0;
-    const specs: TrackSpec[] = [
-      {
-        id: 'ess',
-        label: 'Effective sample size',
-        unit: 'particles',
-        lines: [{ times: t, values: c.ess, colour: '#0072B2' }],
-        rule: particles
-          ? { value: series.resamplingThreshold * particles, label: 'resampling threshold' }
-          : undefined,
-      },
-      {
-        id: 'loglik',
-        label: 'Log-likelihood',
-        unit: 'nats',
-        lines: [{ times: t, values: c.log_likelihood, colour: '#0072B2' }],
-      },
-      {
-        id: 'error',
-        label: 'Position error',
-        unit: 'm',
-        lines: [
-          { times: t, values: c.error_reference, colour: '#009E73' },
-          { times: t, values: c.error_onboard, colour: '#E69F00', dashed: true },
-        ],
-      },
-    ];
-    if (tracks) {
-      const speed: TrackLine[] = [{ times: tracks.speed.t, values: tracks.speed.speed, colour: '#5a6472' }];
-      if (tracks.commands)
-        speed.push({ times: tracks.commands.t, values: tracks.commands.v, colour: '#8a93a0', dashed: true });
-      specs.push({ id: 'speed', label: 'Speed', unit: 'm/s', lines: speed });
-    }
-    if (clearance) {
-      specs.push({
-        id: 'clearance',
-        label: 'Clearance',
-        unit: 'm, footprint to map',
-        lines: [{ times: t, values: clearance, colour: '#0072B2' }],
-        rule: { value: 0, label: 'footprint touches' },
-      });
-    }
-    return specs;
-  }, [series, tracks, clearance]);
 }
 
 const formatValue = (v: number) =>
@@ -260,8 +192,9 @@ export function Timeline({
 
   return (
     <div ref={containerRef} className="relative w-full">
+      {/* biome-ignore lint/a11y/useSemanticElements: an SVG cannot be a fieldset; the group holds the focusable flags. */}
       <svg
-        role="img"
+        role="group"
         aria-label={`${label}: diagnostics over time; drag to zoom, double-click to show everything`}
         width={width}
         height={height}
