@@ -13,7 +13,7 @@
 import { once } from 'node:events';
 import { loadavg } from 'node:os';
 import { pathToFileURL } from 'node:url';
-import { isMainThread, Worker, workerData } from 'node:worker_threads';
+import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { advanceStep, createStepWorkspace } from '../shared/engine/advance-step';
 import { replayDigest } from '../shared/engine/digest';
 import { createInitialState, runReplay } from '../shared/engine/filter';
@@ -54,6 +54,7 @@ const SPLIT_WORKER_ROLE = 'engine-bench-split-worker';
 const CONTROL = { sequence: 0, step: 1, count: 2, split: 3, bufferSet: 4, done: 5, length: 6 } as const;
 /** Shared particle arrays: two x/y/theta sets (resampling swaps them), then the stage buffers. */
 const SHARED_ARRAYS = 9;
+const WORKER_TIMEOUT_MS = 60_000;
 
 function benchContext(): ReplayContext {
   const bundle = makeSyntheticBundle({ seconds: 599.9, particles: PARTICLES, beamsUsed: 60 });
@@ -145,8 +146,7 @@ function serveSplitSteps(buffers: SharedArrayBuffer[], controlBuffer: SharedArra
   const state = createParticleState(0);
   const scratch = createRangeScratch(context, createRandomScratch());
   const outputs = stageBuffers(arrays);
-  Atomics.store(control, CONTROL.done, -1);
-  Atomics.notify(control, CONTROL.done);
+  parentPort?.postMessage('ready');
   let seen = 0;
   for (;;) {
     Atomics.wait(control, CONTROL.sequence, seen);
@@ -178,47 +178,63 @@ async function runSplit(context: ReplayContext): Promise<EngineBenchFigures> {
     eval: true,
     workerData: { role: SPLIT_WORKER_ROLE, buffers, control: controlBuffer },
   });
-  const exited = once(worker, 'exit');
   // The worker builds its own copy of the read-only context first; wait for it outside the timing.
-  while (Atomics.load(control, CONTROL.done) !== -1) await new Promise((resolve) => setTimeout(resolve, 20));
+  await once(worker, 'message'); // rejects if the worker fails to start
   const arrays = buffers.map((buffer) => new Float64Array(buffer));
   let sequence = 0;
-  const figures = measure('engine-replay-2-threads', 2, context, (onStep) =>
-    replaySteps(
-      context,
-      (state, workspace) => {
-        for (const [k, name] of (['x', 'y', 'theta'] as const).entries()) {
-          arrays[k].set(state[name]);
-          state[name] = arrays[k];
-        }
-        [workspace.spareX, workspace.spareY, workspace.spareTheta] = arrays.slice(3, 6);
-        const outputs = stageBuffers(arrays);
-        workspace.cosTheta = outputs.cosTheta;
-        workspace.sinTheta = outputs.sinTheta;
-        workspace.stepLogLikelihood = outputs.logLikelihood;
-        workspace.particleStages = (step, count) => {
-          const split = count >> 1;
-          control[CONTROL.step] = step;
-          control[CONTROL.count] = count;
-          control[CONTROL.split] = split;
-          control[CONTROL.bufferSet] = state.x === arrays[0] ? 0 : 1;
-          sequence++;
-          Atomics.store(control, CONTROL.sequence, sequence);
-          Atomics.notify(control, CONTROL.sequence);
-          const measurements = runParticleStages(context, state, step, [0, split], outputs, workspace.range);
-          while (Atomics.load(control, CONTROL.done) !== sequence)
-            Atomics.wait(control, CONTROL.done, Atomics.load(control, CONTROL.done));
-          return measurements;
-        };
-      },
-      onStep,
-    ),
-  );
-  control[CONTROL.step] = -1;
-  Atomics.store(control, CONTROL.sequence, sequence + 1);
-  Atomics.notify(control, CONTROL.sequence);
-  await exited;
-  return figures;
+  try {
+    return measure('engine-replay-2-threads', 2, context, (onStep) =>
+      replaySteps(
+        context,
+        (state, workspace) => {
+          for (const [k, name] of (['x', 'y', 'theta'] as const).entries()) {
+            arrays[k].set(state[name]);
+            state[name] = arrays[k];
+          }
+          [workspace.spareX, workspace.spareY, workspace.spareTheta] = arrays.slice(3, 6);
+          const outputs = stageBuffers(arrays);
+          workspace.cosTheta = outputs.cosTheta;
+          workspace.sinTheta = outputs.sinTheta;
+          workspace.stepLogLikelihood = outputs.logLikelihood;
+          workspace.particleStages = (step, count) => {
+            const split = count >> 1;
+            control[CONTROL.step] = step;
+            control[CONTROL.count] = count;
+            control[CONTROL.split] = split;
+            control[CONTROL.bufferSet] = state.x === arrays[0] ? 0 : 1;
+            sequence++;
+            Atomics.store(control, CONTROL.sequence, sequence);
+            Atomics.notify(control, CONTROL.sequence);
+            const measurements = runParticleStages(
+              context,
+              state,
+              step,
+              [0, split],
+              outputs,
+              workspace.range,
+            );
+            while (Atomics.load(control, CONTROL.done) !== sequence) {
+              const seen = Atomics.load(control, CONTROL.done);
+              // A dead worker must not hang the benchmark: no step takes anywhere near this long.
+              if (
+                seen !== sequence &&
+                Atomics.wait(control, CONTROL.done, seen, WORKER_TIMEOUT_MS) === 'timed-out'
+              )
+                throw new Error(`split worker did not finish step ${step} within ${WORKER_TIMEOUT_MS} ms`);
+            }
+            return measurements;
+          };
+        },
+        onStep,
+      ),
+    );
+  } finally {
+    control[CONTROL.step] = -1;
+    Atomics.store(control, CONTROL.sequence, sequence + 1);
+    Atomics.notify(control, CONTROL.sequence);
+    // Terminate rather than wait for exit: the TypeScript loader may keep the worker's loop alive.
+    await worker.terminate();
+  }
 }
 
 export async function run(): Promise<EngineBenchFigures[]> {
