@@ -94,6 +94,8 @@ describe('investigator workspace', () => {
     expect(bluePixels).toBeGreaterThan(20);
     expect(await page.getByTestId('cursor-readout').textContent()).toContain(`step ${step}`);
     await saveScreenshot(page, 'workspace');
+    await page.getByTestId('timeline').scrollIntoViewIfNeeded();
+    await saveScreenshot(page, 'workspace-timeline');
 
     // Pin the flagged moment, move away, then open the bookmark: the cursor returns to it.
     const note = `Belief drifts at the flag, run ${Date.now() % 100_000}`;
@@ -144,5 +146,7 @@ describe('investigator workspace', () => {
       )
       .toBeGreaterThan(0);
     await saveScreenshot(page, 'workspace-compare');
+    await table.scrollIntoViewIfNeeded();
+    await saveScreenshot(page, 'workspace-compare-table');
   }, 400_000);
 });

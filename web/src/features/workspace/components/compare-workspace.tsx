@@ -87,7 +87,7 @@ export function CompareWorkspace({
   const seekTime = (t: number) => setStep(Math.max(0, nearestStep(times, t)));
   return (
     <div className="space-y-4">
-      <div className="rounded-lg border border-canvas-line bg-canvas-raised p-3">
+      <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
         <Scrubber
           times={times}
           step={step}

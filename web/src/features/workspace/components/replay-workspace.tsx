@@ -73,7 +73,8 @@ export function ReplayWorkspace({
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
       <div className="min-w-0 space-y-3">
-        <div className="rounded-lg border border-canvas-line bg-canvas-raised p-3">
+        {/* Sticky, so the current time and step stay on screen while reading the timeline. */}
+        <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
           <Scrubber
             times={times}
             step={current}
