@@ -1,4 +1,4 @@
-import type { Footprint, Landmark } from '../bundle/types';
+import type { FilterConfig, Footprint, Landmark } from '../bundle/types';
 
 /**
  * `GET /api/bundles/:id/map`: the bundle's map.json as recorded (rows use "." free, "#" occupied,
@@ -40,6 +40,8 @@ export interface TBundleTracks {
   speed: { t: number[]; speed: number[] };
   /** Commanded linear velocity, m/s. */
   commands: { t: number[]; v: number[] } | null;
+  /** The manifest's filter block: what a replay without overrides uses (the launcher's defaults). */
+  filter: FilterConfig;
 }
 
 /**
