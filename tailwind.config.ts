@@ -7,9 +7,23 @@ export default {
   theme: {
     extend: {
       fontFamily: { sans: ['Lato', 'system-ui', 'sans-serif'] },
-      fontSize: { xs: ['12px', '16px'], sm: ['14px', '20px'], base: ['16px', '24px'], lg: ['20px', '28px'], xl: ['24px', '32px'] },
+      fontSize: {
+        xs: ['12px', '16px'],
+        sm: ['14px', '20px'],
+        base: ['16px', '24px'],
+        lg: ['20px', '28px'],
+        xl: ['24px', '32px'],
+      },
       colors: {
-        chrome: { 950: '#0f1722', 900: '#16212f', 800: '#1f2d3f', 700: '#2b3c52', 600: '#3d5270', 300: '#a9b8cc', 100: '#e3e9f1' },
+        chrome: {
+          950: '#0f1722',
+          900: '#16212f',
+          800: '#1f2d3f',
+          700: '#2b3c52',
+          600: '#3d5270',
+          300: '#a9b8cc',
+          100: '#e3e9f1',
+        },
         canvas: { DEFAULT: '#f4f5f2', raised: '#ffffff', line: '#d9dcd4', sunk: '#eceee8' },
         accent: { DEFAULT: '#3b4cca', strong: '#2c3aa6', soft: '#e6e8fa' },
         ink: { DEFAULT: '#1b2430', muted: '#5a6472', faint: '#8a93a0' },
