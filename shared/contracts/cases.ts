@@ -8,7 +8,14 @@ export type TSeverity = z.infer<typeof ZSeverity>;
  * Case states. The full lifecycle (review, sign-off) is enforced by the case-work service;
  * a new case starts `open`.
  */
-export const CASE_STATUSES = ['open', 'analysing', 'in_review', 'changes_requested', 'signed_off', 'closed'] as const;
+export const CASE_STATUSES = [
+  'open',
+  'analysing',
+  'in_review',
+  'changes_requested',
+  'signed_off',
+  'closed',
+] as const;
 export const ZCaseStatus = z.enum(CASE_STATUSES);
 export type TCaseStatus = z.infer<typeof ZCaseStatus>;
 
@@ -22,7 +29,10 @@ export const CASE_STATUS_LABELS: Record<TCaseStatus, string> = {
 };
 
 /** RFC 3339 date-time with an explicit offset (`Z` or `±hh:mm`). */
-export const ZRfc3339 = z.iso.datetime({ offset: true, message: 'Use an RFC 3339 time, e.g. 2026-11-14T09:12:00Z' });
+export const ZRfc3339 = z.iso.datetime({
+  offset: true,
+  message: 'Use an RFC 3339 time, e.g. 2026-11-14T09:12:00Z',
+});
 
 export const ZCreateCaseRequest = z.object({
   title: z.string().trim().min(3, 'Use at least 3 characters').max(200),

@@ -25,7 +25,10 @@ export function caseWorkSamples(
   app: () => TestApp,
 ): Record<string, (f: { caseId: string }, role?: Role | null) => CaseWorkSample | Promise<CaseWorkSample>> {
   let reviewed: Promise<{ caseId: string; version: number }> | undefined;
-  const reviewedCase = async () => (await (reviewed ??= submittedCase(app()))).caseId;
+  const reviewedCase = async () => {
+    reviewed ??= submittedCase(app());
+    return (await reviewed).caseId;
+  };
   return {
     'get /cases/:id/lifecycle': (f) => ({ path: `/api/cases/${f.caseId}/lifecycle` }),
     'post /cases/:id/transitions': async (_f, role) =>

@@ -61,8 +61,8 @@ export function VerifyArchiveForm() {
             Archive SHA-256 <span className="font-mono break-all">{result.archiveSha256}</span>
           </p>
           <ul className="max-h-72 overflow-auto text-xs">
-            {checks.map((check, index) => (
-              <li key={`${check.kind}-${check.file}-${index}`} className="flex gap-2 py-0.5">
+            {checks.map((check) => (
+              <li key={`${check.kind}-${check.file ?? ''}-${check.message}`} className="flex gap-2 py-0.5">
                 <span className={`font-bold ${check.ok ? 'text-state-ok' : 'text-state-bad'}`}>
                   {check.ok ? 'ok' : 'FAIL'}
                 </span>
