@@ -1,15 +1,11 @@
 import type { TCase } from '@shared/contracts/cases';
 import { LocalTime } from '@web/components/local-time';
 import { PageHeader } from '@web/components/page-header';
+import { Panel } from '@web/components/panel';
 import { SeverityBadge } from '@web/components/severity-badge';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
-import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
-import { useMe } from '@web/features/auth/api/get-me';
-import { CaseBundlesList } from '@web/features/bundles/components/case-bundles-list';
-import { CaseHoldPanel } from '@web/features/holds/components/case-hold-panel';
-import { CaseWorkSection } from '@web/features/lifecycle/components/case-work-section';
 import { isApiError } from '@web/lib/api-client';
 import { formatUtcDateTime } from '@web/lib/date-time';
 import { ArrowLeft, FileArchive, FileQuestion } from 'lucide-react';
@@ -53,11 +49,21 @@ function CaseFacts({ item }: { item: TCase }) {
   );
 }
 
-const PANEL = 'rounded-lg border border-canvas-line bg-canvas-raised p-5 shadow-sm';
+export interface CaseDetailSlots {
+  /** Shown under the header, e.g. the legal-hold banner. */
+  banner?: ReactNode;
+  /** Beside the incident facts: the case's bundles and replays. */
+  evidence?: ReactNode;
+  /** Full-width sections below (case work, evidence archive). */
+  sections?: ReactNode;
+}
 
-export function CaseDetailView({ caseId }: { caseId: string }) {
+/**
+ * The case page frame: header, facts and summary. The app route fills the slots with other
+ * features' panels, so this feature does not import them.
+ */
+export function CaseDetailView({ caseId, banner, evidence, sections }: { caseId: string } & CaseDetailSlots) {
   const caseQuery = useCase(caseId);
-  const role = useMe().data?.user.role;
   const backLink = (
     <Link to={paths.cases.href()} className="inline-flex items-center gap-1 text-accent hover:underline">
       <ArrowLeft aria-hidden className="size-4" />
@@ -90,7 +96,7 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
       <div aria-busy className="space-y-3">
         <SkeletonBar className="w-32" />
         <SkeletonBar className="h-6 w-96" />
-        <div className={`${PANEL} h-48`} />
+        <div className="h-48 rounded-lg border border-canvas-line bg-canvas-raised" />
       </div>
     );
   }
@@ -108,41 +114,18 @@ export function CaseDetailView({ caseId }: { caseId: string }) {
         title={item.title}
         actions={<CaseStatusBadge status={item.status} />}
       />
-      {role && <CaseHoldPanel caseId={caseId} role={role} />}
-      {role === 'legal' && (
-        <section aria-labelledby="case-archive" className={`${PANEL} mb-5`}>
-          <h2 id="case-archive" className="mb-3 text-base font-bold">
-            Evidence archive
-          </h2>
-          <CaseArchivesPanel caseId={caseId} />
-        </section>
-      )}
-      {role && (
-        <section aria-labelledby="case-work" className={`${PANEL} mb-5`}>
-          <h2 id="case-work" className="mb-3 text-base font-bold">
-            Case work
-          </h2>
-          <CaseWorkSection caseId={caseId} role={role} />
-        </section>
-      )}
-      <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
-        <section aria-labelledby="case-facts" className={PANEL}>
-          <h2 id="case-facts" className="text-base font-bold">
-            Incident
-          </h2>
+      {banner}
+      <div className="mb-5 grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
+        <Panel id="case-facts" title="Incident">
           <CaseFacts item={item} />
           <h3 className="mt-3 text-xs font-bold uppercase tracking-wide text-ink-muted">Summary</h3>
           <p className="mt-1 whitespace-pre-line text-sm">
             {item.summary || <span className="text-ink-muted italic">No summary written yet.</span>}
           </p>
-        </section>
-        <section aria-labelledby="case-bundles" className={PANEL}>
-          <h2 id="case-bundles" className="text-base font-bold">
-            Bundles and replays
-          </h2>
-          <CaseBundlesList caseId={caseId} canUpload={role === 'investigator'} />
-        </section>
+        </Panel>
+        {evidence}
       </div>
+      {sections}
     </>
   );
 }

@@ -1,0 +1,74 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+/**
+ * The dependency rules of DEVELOPERS.md, checked on the source text so a change that breaks
+ * them fails the build: shared code imports neither side, the web app never imports the API,
+ * features do not import each other, and the engine stays pure and deterministic.
+ */
+function sourceFiles(dir: string): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const full = path.join(dir, entry.name);
+    if (entry.isDirectory()) return sourceFiles(full);
+    return /\.(ts|tsx)$/.test(entry.name) ? [full] : [];
+  });
+}
+
+function importsOf(file: string): string[] {
+  const text = fs.readFileSync(file, 'utf8');
+  return [
+    ...text.matchAll(/(?:import|export)[^'"]*?from\s+['"]([^'"]+)['"]|import\(\s*['"]([^'"]+)['"]\s*\)/g),
+  ].map((match) => match[1] ?? match[2]);
+}
+
+/** Where an import lands, as a path relative to the repository root (aliases resolved). */
+function target(file: string, specifier: string): string {
+  if (specifier.startsWith('@shared/')) return path.join('shared', specifier.slice('@shared/'.length));
+  if (specifier.startsWith('@web/')) return path.join('web/src', specifier.slice('@web/'.length));
+  if (specifier.startsWith('.')) return path.relative('.', path.resolve(path.dirname(file), specifier));
+  return specifier;
+}
+
+function violations(
+  root: string,
+  isForbidden: (file: string, landsIn: string, specifier: string) => boolean,
+) {
+  return sourceFiles(root).flatMap((file) =>
+    importsOf(file)
+      .filter((specifier) => isForbidden(file, target(file, specifier), specifier))
+      .map((specifier) => `${file} imports ${specifier}`),
+  );
+}
+
+describe('architecture', () => {
+  it('keeps shared/ free of web/ and api/', () => {
+    expect(violations('shared', (_f, landsIn) => /^(web|api)\//.test(landsIn))).toEqual([]);
+  });
+
+  it('keeps the web app from importing the API', () => {
+    expect(violations('web/src', (_f, landsIn) => landsIn.startsWith('api/'))).toEqual([]);
+  });
+
+  it('keeps features from importing each other', () => {
+    const featureOf = (p: string) => p.match(/^web\/src\/features\/([^/]+)/)?.[1];
+    const found = violations('web/src/features', (file, landsIn) => {
+      const other = featureOf(landsIn);
+      return other !== undefined && other !== featureOf(path.relative('.', file));
+    });
+    expect(found).toEqual([]);
+  });
+
+  it('keeps the engine pure: no Node or browser APIs, no clock, no Math.random', () => {
+    const impure = sourceFiles('shared/engine').flatMap((file) => {
+      const text = fs.readFileSync(file, 'utf8').replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, '');
+      const problems = [];
+      if (/from\s+['"]node:|require\(/.test(text)) problems.push('Node import');
+      if (/Math\.random\s*\(/.test(text)) problems.push('Math.random');
+      if (/Date\.now\s*\(|new Date\s*\(|performance\.now\s*\(/.test(text)) problems.push('clock');
+      if (/\b(window|document|localStorage|fetch)\b/.test(text)) problems.push('browser API');
+      return problems.map((problem) => `${file}: ${problem}`);
+    });
+    expect(impure).toEqual([]);
+  });
+});
