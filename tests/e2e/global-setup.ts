@@ -1,10 +1,9 @@
-import { type ChildProcess, spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import { createServer } from 'node:net';
-import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { TestProject } from 'vitest/node';
+import { startServer } from '../support/start-server';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -37,92 +36,14 @@ function buildWebIfNeeded() {
   if (result.status !== 0) throw new Error('e2e setup: `vite build` failed; see its output above.');
 }
 
-function findFreePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      probe.close(() =>
-        typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port')),
-      );
-    });
-  });
-}
-
-async function waitForHealth(baseUrl: string, server: ChildProcess, log: () => string, timeoutMs = 120_000) {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) {
-      throw new Error(
-        `e2e setup: the server exited with code ${server.exitCode} before it was healthy:\n${log()}`,
-      );
-    }
-    try {
-      const response = await fetch(`${baseUrl}/api/health`);
-      if (response.ok) return;
-    } catch {
-      // Not listening yet.
-    }
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-  throw new Error(`e2e setup: ${baseUrl}/api/health did not answer within ${timeoutMs / 1000} s:\n${log()}`);
-}
-
 /** Starts one real server (fresh data directory, demo seed, fake SMTP) for all browser tests. */
 export default async function setup(project: TestProject) {
   buildWebIfNeeded();
-  const port = await findFreePort();
-  // The fake SMTP server gets its own free port too, so parallel runs on one machine do not clash.
-  const smtpPort = await findFreePort();
-  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-e2e-'));
-  const baseUrl = `http://127.0.0.1:${port}`;
-  let output = '';
-  const server = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['api/src/server.ts'], {
-    cwd: ROOT,
-    env: {
-      ...process.env,
-      PORT: String(port),
-      DATA_DIR: dataDir,
-      DEMO_SEED: '1',
-      SMTP_FAKE_PORT: String(smtpPort),
-      LOG_LEVEL: 'warn',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-    detached: true,
-  });
   // The whole server log is kept on disk, so a crash in the middle of a run can be diagnosed.
-  const logFile = path.join(ROOT, 'tests', 'output', 'e2e-server.log');
-  fs.mkdirSync(path.dirname(logFile), { recursive: true });
-  fs.writeFileSync(logFile, '');
-  const keep = (chunk: Buffer) => {
-    output = (output + chunk.toString()).slice(-20_000);
-    fs.appendFileSync(logFile, chunk);
-  };
-  server.stdout?.on('data', keep);
-  server.stderr?.on('data', keep);
-
-  server.once('exit', (code, signal) => {
-    fs.appendFileSync(logFile, `\n[e2e setup] server exited: code ${code}, signal ${signal}\n`);
+  const server = await startServer({
+    label: 'e2e',
+    logFile: path.join(ROOT, 'tests', 'output', 'e2e-server.log'),
   });
-
-  const stop = async () => {
-    if (server.exitCode === null && server.pid) {
-      const exited = new Promise((resolve) => server.once('exit', resolve));
-      // The negative pid signals tsx's whole process group, so no node child outlives the tests.
-      process.kill(-server.pid, 'SIGTERM');
-      await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 5_000))]);
-      if (server.exitCode === null) process.kill(-server.pid, 'SIGKILL');
-    }
-    fs.rmSync(dataDir, { recursive: true, force: true });
-  };
-
-  try {
-    await waitForHealth(baseUrl, server, () => output);
-  } catch (error) {
-    await stop();
-    throw error;
-  }
-  project.provide('baseUrl', baseUrl);
-  return stop;
+  project.provide('baseUrl', server.baseUrl);
+  return server.stop;
 }
