@@ -4,6 +4,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
+import { readArchiveEntries } from '../../api/src/archive/read-archive-entries';
+import { SAFETY_CAUTION } from '../../shared/safety-caution';
 import { saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
@@ -49,6 +51,27 @@ describe('evidence archive', () => {
     await page.getByRole('button', { name: 'Verify' }).click();
     await page.getByText(/All \d+ checks passed/).waitFor({ timeout: 120_000 });
     await saveScreenshot(page, 'archive-verified');
+
+    // The report is self-contained: it renders from a file with no request leaving the page, shows
+    // the safety caution, and prints to PDF on A4 and Letter.
+    const entries = await readArchiveEntries(archive, dir);
+    const reportFile = path.join(dir, 'report.html');
+    fs.writeFileSync(reportFile, entries.contents.get('report.html')!);
+    const reportPage = await browser.open();
+    const outside: string[] = [];
+    reportPage.on('request', (request) => {
+      if (!request.url().startsWith('file://') && !request.url().startsWith('data:'))
+        outside.push(request.url());
+    });
+    await reportPage.goto(`file://${reportFile}`);
+    await reportPage.getByText(SAFETY_CAUTION.slice(0, 60), { exact: false }).first().waitFor();
+    expect(outside).toEqual([]);
+    await saveScreenshot(reportPage, 'archive-report', { fullPage: true });
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = await reportPage.pdf({ format, printBackground: true });
+      expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+      fs.writeFileSync(path.resolve(`tests/output/archive-report-${format}.pdf`), pdf);
+    }
 
     // One flipped byte in the middle of the zip (inside a stored file) must fail verification.
     const bytes = fs.readFileSync(archive);

@@ -42,10 +42,14 @@ export async function openPage(browser: Browser, baseUrl: string, options: PageO
 
 export const SCREENSHOT_DIR = path.resolve('tests/output/screenshots');
 
-export async function saveScreenshot(page: Page, name: string): Promise<string> {
+export async function saveScreenshot(
+  page: Page,
+  name: string,
+  options: { fullPage?: boolean } = {},
+): Promise<string> {
   fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const file = path.join(SCREENSHOT_DIR, `${name}.png`);
-  await page.screenshot({ path: file });
+  await page.screenshot({ path: file, fullPage: options.fullPage });
   return file;
 }
 
