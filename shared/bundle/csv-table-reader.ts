@@ -143,9 +143,11 @@ export function createCsvTableReader(
     previousTime = value;
     if (previous === undefined) return true;
     if (spec.timeOrder === 'strict' ? value > previous : value >= previous) return true;
-    const rule = spec.timeOrder === 'strict' ? 'strictly increasing' : 'not going backwards';
-    const expected = spec.timeOrder === 'strict' ? `> ${previous}` : `>= ${previous}`;
-    report(lineNumber, column.name, `${column.name} is not ${rule}`, expected, String(value));
+    const isStrict = spec.timeOrder === 'strict';
+    const message = isStrict
+      ? `${column.name} is not strictly increasing`
+      : `${column.name} goes backwards in time`;
+    report(lineNumber, column.name, message, isStrict ? `> ${previous}` : `>= ${previous}`, String(value));
     return false;
   }
 

@@ -38,14 +38,14 @@ describe('CSV tables of a bundle', () => {
     const content = 't,class,range,bearing\n0.2,dock,1,0\n0.2,reflector,2,0.5\n0.1,column,3,0\n';
     const issues = issuesWith('detections.csv', content).filter((issue) => issue.file === 'detections.csv');
     expect(issues).toHaveLength(1);
-    expectIssue(issues, { file: 'detections.csv', line: 4, field: 't' }, /not going backwards/);
+    expectIssue(issues, { file: 'detections.csv', line: 4, field: 't' }, /goes backwards in time/);
   });
 
   it('lets events repeat a t but not go backwards', () => {
     const content = 't,kind,detail\n1,contact,a\n1,protective_stop,b\n0.5,operator_note,c\n';
     const issues = issuesWith('events.csv', content);
     expect(issues.filter((issue) => issue.file === 'events.csv')).toHaveLength(1);
-    expectIssue(issues, { file: 'events.csv', line: 4, field: 't' }, /not going backwards/);
+    expectIssue(issues, { file: 'events.csv', line: 4, field: 't' }, /goes backwards in time/);
   });
 
   it('rejects a negative t', () => {
