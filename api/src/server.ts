@@ -35,7 +35,12 @@ async function main() {
   const sampleDir = path.join(PROJECT_ROOT, 'sample-logs');
   if (
     config.demoSeed &&
-    (await seedDemoData(database.db, { bundles: app.locals.bundles, replays: app.locals.replays, sampleDir }))
+    (await seedDemoData(database.db, {
+      bundles: app.locals.bundles,
+      replays: app.locals.replays,
+      audit: app.locals.caseWork.audit,
+      sampleDir,
+    }))
   ) {
     logger.info('seeded demo accounts, cases and sample bundles');
   }
