@@ -11,7 +11,7 @@
  * the number of beams and detections used, i.e. a geometric mean), so the ratio does not swing
  * with the number of beams in a scan.
  *
- * Averages start at the first measured value, as ROS amcl's pf_update_sensor does, not at w = 0
+ * Averages start at the first measured value, not at w = 0
  * as in the book: from 0, w_slow (alpha 0.001) needs thousands of steps to reach the level of the
  * likelihood, so on our 70-80 s samples it stayed below w_fast, a belief stuck at a poor look-alike
  * (w_fast well under the healthy level) got no injection at all, and the first push did only once
