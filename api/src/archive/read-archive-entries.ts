@@ -19,17 +19,6 @@ export interface ReadArchive {
 /** Entries up to this size are kept in memory; larger ones are written to the temp folder. */
 const IN_MEMORY_LIMIT = 64 * 1024 * 1024;
 
-/** SHA-256 and size of a file on disk, read in chunks. */
-export async function hashFile(file: string): Promise<{ sha256: string; size: number }> {
-  const hash = createHash('sha256');
-  let size = 0;
-  for await (const chunk of fs.createReadStream(file) as AsyncIterable<Buffer>) {
-    hash.update(chunk);
-    size += chunk.length;
-  }
-  return { sha256: hash.digest('hex'), size };
-}
-
 /**
  * Reads every entry of an archive once: hashes it, keeps small files in memory and extracts
  * originals (`*.zip`) to `tempDir`, so memory stays bounded for large evidence.

@@ -12,9 +12,10 @@ import {
 } from '../../../shared/contracts/archives';
 import { runReplay } from '../../../shared/engine/filter';
 import type { ReplaySettings } from '../../../shared/engine/settings';
+import { hashFile } from '../bundles/sha256-file';
 import { loadBundleForReplay } from '../replays/replay-bundle-file';
 import { verifyDetached } from '../services/signing/detached-jws';
-import { hashFile, type ReadArchive, readArchiveEntries } from './read-archive-entries';
+import { type ReadArchive, readArchiveEntries } from './read-archive-entries';
 
 export interface VerifyOptions {
   /** Skip re-running replays (fast structural check only); the report says so. */

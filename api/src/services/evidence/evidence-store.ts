@@ -1,7 +1,6 @@
-import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { pipeline } from 'node:stream/promises';
+import { hashFile } from '../../bundles/sha256-file';
 
 export interface StoredEvidence {
   sha256: string;
@@ -25,21 +24,9 @@ export function createEvidenceStore(dataDir: string) {
 
   const pathFor = (sha256: string) => path.join(root, sha256.slice(0, 2), `${sha256}.bin`);
 
-  async function hashFile(file: string): Promise<{ sha256: string; sizeBytes: number }> {
-    const hash = createHash('sha256');
-    let sizeBytes = 0;
-    await pipeline(fs.createReadStream(file), async (source: AsyncIterable<Buffer>) => {
-      for await (const chunk of source) {
-        hash.update(chunk);
-        sizeBytes += chunk.length;
-      }
-    });
-    return { sha256: hash.digest('hex'), sizeBytes };
-  }
-
   /** Moves a freshly uploaded temporary file into the store (or drops it if already stored). */
   async function storeUploadedFile(tempFile: string): Promise<StoredEvidence> {
-    const { sha256, sizeBytes } = await hashFile(tempFile);
+    const { sha256, size: sizeBytes } = await hashFile(tempFile);
     const target = pathFor(sha256);
     if (fs.existsSync(target)) {
       await fs.promises.rm(tempFile, { force: true });
@@ -51,7 +38,7 @@ export function createEvidenceStore(dataDir: string) {
     return { sha256, sizeBytes, path: target, isNew: true };
   }
 
-  return { root, incoming, pathFor, hashFile, storeUploadedFile };
+  return { root, incoming, pathFor, storeUploadedFile };
 }
 
 export type EvidenceStore = ReturnType<typeof createEvidenceStore>;
