@@ -82,6 +82,7 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
     pool,
     logger,
     maxUnpackedBytes: config.maxUnpackedBytes,
+    loadBundle: bundles.parsedBundle,
   });
   const caseWork = createCaseWork({ db, config, logger });
   const bookmarks = createBookmarksService({ db, holds: caseWork.holds });

@@ -102,6 +102,7 @@ export function createBundleViews({
   maxUnpackedBytes,
 }: BundleViewsOptions) {
   // Parsing a bundle takes a while; the last few stay in memory while an investigator scrubs.
+  // The replay service reads parsed bundles through this same cache, so each is parsed once.
   const cache = new Map<string, Promise<Bundle>>();
   function parsedBundle(bundleId: string): Promise<Bundle> {
     const hit = cache.get(bundleId);
@@ -170,5 +171,5 @@ export function createBundleViews({
     };
   }
 
-  return { bundleMap, bundleTracks, replayClearance };
+  return { bundleMap, bundleTracks, replayClearance, parsedBundle };
 }

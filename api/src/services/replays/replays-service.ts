@@ -4,14 +4,17 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { desc, eq, inArray } from 'drizzle-orm';
 import type { Logger } from 'pino';
-import type { Manifest } from '../../../../shared/bundle/types';
-import type { TReplay, TStartReplayRequest } from '../../../../shared/contracts/replays';
-import { ZStartReplayRequest } from '../../../../shared/contracts/replays';
+import type { Bundle, Manifest } from '../../../../shared/bundle/types';
+import {
+  LIVE_REPLAY_STATUSES,
+  type TReplay,
+  type TStartReplayRequest,
+  ZStartReplayRequest,
+} from '../../../../shared/contracts/replays';
 import { resolveReplaySettings } from '../../../../shared/engine/settings';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
-import { loadBundleForReplay } from '../../replays/replay-bundle-file';
 import { replayDir } from '../../replays/replay-files';
 import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { EvidenceStore } from '../evidence/evidence-store';
@@ -25,6 +28,8 @@ export interface ReplaysServiceOptions {
   pool: ReplayPool;
   logger: Logger;
   maxUnpackedBytes: number;
+  /** Parsed bundle by id, from the bundles service's cache (used to answer single steps). */
+  loadBundle: (bundleId: string) => Promise<Bundle>;
 }
 
 interface LiveReplay {
@@ -44,14 +49,12 @@ export function createReplaysService({
   pool,
   logger,
   maxUnpackedBytes,
+  loadBundle,
 }: ReplaysServiceOptions) {
   const live = new Map<string, LiveReplay>();
   const notices = new EventEmitter();
   notices.setMaxListeners(100);
-  const steps = createStepCache(async (bundleId) => {
-    const [row] = await db.select({ sha256: bundles.sha256 }).from(bundles).where(eq(bundles.id, bundleId));
-    return loadBundleForReplay(evidence.pathFor(row.sha256), maxUnpackedBytes);
-  });
+  const steps = createStepCache(loadBundle);
 
   const selectReplays = () =>
     db
@@ -82,7 +85,7 @@ export function createReplaysService({
         error: 'Interrupted by a server restart; start it again.',
         finishedAt: new Date(),
       })
-      .where(inArray(replays.status, ['queued', 'running']))
+      .where(inArray(replays.status, [...LIVE_REPLAY_STATUSES]))
       .returning({ id: replays.id });
     return interrupted.length;
   }

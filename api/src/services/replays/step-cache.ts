@@ -50,25 +50,15 @@ function toTypedSeries(columns: Record<string, (number | null)[]>): ReplaySeries
 
 /**
  * Answers "the exact particle set after step k" by re-simulating from the nearest stored
- * keyframe. Parsed bundles and built contexts are cached so repeated scrubbing stays fast.
+ * keyframe. Built contexts are cached here and parsed bundles by the injected loader, so repeated
+ * scrubbing stays fast.
  */
 export function createStepCache(loadBundle: (bundleId: string) => Promise<Bundle>) {
-  const bundles = createLru<Promise<Bundle>>(3);
   const sources = createLru<Promise<StepSource>>(4);
-
-  function bundleFor(bundleId: string): Promise<Bundle> {
-    let pending = bundles.get(bundleId);
-    if (!pending) {
-      pending = loadBundle(bundleId);
-      bundles.set(bundleId, pending);
-      pending.catch(() => bundles.set(bundleId, undefined as never));
-    }
-    return pending;
-  }
 
   async function buildSource(bundleId: string, dir: string): Promise<StepSource> {
     const result = readReplayResultFile(dir);
-    const bundle = await bundleFor(bundleId);
+    const bundle = await loadBundle(bundleId);
     const columns = JSON.parse(await fs.promises.readFile(path.join(dir, 'series.json'), 'utf8'));
     return {
       context: buildReplayContext(bundle, result.settings),
@@ -123,7 +113,7 @@ export function createStepCache(loadBundle: (bundleId: string) => Promise<Bundle
     sourceFor(replayId, bundleId, dir).catch(() => undefined);
   }
 
-  return { stepAt, warm, bundleFor };
+  return { stepAt, warm };
 }
 
 export type StepCache = ReturnType<typeof createStepCache>;
