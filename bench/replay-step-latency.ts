@@ -7,6 +7,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
+import { replayToEnd } from '../tests/support/replay-runs';
 import { createTestApp } from '../tests/support/test-app';
 import { largeBundleZip } from './support/large-bundle-zip';
 
@@ -18,23 +19,18 @@ export async function run() {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-bench-steps-'));
   const t = await createTestApp({ DATA_DIR: dataDir });
   try {
-    const auth = { Authorization: `Bearer ${await t.tokenFor('investigator')}` };
+    const token = await t.tokenFor('investigator');
+    const auth = { Authorization: `Bearer ${token}` };
     const cases = await request(t.app).get('/api/cases').set(auth);
     const upload = await request(t.app)
       .post(`/api/cases/${cases.body.items[0].id}/bundles`)
       .set(auth)
       .attach('bundle', zip);
     const bundleId = upload.body.bundle.id;
-    const started = await request(t.app)
-      .post(`/api/bundles/${bundleId}/replays`)
-      .set(auth)
-      .send({ overrides: { particles: PARTICLES } });
-    let replay = started.body;
-    while (replay.status === 'queued' || replay.status === 'running') {
-      await new Promise((resolve) => setTimeout(resolve, 200));
-      replay = (await request(t.app).get(`/api/replays/${replay.id}`).set(auth)).body;
-    }
-    if (replay.status !== 'done') throw new Error(`replay ${replay.status}: ${replay.error}`);
+    const replay = await replayToEnd(t.app, token, bundleId, { overrides: { particles: PARTICLES } });
+    if (replay.status !== 'done' || !replay.steps)
+      throw new Error(`replay ${replay.status}: ${replay.error}`);
+    const steps = replay.steps;
     const firstStart = performance.now();
     await request(t.app).get(`/api/replays/${replay.id}/steps/0`).set(auth).expect(200);
     const coldMs = performance.now() - firstStart;
@@ -46,14 +42,14 @@ export async function run() {
       const started = performance.now();
       await request(t.app).get(`/api/replays/${replay.id}/steps/${k}`).set(auth).expect(200);
       latencies.push(performance.now() - started);
-      k = (k * 1103 + 4931) % replay.steps;
+      k = (k * 1103 + 4931) % steps;
     }
     latencies.sort((a, b) => a - b);
     return {
       metric: 'replay step latency',
-      steps: replay.steps,
+      steps,
       particles: PARTICLES,
-      replay_elapsed_ms: Math.round(replay.elapsedMs),
+      replay_elapsed_ms: Math.round(replay.elapsedMs ?? 0),
       first_request_ms_including_bundle_load: Math.round(coldMs),
       median_ms: Number(latencies[Math.floor(SAMPLES / 2)].toFixed(1)),
       p95_ms: Number(latencies[Math.floor(SAMPLES * 0.95)].toFixed(1)),

@@ -6,6 +6,11 @@ export { ZReplayOverrides };
 export const REPLAY_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 export type TReplayStatus = (typeof REPLAY_STATUSES)[number];
 
+/** Statuses of a replay that has not ended yet. */
+export const LIVE_REPLAY_STATUSES = ['queued', 'running'] as const satisfies readonly TReplayStatus[];
+export const isReplayLive = (status: TReplayStatus | undefined): boolean =>
+  status === 'queued' || status === 'running';
+
 /** Body of `POST /api/bundles/:id/replays`: no overrides replays with the manifest's settings. */
 export const ZStartReplayRequest = z.object({
   label: z.string().trim().max(120).optional(),

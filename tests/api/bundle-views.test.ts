@@ -2,6 +2,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fixtureMap, makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
+import { replayToEnd } from '../support/replay-runs';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -18,7 +19,8 @@ async function upload(caseId: string, zip: string): Promise<string> {
 
 beforeAll(async () => {
   t = await createTestApp();
-  auth = { Authorization: `Bearer ${await t.tokenFor('investigator')}` };
+  const token = await t.tokenFor('investigator');
+  auth = { Authorization: `Bearer ${token}` };
   const cases = await request(t.app).get('/api/cases').set(auth);
   const caseId = cases.body.items[0].id;
   const dir = await makeTempDir('driftcase-views-');
@@ -30,13 +32,9 @@ beforeAll(async () => {
     caseId,
     await writeBundleZip(path.join(dir, 'b.zip'), makeBundleFiles({ steps: 13 })),
   );
-  let replay = (await request(t.app).post(`/api/bundles/${bundleId}/replays`).set(auth).send({})).body;
-  while (replay.status === 'queued' || replay.status === 'running') {
-    await new Promise((resolve) => setTimeout(resolve, 50));
-    replay = (await request(t.app).get(`/api/replays/${replay.id}`).set(auth)).body;
-  }
+  const replay = await replayToEnd(t.app, token, bundleId);
   replayId = replay.id;
-  steps = replay.steps;
+  steps = replay.steps ?? 0;
 }, 60_000);
 
 afterAll(() => t?.close());

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { zipFolder } from '../../api/src/bundles/zip-folder';
 import type { TReplay } from '../../shared/contracts/replays';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
+import { replayToEnd } from '../support/replay-runs';
 
 const run = promisify(execFile);
 const SAMPLE = path.resolve('sample-logs/wheel-slip');
@@ -37,15 +38,7 @@ describe('one engine, one digest', () => {
       .post(`/api/cases/${bed.caseId}/bundles`)
       .set(auth)
       .attach('bundle', zip);
-    const started = await request(bed.t.app)
-      .post(`/api/bundles/${upload.body.bundle.id}/replays`)
-      .set(auth)
-      .send({});
-    let replay: TReplay = started.body;
-    while (replay.status === 'queued' || replay.status === 'running') {
-      await new Promise((resolve) => setTimeout(resolve, 100));
-      replay = (await request(bed.t.app).get(`/api/replays/${replay.id}`).set(auth)).body;
-    }
+    const replay = await replayToEnd(bed.t.app, bed.token, upload.body.bundle.id);
     expect(replay.status).toBe('done');
     expect(replay.digest).toBe(first.digest);
     expect(replay.flags.map((f) => f.kind)).toEqual(first.flags.map((f: { kind: string }) => f.kind));

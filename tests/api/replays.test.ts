@@ -8,6 +8,7 @@ import { runReplay } from '../../shared/engine/filter';
 import { resolveReplaySettings } from '../../shared/engine/settings';
 import { makeBundleFiles, makeTempDir, withFile, writeBundleZip } from '../support/bundle-fixtures';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
+import { waitForReplay } from '../support/replay-runs';
 
 let bed: CaseTestbed;
 let t: CaseTestbed['t'];
@@ -30,13 +31,7 @@ async function uploadBundle(files: Record<string, string>, name: string): Promis
   return res.body.bundle?.id ?? res.body.error.details.bundle.id;
 }
 
-async function waitForFinish(id: string): Promise<TReplay> {
-  for (;;) {
-    const res = await request(t.app).get(`/api/replays/${id}`).set(auth()).expect(200);
-    if (!['queued', 'running'].includes(res.body.status)) return res.body;
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
-}
+const waitForFinish = (id: string): Promise<TReplay> => waitForReplay(t.app, token, id);
 
 describe('replays over the API', () => {
   const files = makeBundleFiles({ steps: 120, beams: 9 });

@@ -8,6 +8,7 @@ import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-
 import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { evidenceSamples } from '../support/evidence-samples';
+import { replayToEnd } from '../support/replay-runs';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -117,18 +118,7 @@ beforeAll(async () => {
     .set('Authorization', `Bearer ${investigator}`)
     .attach('bundle', await freshBundleZip());
   const bundleId = uploaded.body.bundle.id;
-  const started = await request(t.app)
-    .post(`/api/bundles/${bundleId}/replays`)
-    .set('Authorization', `Bearer ${investigator}`)
-    .send({});
-  for (let status = started.body.status; status === 'queued' || status === 'running'; ) {
-    await new Promise((resolve) => setTimeout(resolve, 50));
-    status = (
-      await request(t.app)
-        .get(`/api/replays/${started.body.id}`)
-        .set('Authorization', `Bearer ${investigator}`)
-    ).body.status;
-  }
+  const finished = await replayToEnd(t.app, investigator, bundleId);
   const longZip = await writeBundleZip(
     path.join(zipDir, 'long.zip'),
     makeBundleFiles({ steps: 2000, beams: 21 }),
@@ -148,7 +138,7 @@ beforeAll(async () => {
     userId: users.body.items.find((u: { role: string }) => u.role === 'engineer').id,
     caseId,
     bundleId,
-    replayId: started.body.id,
+    replayId: finished.id,
     startLongReplay,
     freshBundleZip,
   };

@@ -4,6 +4,7 @@ import request from 'supertest';
 import type { Role } from '../../shared/roles';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from './bundle-fixtures';
 import { as, caseWithDraft, signedCase } from './case-work-fixtures';
+import { replayToEnd } from './replay-runs';
 import type { TestApp } from './test-app';
 
 /** Downloads a case archive as legal into `dir` and returns the file path. */
@@ -38,25 +39,15 @@ export async function archivedCase(t: TestApp): Promise<{ caseId: string; replay
     .set('Authorization', `Bearer ${token}`)
     .attach('bundle', zip);
   if (bundle.status !== 201) throw new Error(`upload: ${bundle.status} ${JSON.stringify(bundle.body)}`);
-  const started = await request(t.app)
-    .post(`/api/bundles/${bundle.body.bundle.id}/replays`)
-    .set('Authorization', `Bearer ${token}`)
-    .send({ overrides: { particles: 200 } });
-  let status = started.body.status;
-  while (status === 'queued' || status === 'running') {
-    await new Promise((resolve) => setTimeout(resolve, 50));
-    status = (
-      await request(t.app).get(`/api/replays/${started.body.id}`).set('Authorization', `Bearer ${token}`)
-    ).body.status;
-  }
-  if (status !== 'done') throw new Error(`replay ended ${status}`);
+  const replay = await replayToEnd(t.app, token, bundle.body.bundle.id, { overrides: { particles: 200 } });
+  if (replay.status !== 'done') throw new Error(`replay ended ${replay.status}`);
   const fix = await as(t, 'engineer').post(`/api/cases/${caseId}/fixes`, {
     url: 'https://tracker.harbourline.example/CR-204',
     description: 'Scan matcher weight raised for the cold-store aisles',
-    verificationReplayId: started.body.id,
+    verificationReplayId: replay.id,
   });
   if (fix.status !== 201) throw new Error(`fix: ${fix.status} ${JSON.stringify(fix.body)}`);
-  return { caseId, replayId: started.body.id };
+  return { caseId, replayId: replay.id };
 }
 
 /** Role-matrix samples for the archive routes. */

@@ -1,5 +1,5 @@
 import { type TBundleRecord, ZBundleList } from '@shared/contracts/bundles';
-import { type TReplay, ZReplayList } from '@shared/contracts/replays';
+import { isReplayLive, type TReplay, ZReplayList } from '@shared/contracts/replays';
 import { queryOptions } from '@tanstack/react-query';
 import { apiPaths } from '../config/paths';
 import { apiRequest } from '../lib/api-client';
@@ -28,7 +28,7 @@ export function caseReplaysQueryOptions(caseId: string) {
     queryFn: ({ signal }) => getCaseReplays(caseId, signal),
     // Replays run for seconds to minutes; poll while one is still going.
     refetchInterval: (query) =>
-      query.state.data?.replays.some((r) => r.status === 'queued' || r.status === 'running') ? 2000 : false,
+      query.state.data?.replays.some((r) => isReplayLive(r.status)) ? 2000 : false,
   });
 }
 

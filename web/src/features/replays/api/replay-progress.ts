@@ -1,4 +1,4 @@
-import type { TReplay } from '@shared/contracts/replays';
+import { isReplayLive, type TReplay } from '@shared/contracts/replays';
 import { useQueryClient } from '@tanstack/react-query';
 import { apiPaths } from '@web/config/paths';
 import { useEffect, useState } from 'react';
@@ -16,7 +16,7 @@ export interface ReplayProgress {
 export function useReplayProgress(replay: TReplay | undefined): ReplayProgress | null {
   const queryClient = useQueryClient();
   const [progress, setProgress] = useState<ReplayProgress | null>(null);
-  const isLive = replay?.status === 'queued' || replay?.status === 'running';
+  const isLive = isReplayLive(replay?.status);
   const replayId = replay?.id;
   const bundleId = replay?.bundleId;
 

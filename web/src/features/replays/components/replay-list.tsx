@@ -1,4 +1,4 @@
-import type { TReplay } from '@shared/contracts/replays';
+import { isReplayLive, type TReplay } from '@shared/contracts/replays';
 import { Button } from '@web/components/button';
 import { LocalTime } from '@web/components/local-time';
 import { EmptyState } from '@web/components/states';
@@ -44,7 +44,7 @@ function ReplayRow({
 }) {
   const status = STATUS[replay.status];
   const cancel = useCancelReplay(replay.bundleId);
-  const isLive = replay.status === 'queued' || replay.status === 'running';
+  const isLive = isReplayLive(replay.status);
   return (
     <li
       className={`rounded-md border p-2 text-sm ${isCurrent ? 'border-accent bg-accent-soft' : 'border-canvas-line'}`}
