@@ -2,7 +2,6 @@ import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
 import { useMemo, useState } from 'react';
 import { useReplayStep } from '../api/get-replay-step';
-import { usePlayback } from '../hooks/use-playback';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import { nearestStep } from '../lib/time-scale';
 import { ComparisonTable } from './comparison-table';
@@ -75,7 +74,6 @@ export function CompareWorkspace({
   const leftData = useReplayViewData(bundleId, left.id);
   const times = (leftData.series?.columns.t ?? []) as number[];
   const [step, setStep] = useState(0);
-  const playback = usePlayback(times, step, setStep);
   const moments = useMemo(
     () =>
       [...left.flags, ...right.flags]
@@ -88,16 +86,7 @@ export function CompareWorkspace({
   return (
     <div className="space-y-4">
       <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
-        <Scrubber
-          times={times}
-          step={step}
-          onStep={setStep}
-          moments={moments}
-          isPlaying={playback.isPlaying}
-          onTogglePlay={playback.togglePlaying}
-          speed={playback.speed}
-          onSpeed={playback.setSpeed}
-        />
+        <Scrubber times={times} step={step} onStep={setStep} moments={moments} />
       </div>
       <div className="grid grid-cols-2 gap-4">
         <ComparePane bundleId={bundleId} replay={left} time={time} onSeekTime={seekTime} title="Left" />

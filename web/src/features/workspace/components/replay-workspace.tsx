@@ -2,7 +2,6 @@ import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
 import { type ReactNode, useCallback, useMemo, useState } from 'react';
 import { useReplayStep } from '../api/get-replay-step';
-import { usePlayback } from '../hooks/use-playback';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
@@ -50,7 +49,6 @@ export function ReplayWorkspace({
   const current = step ?? initialStep ?? 0;
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
-  const playback = usePlayback(times, current, setStep);
   const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
   const moments = useMemo(
     () => [...replay.flags.map((f) => f.start), ...(data.tracks?.events.map((e) => e.t) ?? [])],
@@ -75,16 +73,7 @@ export function ReplayWorkspace({
       <div className="min-w-0 space-y-3">
         {/* Sticky, so the current time and step stay on screen while reading the timeline. */}
         <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
-          <Scrubber
-            times={times}
-            step={current}
-            onStep={setStep}
-            moments={moments}
-            isPlaying={playback.isPlaying}
-            onTogglePlay={playback.togglePlaying}
-            speed={playback.speed}
-            onSpeed={playback.setSpeed}
-          />
+          <Scrubber times={times} step={current} onStep={setStep} moments={moments} />
           {toolbar && <div className="mt-2">{toolbar(moment)}</div>}
         </div>
         <MapView

@@ -1,7 +1,7 @@
 import { Button } from '@web/components/button';
 import { Pause, Play, SkipBack, SkipForward } from 'lucide-react';
 import { type KeyboardEvent, type PointerEvent, useId } from 'react';
-import { PLAYBACK_SPEEDS, type PlaybackSpeed } from '../hooks/use-playback';
+import { PLAYBACK_SPEEDS, type PlaybackSpeed, usePlayback } from '../hooks/use-playback';
 import { adjacentMoment, stepAfterKey } from '../lib/step-navigation';
 import { nearestStep } from '../lib/time-scale';
 
@@ -11,10 +11,6 @@ export interface ScrubberProps {
   onStep: (step: number) => void;
   /** Flag starts and event times (s), for the previous/next jumps. */
   moments: number[];
-  isPlaying: boolean;
-  onTogglePlay: () => void;
-  speed: PlaybackSpeed;
-  onSpeed: (speed: PlaybackSpeed) => void;
 }
 
 /**
@@ -22,17 +18,14 @@ export interface ScrubberProps {
  * arrows for one step, Shift+arrows for one second, Home/End, Space to play or pause and [ / ]
  * for the previous or next flag or event.
  */
-export function Scrubber({
-  times,
-  step,
-  onStep,
-  moments,
-  isPlaying,
-  onTogglePlay,
-  speed,
-  onSpeed,
-}: ScrubberProps) {
+export function Scrubber({ times, step, onStep, moments }: ScrubberProps) {
   const labelId = useId();
+  const {
+    isPlaying,
+    togglePlaying: onTogglePlay,
+    speed,
+    setSpeed: onSpeed,
+  } = usePlayback(times, step, onStep);
   const last = Math.max(0, times.length - 1);
   const t = times[step] ?? 0;
   const jump = (direction: 1 | -1) => {
