@@ -1,10 +1,10 @@
 import { stat, writeFile } from 'node:fs/promises';
 import { formatIssue } from '@shared/bundle/format-issue';
 import { runReplay } from '@shared/engine/filter';
-import { detectFlags } from '@shared/engine/flags/detect-flags';
 import { buildReplayContext } from '@shared/engine/replay-context';
 import { parseReplayOverrides, resolveReplaySettings, type TReplayOverrides } from '@shared/engine/settings';
 import { inspectBundle } from '../../bundles/inspect-bundle';
+import { analyseReplay } from '../../replays/analyse-replay';
 
 const USAGE =
   'Usage: npm run cli -- replay PATH [--particles N] [--seed S] [--resampling METHOD] [--threshold F]\n' +
@@ -123,13 +123,8 @@ export async function run(args: string[]): Promise<number> {
     const started = performance.now();
     const result = runReplay(bundle, settings, { context });
     const elapsedMs = performance.now() - started;
-    const flags = detectFlags({
-      bundle,
-      series: result.series,
-      settings,
-      neesBound: result.neesBound,
-      context,
-    });
+    // The same analysis as API replays, so both report the same flags.
+    const { flags, divergedAt } = analyseReplay(bundle, result, context);
     const { series, metrics } = result;
     process.stdout.write(
       [
@@ -149,7 +144,7 @@ export async function run(args: string[]): Promise<number> {
         steps: result.steps,
         digest: result.digest,
         elapsed_ms: Math.round(elapsedMs),
-        metrics,
+        metrics: { ...metrics, diverged_at: divergedAt },
         series: {
           t: toJsonArray(series.t),
           x: toJsonArray(series.x),
