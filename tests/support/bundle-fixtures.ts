@@ -6,6 +6,7 @@ import { ZipArchive } from 'archiver';
 import { expect } from 'vitest';
 import type { BundleIssue } from '../../shared/bundle/types';
 import { validateBundleFiles } from '../../shared/bundle/validate-bundle-files';
+import { WAREHOUSE_DETECTOR } from './engine-fixtures';
 
 /**
  * Builders for incident bundles in tests and benchmarks: an invented warehouse ("Harbour Row
@@ -47,18 +48,8 @@ export function fixtureManifest(beams = 5): Record<string, unknown> {
       range_min: 0.05,
       range_max: 12,
     },
-    detector: {
-      classes: ['reflector', 'dock', 'column'],
-      confusion: [
-        [0.9, 0.05, 0.05],
-        [0.1, 0.85, 0.05],
-        [0.05, 0.05, 0.9],
-      ],
-      range_sigma: 0.05,
-      bearing_sigma: 0.03,
-      max_range: 8,
-      clutter: 0.05,
-    },
+    // A copy, so a test that breaks its own manifest cannot change the shared detector.
+    detector: structuredClone(WAREHOUSE_DETECTOR),
     filter: {
       particles: 500,
       seed: 7,
