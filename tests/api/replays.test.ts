@@ -60,6 +60,19 @@ describe('replays over the API', () => {
     expect(replay.steps).toBe(120);
   });
 
+  it('records the upload and the replay in the case audit trail', async () => {
+    const admin = await t.tokenFor('admin');
+    const audit = await request(t.app)
+      .get(`/api/cases/${caseId}/audit?pageSize=100`)
+      .set('Authorization', `Bearer ${admin}`)
+      .expect(200);
+    const actions = audit.body.items.map(
+      (e: { action: string; targetId: string }) => `${e.action} ${e.targetId}`,
+    );
+    expect(actions).toContain(`bundle.upload ${bundleId}`);
+    expect(actions).toContain(`replay.start ${replay.id}`);
+  });
+
   it('lists the replay on its bundle and serves the series', async () => {
     const list = await request(t.app).get(`/api/bundles/${bundleId}/replays`).set(auth()).expect(200);
     expect(list.body.items.map((r: TReplay) => r.id)).toContain(replay.id);

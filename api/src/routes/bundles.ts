@@ -3,6 +3,7 @@ import multer from 'multer';
 import { z } from 'zod';
 import { AppError } from '../../../shared/errors';
 import { ROLES } from '../../../shared/roles';
+import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { BundlesService } from '../services/bundles/bundles-service';
 import { ZCaseParams } from './cases';
@@ -29,6 +30,22 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       path: '/cases/:id/bundles',
       access: ['investigator'],
       before: [upload],
+      audit: {
+        action: 'bundle.upload',
+        // A bundle that fails validation is still stored (422), so that is a write too.
+        alsoOnStatuses: [422],
+        facts: (req, body) => {
+          const bundle =
+            (body as { bundle?: unknown }).bundle ??
+            (body as { error?: { details?: { bundle?: unknown } } }).error?.details?.bundle;
+          return {
+            targetType: 'bundle',
+            targetId: bodyField(bundle, 'id'),
+            caseId: routeParam(req, 'id'),
+            details: { sha256: bodyField(bundle, 'sha256'), status: bodyField(bundle, 'status') },
+          };
+        },
+      },
       handler: async (req, res) => {
         const { id: caseId } = ZCaseParams.parse(req.params);
         if (!req.file) {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../shared/contracts/cases';
 import { ROLES } from '../../../shared/roles';
+import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { CasesService } from '../services/cases/cases-service';
 
@@ -20,6 +21,14 @@ export function caseRoutes(cases: CasesService): RouteSpec[] {
       method: 'post',
       path: '/cases',
       access: ['investigator', 'admin'],
+      audit: {
+        action: 'case.create',
+        facts: (_req, body) => ({
+          targetType: 'case',
+          targetId: bodyField(body, 'id'),
+          caseId: bodyField(body, 'id'),
+        }),
+      },
       handler: async (req, res) => {
         const body = ZCreateCaseRequest.parse(req.body);
         res.status(201).json(await cases.createCase(body, req.user.id));
@@ -38,6 +47,18 @@ export function caseRoutes(cases: CasesService): RouteSpec[] {
       method: 'patch',
       path: '/cases/:id',
       access: ['investigator', 'admin'],
+      audit: {
+        action: 'case.update',
+        facts: (req, body) => ({
+          targetType: 'case',
+          targetId: routeParam(req, 'id'),
+          caseId: routeParam(req, 'id'),
+          details: {
+            fields: Object.keys(req.body ?? {}),
+            ...(req.body?.status ? { status: bodyField(body, 'status') } : {}),
+          },
+        }),
+      },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         res.json(await cases.updateCase(id, ZUpdateCaseRequest.parse(req.body)));

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { ZStartReplayRequest } from '../../../shared/contracts/replays';
 import { NEES_BOUND_95 } from '../../../shared/engine/trajectory-error';
 import { ROLES } from '../../../shared/roles';
+import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { ReplayNotice, ReplaysService } from '../services/replays/replays-service';
 
@@ -23,6 +24,16 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       method: 'post',
       path: '/bundles/:id/replays',
       access: ['investigator', 'engineer'],
+      // The answer is the replay, which names its case.
+      audit: {
+        action: 'replay.start',
+        facts: (req, body) => ({
+          targetType: 'replay',
+          targetId: bodyField(body, 'id'),
+          caseId: bodyField(body, 'caseId'),
+          details: { bundleId: routeParam(req, 'id') },
+        }),
+      },
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
         const replay = await replays.startReplay(id, ZStartReplayRequest.parse(req.body ?? {}), req.user.id);
@@ -51,6 +62,14 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       method: 'delete',
       path: '/replays/:id',
       access: ['investigator', 'engineer'],
+      audit: {
+        action: 'replay.delete',
+        facts: (req, body) => ({
+          targetType: 'replay',
+          targetId: routeParam(req, 'id'),
+          caseId: bodyField(body, 'caseId'),
+        }),
+      },
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
         res.status(202).json(await replays.cancelReplay(id));

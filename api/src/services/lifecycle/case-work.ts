@@ -12,8 +12,6 @@ import { keyRoutes } from '../../routes/keys';
 import { lifecycleRoutes } from '../../routes/lifecycle';
 import { outboxRoutes } from '../../routes/outbox';
 import { createAuditService } from '../audit/audit-service';
-import { EXISTING_ROUTE_AUDITS, withAuditDeclarations } from '../audit/existing-route-audits';
-import { replayRouteAudits } from '../audit/replay-route-audits';
 import { createRouteAuditor } from '../audit/route-auditor';
 import { createFindingsService } from '../findings/findings-service';
 import { createReviewService } from '../findings/review-service';
@@ -99,9 +97,8 @@ export function createCaseWork({ db, config, logger }: { db: Database; config: A
     fixes,
     routeSpecs,
     auditor: createRouteAuditor(audit),
-    /** Adds audit declarations to older write routes and the lifecycle check to PATCH /cases/:id. */
+    /** Adds the lifecycle check to PATCH /cases/:id. */
     applyToRoutes(specs: RouteSpec[]) {
-      withAuditDeclarations(specs, { ...EXISTING_ROUTE_AUDITS, ...replayRouteAudits(db) });
       const patch = specs.find((s) => s.method === 'patch' && s.path === '/cases/:id');
       if (patch) patch.before = [guardStatusPatch(lifecycle, db), ...(patch.before ?? [])];
       return specs;
