@@ -97,7 +97,7 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
     ...healthRoutes(),
     ...authRoutes(auth, cookieOptions),
     ...userRoutes(users),
-    ...caseRoutes(cases),
+    ...caseRoutes(cases, (caseId, to, role) => caseWork.lifecycle.transition(caseId, to, role, true)),
     ...bundleRoutes(bundles, { incomingDir: evidence.incoming, maxUploadBytes: config.maxUploadBytes }),
     ...replayRoutes(replays),
     ...caseWork.routeSpecs,
@@ -105,7 +105,6 @@ export function createApp({ db, config, logger, webDir, replayPool }: AppDepende
     ...bookmarkRoutes(bookmarks),
     ...savedQueryRoutes(savedQueries),
   ];
-  caseWork.applyToRoutes(routeSpecs);
   app.locals.routeSpecs = routeSpecs;
   app.locals.caseWork = caseWork;
   app.locals.replays = replays;

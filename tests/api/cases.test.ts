@@ -87,6 +87,24 @@ describe('cases', () => {
     expect(badId.body.error.details[0].path).toBe('id');
   });
 
+  it('moves the status only through the lifecycle: an illegal jump is a 409', async () => {
+    const created = await request(t.app).post('/api/cases').set(auth()).send(newCase()).expect(201);
+    const jump = await request(t.app)
+      .patch(`/api/cases/${created.body.id}`)
+      .set(auth())
+      .send({ status: 'signed_off', severity: 'low' })
+      .expect(409);
+    expect(jump.body.error.code).toBe('illegal_transition');
+    const unchanged = await request(t.app).get(`/api/cases/${created.body.id}`).set(auth()).expect(200);
+    expect(unchanged.body).toMatchObject({ status: 'open', severity: 'medium' });
+    const moved = await request(t.app)
+      .patch(`/api/cases/${created.body.id}`)
+      .set(auth())
+      .send({ status: 'analysing' })
+      .expect(200);
+    expect(moved.body.status).toBe('analysing');
+  });
+
   it('answers unknown API routes and malformed JSON with JSON errors', async () => {
     const unknown = await request(t.app).get('/api/nothing-here').set(auth()).expect(404);
     expect(unknown.body.error.code).toBe('not_found');

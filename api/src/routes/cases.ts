@@ -1,13 +1,21 @@
 import { z } from 'zod';
-import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../shared/contracts/cases';
-import { ROLES } from '../../../shared/roles';
+import {
+  type TCaseStatus,
+  ZCaseListQuery,
+  ZCreateCaseRequest,
+  ZUpdateCaseRequest,
+} from '../../../shared/contracts/cases';
+import { ROLES, type Role } from '../../../shared/roles';
 import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { CasesService } from '../services/cases/cases-service';
 
 export const ZCaseParams = z.object({ id: z.uuid('Case id must be a UUID') });
 
-export function caseRoutes(cases: CasesService): RouteSpec[] {
+/** Moves a case to another state through the lifecycle, or throws why it may not. */
+export type CaseStatusChanger = (caseId: string, to: TCaseStatus, role: Role) => Promise<unknown>;
+
+export function caseRoutes(cases: CasesService, changeStatus: CaseStatusChanger): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -61,7 +69,12 @@ export function caseRoutes(cases: CasesService): RouteSpec[] {
       },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json(await cases.updateCase(id, ZUpdateCaseRequest.parse(req.body)));
+        const { status, ...fields } = ZUpdateCaseRequest.parse(req.body);
+        // A status change is a lifecycle move like any other, checked by the same state machine.
+        if (status && status !== (await cases.getCase(id)).status) {
+          await changeStatus(id, status, req.user.role);
+        }
+        res.json(await cases.updateCase(id, fields));
       },
     },
   ];

@@ -1,10 +1,8 @@
-import type { RequestHandler } from 'express';
 import type { Logger } from 'pino';
 import type { AppConfig } from '../../config';
 import type { Database } from '../../db/client';
-import type { AuthedRequest, RouteSpec } from '../../http/route-spec';
+import type { RouteSpec } from '../../http/route-spec';
 import { auditRoutes } from '../../routes/audit';
-import { ZCaseParams } from '../../routes/cases';
 import { findingsRoutes } from '../../routes/findings';
 import { fixRoutes } from '../../routes/fixes';
 import { holdRoutes } from '../../routes/holds';
@@ -20,22 +18,7 @@ import { createHoldsService } from '../holds/holds-service';
 import { createMailQueue } from '../mail/mail-queue';
 import { createNotifications } from '../mail/notifications';
 import { createSigningKeyStore } from '../signing/signing-key';
-import { loadCaseState } from './case-state';
-import { createLifecycleService, type LifecycleService } from './lifecycle-service';
-
-/** Sends a PATCH /cases/:id that changes `status` through the same state machine as every other move. */
-function guardStatusPatch(lifecycle: LifecycleService, db: Database): RequestHandler {
-  return async (req, _res, next) => {
-    const params = ZCaseParams.safeParse(req.params);
-    const to = req.body?.status;
-    if (params.success && typeof to === 'string') {
-      const { status } = await loadCaseState(db, params.data.id);
-      if (status !== to)
-        await lifecycle.assertTransition(params.data.id, to as never, (req as AuthedRequest).user.role, true);
-    }
-    next();
-  };
-}
+import { createLifecycleService } from './lifecycle-service';
 
 /**
  * Builds the case-work services (lifecycle, findings, sign-off, fixes, mail, audit, holds) and
@@ -97,12 +80,6 @@ export function createCaseWork({ db, config, logger }: { db: Database; config: A
     fixes,
     routeSpecs,
     auditor: createRouteAuditor(audit),
-    /** Adds the lifecycle check to PATCH /cases/:id. */
-    applyToRoutes(specs: RouteSpec[]) {
-      const patch = specs.find((s) => s.method === 'patch' && s.path === '/cases/:id');
-      if (patch) patch.before = [guardStatusPatch(lifecycle, db), ...(patch.before ?? [])];
-      return specs;
-    },
   };
 }
 
