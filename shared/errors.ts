@@ -18,6 +18,8 @@ export const ERROR_STATUS = {
   invalid_bundle: 422,
   too_many_requests: 429,
   internal: 500,
+  /** The audit entry of a write could not be stored, so the write was rolled back with it. */
+  audit_failed: 500,
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_STATUS;
@@ -26,6 +28,8 @@ export type ErrorCode = keyof typeof ERROR_STATUS;
 export interface FieldIssue {
   path: string;
   message: string;
+  /** The same name as `path`, for clients that read `field`. */
+  field?: string;
 }
 
 export interface ErrorBody {
@@ -36,8 +40,9 @@ export class AppError extends Error {
   readonly code: ErrorCode;
   readonly details?: unknown;
 
-  constructor(code: ErrorCode, message: string, details?: unknown) {
-    super(message);
+  /** `cause` is logged by the server and never sent to the client. */
+  constructor(code: ErrorCode, message: string, details?: unknown, options?: { cause?: unknown }) {
+    super(message, options);
     this.name = 'AppError';
     this.code = code;
     this.details = details;

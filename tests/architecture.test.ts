@@ -5,7 +5,8 @@ import { describe, expect, it } from 'vitest';
 /**
  * The dependency rules of DEVELOPERS.md, checked on the source text so a change that breaks
  * them fails the build: shared code imports neither side, the web app never imports the API,
- * features do not import each other, and the engine stays pure and deterministic.
+ * features do not import each other, the engine stays pure and deterministic, and the API has one
+ * composition root that alone creates services and mounts routes.
  */
 function sourceFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
@@ -41,6 +42,24 @@ function violations(
   );
 }
 
+/** Value imports (not `import type`) of a file: the names and where they come from. */
+function valueImportsOf(file: string): { names: string[]; specifier: string }[] {
+  const text = fs.readFileSync(file, 'utf8');
+  return [...text.matchAll(/import\s+(type\s+)?\{([^}]*)\}\s*from\s*['"]([^'"]+)['"]/g)]
+    .filter((match) => !match[1])
+    .map((match) => ({
+      names: match[2]
+        .split(',')
+        .map((name) => name.trim())
+        .filter((name) => name && !name.startsWith('type '))
+        .map((name) => name.split(/\s+as\s+/)[0]),
+      specifier: match[3],
+    }));
+}
+
+const SERVICES = 'api/src/services/';
+const COMPOSITION = 'api/src/composition/';
+
 describe('architecture', () => {
   it('keeps shared/ free of web/ and api/', () => {
     expect(violations('shared', (_f, landsIn) => /^(web|api)\//.test(landsIn))).toEqual([]);
@@ -70,5 +89,46 @@ describe('architecture', () => {
       return problems.map((problem) => `${file}: ${problem}`);
     });
     expect(impure).toEqual([]);
+  });
+
+  it('keeps services free of routes and HTTP: they never import routes/, http/ or the composition root', () => {
+    const found = violations('api/src/services', (_f, landsIn) =>
+      /^api\/src\/(routes|http|composition)\/|^api\/src\/app(\.ts)?$/.test(landsIn),
+    );
+    expect(found).toEqual([]);
+  });
+
+  it('lets only the composition root import route modules', () => {
+    const found = violations('api/src', (file, landsIn) => {
+      const from = path.relative('.', file);
+      return (
+        landsIn.startsWith('api/src/routes/') &&
+        !from.startsWith(COMPOSITION) &&
+        !from.startsWith('api/src/routes/')
+      );
+    });
+    expect(found).toEqual([]);
+  });
+
+  it('creates services only in the composition root', () => {
+    const found = sourceFiles('api/src').flatMap((file) => {
+      const from = path.relative('.', file);
+      if (from.startsWith(COMPOSITION)) return [];
+      return valueImportsOf(file).flatMap(({ names, specifier }) => {
+        const landsIn = target(file, specifier);
+        const isOtherService = landsIn.startsWith(SERVICES) && path.dirname(landsIn) !== path.dirname(from);
+        return isOtherService
+          ? names.filter((name) => /^create[A-Z]/.test(name)).map((name) => `${from} imports ${name}`)
+          : [];
+      });
+    });
+    expect(found).toEqual([]);
+  });
+
+  it('has no listeners on the audit trail: status changes are explicit calls in the writing service', () => {
+    const found = sourceFiles('api/src').filter((file) =>
+      /\bonAppended\b|audit\w*\.on\(/.test(fs.readFileSync(file, 'utf8')),
+    );
+    expect(found).toEqual([]);
   });
 });

@@ -29,18 +29,13 @@ async function main() {
     logger,
     webDir: WEB_DIST,
   });
-  app.locals.caseWork.mailQueue.start();
-  const interrupted = await app.locals.replays.failInterruptedReplays();
+  const { services } = app.locals;
+  services.mailQueue.start();
+  const interrupted = await services.replays.failInterruptedReplays();
   if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
-  const sampleDir = path.join(PROJECT_ROOT, 'sample-logs');
   if (
     config.demoSeed &&
-    (await seedDemoData(database.db, {
-      bundles: app.locals.bundles,
-      replays: app.locals.replays,
-      audit: app.locals.caseWork.audit,
-      sampleDir,
-    }))
+    (await seedDemoData(services, { sampleDir: path.join(PROJECT_ROOT, 'sample-logs') }))
   ) {
     logger.info('seeded demo accounts, cases and sample bundles');
   }
@@ -56,7 +51,7 @@ async function main() {
     server.close();
     server.closeAllConnections();
     await app.locals.shutdown();
-    await app.locals.caseWork.mailQueue.stop();
+    await services.mailQueue.stop();
     await fakeSmtp?.close();
     await database.close();
     process.exit(0);

@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import { ROLES } from '../roles';
+import { safeText } from './safe-text';
 
 export const ZRole = z.enum(ROLES);
 
-export const ZLoginRequest = z.object({
-  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address'),
-  password: z.string().min(1, 'Enter your password').max(200),
+export const ZLoginRequest = z.strictObject({
+  email: safeText().trim().toLowerCase().email('Enter a valid e-mail address'),
+  password: safeText().min(1, 'Enter your password').max(200),
 });
 export type TLoginRequest = z.infer<typeof ZLoginRequest>;
 

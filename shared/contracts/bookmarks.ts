@@ -1,20 +1,21 @@
 import { z } from 'zod';
+import { safeText } from './safe-text';
 
 /** The map view a bookmark restores: centre in the map frame (m), zoom in screen px per m. */
-export const ZBookmarkView = z.object({
+export const ZBookmarkView = z.strictObject({
   centerX: z.number().finite('centerX must be a finite number (m)'),
   centerY: z.number().finite('centerY must be a finite number (m)'),
   zoom: z.number().positive('zoom must be above 0 (px per m)').max(1e6),
   followRobot: z.boolean().optional(),
   /** Names of the visible map layers, e.g. "particles", "scan", "heatmap". */
-  layers: z.array(z.string().min(1).max(60)).max(40).optional(),
+  layers: z.array(safeText().min(1).max(60)).max(40).optional(),
 });
 export type TBookmarkView = z.infer<typeof ZBookmarkView>;
 
-const ZNote = z.string().trim().min(1, 'Write a note for the bookmark').max(4000);
+const ZNote = safeText().trim().min(1, 'Write a note for the bookmark').max(4000);
 
 /** Body of `POST /api/cases/:id/bookmarks`. */
-export const ZCreateBookmarkRequest = z.object({
+export const ZCreateBookmarkRequest = z.strictObject({
   replayId: z.uuid('replayId must be a replay id (UUID)'),
   step: z.number().int('step must be a whole step number').nonnegative('step must be 0 or more'),
   /** s since the bundle's start_time */
@@ -25,7 +26,7 @@ export const ZCreateBookmarkRequest = z.object({
 export type TCreateBookmarkRequest = z.infer<typeof ZCreateBookmarkRequest>;
 
 /** Body of `PATCH /api/bookmarks/:id`: only the note changes; the moment stays as pinned. */
-export const ZUpdateBookmarkRequest = z.object({ note: ZNote }).strict();
+export const ZUpdateBookmarkRequest = z.strictObject({ note: ZNote });
 export type TUpdateBookmarkRequest = z.infer<typeof ZUpdateBookmarkRequest>;
 
 export const ZBookmark = z.object({

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { ZCaseStatus } from './cases';
+import { safeText } from './safe-text';
 
-export const ZCaseTransitionRequest = z.object({
+export const ZCaseTransitionRequest = z.strictObject({
   to: ZCaseStatus,
   /** Why, shown in the case history. */
-  comment: z.string().trim().max(2000).optional(),
+  comment: safeText().trim().max(2000).optional(),
 });
 export type TCaseTransitionRequest = z.infer<typeof ZCaseTransitionRequest>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeText } from './safe-text';
 
 export const SEVERITIES = ['low', 'medium', 'high', 'critical'] as const;
 export const ZSeverity = z.enum(SEVERITIES);
@@ -34,24 +35,24 @@ export const ZRfc3339 = z.iso.datetime({
   message: 'Use an RFC 3339 time, e.g. 2026-11-14T09:12:00Z',
 });
 
-export const ZCreateCaseRequest = z.object({
-  title: z.string().trim().min(3, 'Use at least 3 characters').max(200),
-  site: z.string().trim().min(1, 'Enter the site').max(120),
-  robotId: z.string().trim().min(1, 'Enter the robot id').max(80),
+export const ZCreateCaseRequest = z.strictObject({
+  title: safeText().trim().min(3, 'Use at least 3 characters').max(200),
+  site: safeText().trim().min(1, 'Enter the site').max(120),
+  robotId: safeText().trim().min(1, 'Enter the robot id').max(80),
   incidentTime: ZRfc3339,
   severity: ZSeverity,
-  summary: z.string().trim().max(4000).optional().default(''),
+  summary: safeText().trim().max(4000).optional().default(''),
 });
 export type TCreateCaseRequest = z.input<typeof ZCreateCaseRequest>;
 
 export const ZUpdateCaseRequest = z
-  .object({
-    title: z.string().trim().min(3).max(200).optional(),
-    site: z.string().trim().min(1).max(120).optional(),
-    robotId: z.string().trim().min(1).max(80).optional(),
+  .strictObject({
+    title: safeText().trim().min(3).max(200).optional(),
+    site: safeText().trim().min(1).max(120).optional(),
+    robotId: safeText().trim().min(1).max(80).optional(),
     incidentTime: ZRfc3339.optional(),
     severity: ZSeverity.optional(),
-    summary: z.string().trim().max(4000).optional(),
+    summary: safeText().trim().max(4000).optional(),
     status: ZCaseStatus.optional(),
   })
   .refine((body) => Object.keys(body).length > 0, { message: 'Change at least one field' });
@@ -80,10 +81,10 @@ export const ZCaseListQuery = z.object({
   pageSize: z.coerce.number().int().min(1).max(100).default(20),
   sort: z.enum(CASE_SORT_FIELDS).default('incidentTime'),
   order: z.enum(['asc', 'desc']).default('desc'),
-  q: z.string().trim().max(200).optional(),
+  q: safeText().trim().max(200).optional(),
   status: ZCaseStatus.optional(),
   severity: ZSeverity.optional(),
-  site: z.string().trim().max(120).optional(),
+  site: safeText().trim().max(120).optional(),
 });
 export type TCaseListQuery = z.input<typeof ZCaseListQuery>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeText } from './safe-text';
 
 export const INCIDENT_CLASSES = [
   'near_miss',
@@ -39,45 +40,49 @@ export const CAUSE_CATEGORY_LABELS: Record<(typeof CAUSE_CATEGORIES)[number], st
 
 const ZSha256 = z.string().regex(/^[0-9a-f]{64}$/, 'Use a SHA-256 as 64 lowercase hex digits');
 
-export const ZCause = z.object({
+export const ZCause = z.strictObject({
   category: z.enum(CAUSE_CATEGORIES),
-  text: z.string().trim().min(1, 'Describe the cause').max(4000),
+  text: safeText().trim().min(1, 'Describe the cause').max(4000),
 });
 
 /** What a finding cites; the cited hash is stored so the citation stays verifiable. */
 export const ZEvidenceItem = z.discriminatedUnion('type', [
-  z.object({
+  z.strictObject({
     type: z.literal('replay'),
     replayId: z.uuid(),
-    digest: z.string().min(1).max(200),
-    note: z.string().max(2000).optional(),
+    digest: safeText().min(1).max(200),
+    note: safeText().max(2000).optional(),
   }),
-  z.object({ type: z.literal('bookmark'), bookmarkId: z.uuid(), note: z.string().max(2000).optional() }),
-  z.object({
+  z.strictObject({
+    type: z.literal('bookmark'),
+    bookmarkId: z.uuid(),
+    note: safeText().max(2000).optional(),
+  }),
+  z.strictObject({
     type: z.literal('saved_query'),
     queryId: z.uuid(),
     resultSha256: ZSha256,
-    note: z.string().max(2000).optional(),
+    note: safeText().max(2000).optional(),
   }),
-  z.object({
+  z.strictObject({
     type: z.literal('bundle_file'),
     bundleId: z.uuid(),
-    file: z.string().min(1).max(500),
+    file: safeText().min(1).max(500),
     sha256: ZSha256,
-    note: z.string().max(2000).optional(),
+    note: safeText().max(2000).optional(),
   }),
 ]);
 export type TEvidenceItem = z.infer<typeof ZEvidenceItem>;
 
-export const ZCorrectiveAction = z.object({
-  description: z.string().trim().min(1, 'Describe the action').max(2000),
-  owner: z.string().trim().min(1, 'Name the owner').max(200),
+export const ZCorrectiveAction = z.strictObject({
+  description: safeText().trim().min(1, 'Describe the action').max(2000),
+  owner: safeText().trim().min(1, 'Name the owner').max(200),
   dueDate: z.iso.date('Use a date such as 2026-12-01 (RFC 3339 full-date)'),
 });
 
 /** Complete findings, as a submitted version must be. The web form uses the same schema. */
-export const ZFindingsContent = z.object({
-  summary: z.string().trim().min(1, 'Write a summary').max(20000),
+export const ZFindingsContent = z.strictObject({
+  summary: safeText().trim().min(1, 'Write a summary').max(20000),
   incidentClass: z.enum(INCIDENT_CLASSES),
   rootCause: ZCause,
   contributingFactors: z.array(ZCause).max(50).default([]),
@@ -150,14 +155,14 @@ export const ZSubmitFindingsResponse = z.object({
   safetyCaution: z.string(),
 });
 
-export const ZSignoffRequest = z.object({
+export const ZSignoffRequest = z.strictObject({
   acknowledgeCaution: z.literal(
     true,
     'Tick that you have read the safety caution (acknowledgeCaution must be true)',
   ),
 });
-export const ZReturnRequest = z.object({
-  comment: z.string().trim().min(1, 'Say what needs to change').max(10000),
+export const ZReturnRequest = z.strictObject({
+  comment: safeText().trim().min(1, 'Say what needs to change').max(10000),
 });
 
 export const ZSignoffResponse = z.object({

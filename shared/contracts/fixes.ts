@@ -1,17 +1,17 @@
 import { z } from 'zod';
+import { safeText, ZSafeJsonValue } from './safe-text';
 
 export const ZLinkFixRequest = z
-  .object({
+  .strictObject({
     url: z.url('Use a full URL such as https://tracker.example/CR-118').max(2000).optional(),
-    commitId: z
-      .string()
+    commitId: safeText()
       .trim()
       .regex(/^[0-9a-f]{7,64}$/i, 'Use a commit id of 7 to 64 hex digits')
       .optional(),
-    description: z.string().trim().min(3, 'Describe the fix (at least 3 characters)').max(4000),
+    description: safeText().trim().min(3, 'Describe the fix (at least 3 characters)').max(4000),
     /** Free text, or JSON (given as an object) of the settings that changed. */
-    changedSettings: z.union([z.string().max(20000), z.record(z.string(), z.unknown())]).optional(),
-    softwareVersion: z.string().trim().max(200).optional(),
+    changedSettings: z.union([safeText().max(20000), z.record(safeText(), ZSafeJsonValue)]).optional(),
+    softwareVersion: safeText().trim().max(200).optional(),
     verificationReplayId: z.uuid('verificationReplayId must be a replay id (UUID)').optional(),
   })
   .refine((body) => body.url || body.commitId, {

@@ -1,12 +1,13 @@
 import { z } from 'zod';
+import { safeText } from './safe-text';
 
-export const ZPlaceHoldRequest = z.object({
-  reason: z.string().trim().min(3, 'Give the reason for the hold (at least 3 characters)').max(2000),
+export const ZPlaceHoldRequest = z.strictObject({
+  reason: safeText().trim().min(3, 'Give the reason for the hold (at least 3 characters)').max(2000),
 });
 export type TPlaceHoldRequest = z.infer<typeof ZPlaceHoldRequest>;
 
-export const ZReleaseHoldRequest = z.object({
-  reason: z.string().trim().max(2000).optional(),
+export const ZReleaseHoldRequest = z.strictObject({
+  reason: safeText().trim().max(2000).optional(),
 });
 export type TReleaseHoldRequest = z.infer<typeof ZReleaseHoldRequest>;
 

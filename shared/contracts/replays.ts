@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ZReplayOverrides } from '../engine/settings';
+import { safeText } from './safe-text';
 
 export { ZReplayOverrides };
 
@@ -12,8 +13,8 @@ export const isReplayLive = (status: TReplayStatus | undefined): boolean =>
   status === 'queued' || status === 'running';
 
 /** Body of `POST /api/bundles/:id/replays`: no overrides replays with the manifest's settings. */
-export const ZStartReplayRequest = z.object({
-  label: z.string().trim().max(120).optional(),
+export const ZStartReplayRequest = z.strictObject({
+  label: safeText().trim().max(120).optional(),
   overrides: ZReplayOverrides.optional().default({}),
 });
 export type TStartReplayRequest = z.input<typeof ZStartReplayRequest>;

@@ -1,29 +1,21 @@
 import { z } from 'zod';
+import { safeText, ZSafeJsonValue } from './safe-text';
 
 /** Rows of a saved query kept with it for display; the whole result when it is this short. */
 export const SAVED_QUERY_PREVIEW_ROWS = 50;
 
 /** A normalised result cell (see shared/query-result-hash.ts). */
-const ZQueryCell: z.ZodType<unknown> = z.lazy(() =>
-  z.union([
-    z.null(),
-    z.boolean(),
-    z.number(),
-    z.string(),
-    z.array(ZQueryCell),
-    z.record(z.string(), ZQueryCell),
-  ]),
-);
+const ZQueryCell = ZSafeJsonValue;
 
 /** Body of `POST /api/cases/:id/queries`. */
 export const ZCreateSavedQueryRequest = z
-  .object({
+  .strictObject({
     bundleId: z.uuid('bundleId must be a bundle id (UUID)'),
-    title: z.string().trim().min(1, 'Give the query a title').max(200),
-    sql: z.string().trim().min(1, 'The SQL text is empty').max(20000),
+    title: safeText().trim().min(1, 'Give the query a title').max(200),
+    sql: safeText().trim().min(1, 'The SQL text is empty').max(20000),
     resultSha256: z.string().regex(/^[0-9a-f]{64}$/, 'Use a SHA-256 as 64 lowercase hex digits'),
     rowCount: z.number().int().nonnegative('rowCount must be 0 or more'),
-    columns: z.array(z.string().max(300)).min(1, 'A result has at least one column').max(500),
+    columns: z.array(safeText().max(300)).min(1, 'A result has at least one column').max(500),
     /** The first rows of the result, one array of cells per row, at most 50. */
     preview: z
       .array(z.array(ZQueryCell))

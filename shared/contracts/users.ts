@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ZRole } from './auth';
+import { safeText } from './safe-text';
 
 export const ZUser = z.object({
   id: z.string(),
@@ -11,17 +12,17 @@ export const ZUser = z.object({
 });
 export type TUser = z.infer<typeof ZUser>;
 
-export const ZCreateUserRequest = z.object({
-  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address'),
-  name: z.string().trim().min(1, 'Enter a name').max(120),
+export const ZCreateUserRequest = z.strictObject({
+  email: safeText().trim().toLowerCase().email('Enter a valid e-mail address'),
+  name: safeText().trim().min(1, 'Enter a name').max(120),
   role: ZRole,
-  password: z.string().min(12, 'Use at least 12 characters').max(200),
+  password: safeText().min(12, 'Use at least 12 characters').max(200),
 });
 export type TCreateUserRequest = z.infer<typeof ZCreateUserRequest>;
 
 export const ZUpdateUserRequest = z
-  .object({
-    name: z.string().trim().min(1).max(120).optional(),
+  .strictObject({
+    name: safeText().trim().min(1).max(120).optional(),
     role: ZRole.optional(),
     active: z.boolean().optional(),
   })

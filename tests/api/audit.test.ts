@@ -18,9 +18,16 @@ describe('audit trail', () => {
     expect(list.body.items.map((e: { action: string }) => e.action)).toEqual([
       'case.create',
       'findings.save',
+      // The first draft starts analysis; that move is audited with its cause.
+      'case.transition',
       'findings.submit',
       'findings.signoff',
     ]);
+    expect(list.body.items[2].details).toMatchObject({
+      from: 'open',
+      to: 'analysing',
+      cause: 'findings.save',
+    });
     const first = list.body.items[0];
     expect(first.prevHash).toBe('0'.repeat(64));
     // entry_hash is SHA-256 over the RFC 8785 text of the entry without its own hash (Node crypto as reference).
@@ -28,7 +35,7 @@ describe('audit trail', () => {
     expect(createHash('sha256').update(canonicalJson(rest)).digest('hex')).toBe(entryHash);
     expect((await as(t, 'reviewer').get(`/api/cases/${caseId}/audit/verify`)).body).toEqual({
       ok: true,
-      entries: 4,
+      entries: 5,
     });
   });
 
@@ -56,6 +63,6 @@ describe('audit trail', () => {
     );
     await t.database.db.execute(sql`alter table audit_entries enable trigger user`);
     report = (await as(t, 'admin').get(`/api/cases/${other.caseId}/audit/verify`)).body;
-    expect(report).toMatchObject({ ok: false, entries: 3, firstBroken: { chainSeq: 3 } });
+    expect(report).toMatchObject({ ok: false, entries: 4, firstBroken: { chainSeq: 3 } });
   });
 });

@@ -19,7 +19,7 @@ afterAll(async () => {
 describe('notifications', () => {
   it('mails reviewers on submit and the author on return, with a link to the case', async () => {
     const { caseId, version } = await submittedCase(t);
-    await t.app.locals.caseWork.mailQueue.processDue();
+    await t.app.locals.services.mailQueue.processDue();
     const submitted = smtp.messages.find((m) => m.subject.includes(`findings v${version} ready for review`));
     expect(submitted?.to).toEqual(['reviewer@driftcase.example']);
     expect(submitted?.text).toContain(`${PUBLIC_URL}/cases/${caseId}`);
@@ -28,7 +28,7 @@ describe('notifications', () => {
     await as(t, 'reviewer').post(`/api/cases/${caseId}/findings/versions/${version}/return`, {
       comment: 'Cite the replay.',
     });
-    await t.app.locals.caseWork.mailQueue.processDue();
+    await t.app.locals.services.mailQueue.processDue();
     const returned = smtp.messages.find((m) => m.subject.includes('returned with comments'));
     expect(returned?.to).toEqual(['investigator@driftcase.example']);
     expect(returned?.text).toContain('Cite the replay.');
@@ -39,8 +39,8 @@ describe('notifications', () => {
     try {
       const { caseId } = await submittedCase(broken);
       expect(caseId).toBeTruthy();
-      await broken.app.locals.caseWork.mailQueue.processDue();
-      const stats = await broken.app.locals.caseWork.mailQueue.stats();
+      await broken.app.locals.services.mailQueue.processDue();
+      const stats = await broken.app.locals.services.mailQueue.stats();
       expect(stats).toEqual([{ status: 'pending', total: 1 }]);
     } finally {
       await broken.close();

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { openDatabase } from '../../api/src/db/client';
 import { seedDemoData } from '../../api/src/seed/seed-demo';
-import { createCasesService } from '../../api/src/services/cases/cases-service';
+import { createTestServices } from '../support/test-app';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-persist-'));
 afterAll(() => fs.rmSync(dataDir, { recursive: true, force: true }));
@@ -13,9 +13,10 @@ describe('data directory', () => {
   it('keeps a case across a restart and does not seed a second time', async () => {
     const target = { kind: 'pglite-dir' as const, dataDir: path.join(dataDir, 'nested', 'pglite') };
     const first = await openDatabase(target);
-    expect(await seedDemoData(first.db)).toBe(true);
-    const cases = createCasesService({ db: first.db });
-    const author = (await cases.listCases({})).items[0].createdBy.id;
+    const services = createTestServices(first.db);
+    expect(await seedDemoData(services)).toBe(true);
+    const { cases } = services;
+    const author = (await services.users.listUsers()).find((user) => user.role === 'investigator')!;
     const created = await cases.createCase(
       {
         title: 'Survives a restart',
@@ -29,8 +30,9 @@ describe('data directory', () => {
     await first.close();
 
     const second = await openDatabase(target);
-    expect(await seedDemoData(second.db)).toBe(false);
-    const reopened = await createCasesService({ db: second.db }).getCase(created.id);
+    const reopenedServices = createTestServices(second.db);
+    expect(await seedDemoData(reopenedServices)).toBe(false);
+    const reopened = await reopenedServices.cases.getCase(created.id);
     expect(reopened.title).toBe('Survives a restart');
     await second.close();
   });

@@ -174,7 +174,7 @@ describe('long replays', () => {
       .set(auth())
       .send({ overrides: { particles: 20000, seed: 3 } })
       .expect(202);
-    expect(await t.app.locals.replays.failInterruptedReplays()).toBe(1);
+    expect(await t.app.locals.services.replays.failInterruptedReplays()).toBe(1);
     const failed = await request(t.app).get(`/api/replays/${again.body.id}`).set(auth());
     expect(failed.body.status).toBe('failed');
     expect(failed.body.error).toMatch(/restart/);

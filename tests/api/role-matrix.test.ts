@@ -1,6 +1,8 @@
 import path from 'node:path';
+import { gt, max } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { auditEntries } from '../../api/src/db/schema';
 import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
 import { archiveSamples } from '../support/archive-samples';
@@ -14,7 +16,9 @@ import { createTestApp, type TestApp } from '../support/test-app';
 /**
  * Calls every route as every role and with no session. A role the route names must get a 2xx,
  * any other role 403, no session 401. Each route needs a valid sample request below, so a new
- * route cannot be added without joining the matrix.
+ * route cannot be added without joining the matrix. Each call's audit entries are read back: a
+ * successful call of a route that declares an audit action leaves exactly that entry (and any
+ * `case.transition` it causes), every other call leaves none.
  */
 interface Sample {
   path: string;
@@ -145,6 +149,38 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+async function lastAuditId(): Promise<number> {
+  const [row] = await t.database.db.select({ last: max(auditEntries.id) }).from(auditEntries);
+  return row?.last ?? 0;
+}
+
+async function auditEntriesAfter(id: number) {
+  return t.database.db
+    .select({ action: auditEntries.action, details: auditEntries.details })
+    .from(auditEntries)
+    .where(gt(auditEntries.id, id))
+    .orderBy(auditEntries.id);
+}
+
+/** What is wrong with the entries one call left, or null. */
+function auditProblem(spec: RouteSpec, isSuccess: boolean, entries: { action: string; details: unknown }[]) {
+  const actions = entries.map((entry) => entry.action);
+  if (!isSuccess || !spec.audit) return actions.length ? `left entries ${actions.join(', ')}` : null;
+  const declared = spec.audit.action;
+  const own = actions.filter((action) => action === declared).length;
+  const others = entries.filter(
+    (entry) =>
+      entry.action !== declared &&
+      !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared),
+  );
+  if (own === 1 && others.length === 0) return null;
+  return `declares ${declared} but left ${actions.join(', ') || 'no entry'}`;
+}
+
+/**
+ * Prepares a call (sample state, sign-in) and returns a function that sends it, so the audit
+ * entries of the call itself can be told apart from those of its preparation.
+ */
 async function callAs(spec: RouteSpec, role: Role | null) {
   const sample = await SAMPLES[`${spec.method} ${spec.path}`](fixtures, role);
   let req = request(t.app)[spec.method](sample.path);
@@ -161,8 +197,10 @@ async function callAs(spec: RouteSpec, role: Role | null) {
   // The access check runs before the upload is read, so refused callers send no file: the server
   // answers without reading the body, and a streamed file would break the pipe.
   const isAllowed = spec.access === 'public' || (role !== null && spec.access.includes(role));
-  if (sample.attach && isAllowed) return req.attach(sample.attach.field, sample.attach.file);
-  return sample.body ? req.send(sample.body) : req;
+  const prepared = req;
+  // Awaiting a supertest request sends it, so it is wrapped until the caller is ready.
+  if (sample.attach && isAllowed) return () => prepared.attach(sample.attach!.field, sample.attach!.file);
+  return () => (sample.body ? prepared.send(sample.body) : prepared);
 }
 
 describe('role x route matrix', () => {
@@ -175,14 +213,24 @@ describe('role x route matrix', () => {
     const failures: string[] = [];
     for (const spec of specs) {
       const key = `${spec.method.toUpperCase()} ${spec.path}`;
-      const anonymous = await callAs(spec, null);
+      const anonymousCall = await callAs(spec, null);
+      let before = await lastAuditId();
+      const anonymous = await anonymousCall();
+      const isPublicSuccess = spec.access === 'public' && anonymous.status >= 200 && anonymous.status < 300;
+      const anonymousAudit = auditProblem(spec, isPublicSuccess, await auditEntriesAfter(before));
+      if (anonymousAudit) failures.push(`${key} with no session: ${anonymousAudit}`);
       const expectedAnonymous = spec.access === 'public' ? 'success' : 401;
       if (spec.access === 'public' ? anonymous.status >= 300 : anonymous.status !== 401) {
         failures.push(`${key} with no session: got ${anonymous.status}, expected ${expectedAnonymous}`);
       }
       for (const role of ROLES) {
-        const res = await callAs(spec, role);
+        const call = await callAs(spec, role);
+        before = await lastAuditId();
+        const res = await call();
         const isAllowed = spec.access === 'public' || spec.access.includes(role);
+        const isSuccess = isAllowed && res.status >= 200 && res.status < 300;
+        const audited = auditProblem(spec, isSuccess, await auditEntriesAfter(before));
+        if (audited) failures.push(`${key} as ${role}: ${audited}`);
         if (isAllowed && (res.status < 200 || res.status >= 300)) {
           failures.push(`${key} as ${role}: got ${res.status} ${JSON.stringify(res.body)}, expected 2xx`);
         }
@@ -192,9 +240,9 @@ describe('role x route matrix', () => {
       }
     }
     expect(failures).toEqual([]);
-  });
+  }, 240_000); // about 800 calls; the shared 2-core machine can take minutes under load
 
-  it('declares an audit action on every write route', () => {
+  it('declares an audit action on every write route (the matrix above checks each one is written)', () => {
     const unaudited = specs.filter((s) => s.method !== 'get' && !s.audit).map((s) => `${s.method} ${s.path}`);
     expect(unaudited).toEqual([]);
   });

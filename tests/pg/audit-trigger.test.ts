@@ -28,9 +28,9 @@ describe('audit trail on PostgreSQL', () => {
     const audit = createAuditService({ db: handle.db });
     await Promise.all(
       Array.from({ length: 20 }, (_, i) =>
-        audit.append({
+        audit.appendAlone({
           actor: null,
-          action: 'test.append',
+          action: 'archive.verify',
           targetType: 'test',
           targetId: String(i),
           payload: { i },

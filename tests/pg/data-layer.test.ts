@@ -1,10 +1,9 @@
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Services } from '../../api/src/composition/create-services';
 import { type DatabaseHandle, openDatabase } from '../../api/src/db/client';
 import { seedDemoData } from '../../api/src/seed/seed-demo';
-import { createAuthService } from '../../api/src/services/auth/auth-service';
-import { createCasesService } from '../../api/src/services/cases/cases-service';
-import { createUsersService } from '../../api/src/services/users/users-service';
+import { createTestServices } from '../support/test-app';
 
 /**
  * The data layer against a real PostgreSQL server (DATABASE_URL), with the same schema and
@@ -14,6 +13,7 @@ const url = process.env.DATABASE_URL;
 if (!url) throw new Error('Set DATABASE_URL=postgres://... to run the PostgreSQL data-layer suite.');
 
 let handle: DatabaseHandle;
+let services: Services;
 
 beforeAll(async () => {
   // Start from an empty server database so the committed migrations run from the first one.
@@ -24,8 +24,12 @@ beforeAll(async () => {
   );
   await admin.end();
   handle = await openDatabase({ kind: 'postgres', url });
+  services = createTestServices(handle.db);
 });
-afterAll(() => handle?.close());
+afterAll(async () => {
+  await services?.replayWorkers.close();
+  await handle?.close();
+});
 
 describe('data layer on PostgreSQL', () => {
   it('runs on a real server', async () => {
@@ -38,9 +42,9 @@ describe('data layer on PostgreSQL', () => {
   });
 
   it('seeds an empty database once and never again', async () => {
-    expect(await seedDemoData(handle.db)).toBe(true);
-    expect(await seedDemoData(handle.db)).toBe(false);
-    const users = await createUsersService({ db: handle.db }).listUsers();
+    expect(await seedDemoData(services)).toBe(true);
+    expect(await seedDemoData(services)).toBe(false);
+    const users = await services.users.listUsers();
     expect(users.map((u) => u.role).sort()).toEqual([
       'admin',
       'engineer',
@@ -51,17 +55,17 @@ describe('data layer on PostgreSQL', () => {
   });
 
   it('signs in and authenticates through the sessions table', async () => {
-    const auth = createAuthService({ db: handle.db, sessionTtlSeconds: 900, sessionMaxAgeSeconds: 3600 });
+    const { auth } = services;
     const session = await auth.logIn({ email: 'legal@driftcase.example', password: 'driftcase-demo' });
     const checked = await auth.authenticate(session.token, 'bearer');
     expect(checked?.user.role).toBe('legal');
-    await auth.logOut(checked!.user.sessionId);
+    await auth.logOut(checked!.user);
     expect(await auth.authenticate(session.token, 'bearer')).toBeNull();
   });
 
   it('creates, filters, pages and updates cases with server-side sequences', async () => {
-    const service = createCasesService({ db: handle.db });
-    const author = (await createUsersService({ db: handle.db }).listUsers())[0];
+    const service = services.cases;
+    const author = (await services.users.listUsers()).find((user) => user.role === 'investigator')!;
     const created = await service.createCase(
       {
         title: 'Server-side case',
@@ -70,24 +74,21 @@ describe('data layer on PostgreSQL', () => {
         incidentTime: '2026-11-01T00:00:00Z',
         severity: 'critical',
       },
-      author.id,
+      author,
     );
     expect(created.reference).toMatch(/^DC-\d{4}$/);
     const list = await service.listCases({ site: 'pg yard', sort: 'severity', order: 'desc' });
     expect(list.items.map((c) => c.id)).toEqual([created.id]);
-    const updated = await service.updateCase(created.id, { status: 'analysing' });
+    const updated = await service.updateCase(created.id, { status: 'analysing' }, author);
     expect(updated.status).toBe('analysing');
   });
 
   it('reports a duplicate e-mail as a conflict', async () => {
-    const users = createUsersService({ db: handle.db });
     await expect(
-      users.createUser({
-        email: 'admin@driftcase.example',
-        name: 'Dup',
-        role: 'admin',
-        password: 'long-enough-password',
-      }),
+      services.users.createUser(
+        { email: 'admin@driftcase.example', name: 'Dup', role: 'admin', password: 'long-enough-password' },
+        null,
+      ),
     ).rejects.toMatchObject({ code: 'conflict' });
   });
 });

@@ -3,8 +3,9 @@ import path from 'node:path';
 import { pino } from 'pino';
 import request from 'supertest';
 import { createApp, type DriftcaseApp } from '../../api/src/app';
+import { createServices, type Services } from '../../api/src/composition/create-services';
 import { loadConfig } from '../../api/src/config';
-import type { DatabaseHandle } from '../../api/src/db/client';
+import type { Database, DatabaseHandle } from '../../api/src/db/client';
 import { DEMO_PASSWORD } from '../../api/src/seed/demo-people';
 import { seedDemoData } from '../../api/src/seed/seed-demo';
 import type { TLoginResponse } from '../../shared/contracts/auth';
@@ -19,12 +20,20 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-/** The Express app over a fresh in-memory database seeded with the demo accounts. */
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
-  const database = await createTestDatabase();
-  await seedDemoData(database.db);
-  const config = loadConfig({ DATA_DIR: path.join(os.tmpdir(), `driftcase-test-${process.pid}`), ...env });
-  const app = createApp({ db: database.db, config, logger: pino({ level: 'silent' }) });
+const testConfig = (env: Record<string, string>) =>
+  loadConfig({ DATA_DIR: path.join(os.tmpdir(), `driftcase-test-${process.pid}`), ...env });
+
+/**
+ * The Express app over a fresh in-memory database seeded with the demo accounts, or over
+ * `options.database` (e.g. a PostgreSQL server in tests/pg/), which it closes with the app.
+ */
+export async function createTestApp(
+  env: Record<string, string> = {},
+  options: { database?: DatabaseHandle } = {},
+): Promise<TestApp> {
+  const database = options.database ?? (await createTestDatabase());
+  const app = createApp({ db: database.db, config: testConfig(env), logger: pino({ level: 'silent' }) });
+  await seedDemoData(app.locals.services);
   const tokens = new Map<Role, string>();
   return {
     app,
@@ -45,4 +54,9 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       await database.close();
     },
   };
+}
+
+/** The services of the composition root over `db`, for tests that call services directly. */
+export function createTestServices(db: Database, env: Record<string, string> = {}): Services {
+  return createServices({ db, config: testConfig(env), logger: pino({ level: 'silent' }) });
 }

@@ -13,6 +13,13 @@ import * as schema from './schema';
 /** The one database type the services see, whichever driver is underneath. */
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
+/**
+ * An open transaction. Functions that write take one, so a write and its audit entry commit
+ * together; read helpers take `Database`, which a transaction also is. Inside a transaction use
+ * only `tx`: on PGlite a query on `db` waits for the transaction to end, so it never returns.
+ */
+export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
+
 export interface DatabaseHandle {
   db: Database;
   kind: 'pglite' | 'postgres';

@@ -1,14 +1,35 @@
 import type { ErrorRequestHandler } from 'express';
 import multer from 'multer';
-import { ZodError } from 'zod';
+import { ZodError, type z } from 'zod';
+import { printableText } from '../../../shared/contracts/safe-text';
 import { AppError, type ErrorBody, type FieldIssue } from '../../../shared/errors';
 
-/** Turns zod issues into `{ path, message }` pairs a form can show beside its fields. */
+/** A field path as people write it (`items.2.owner`), with unprintable characters escaped. */
+function fieldName(path: readonly PropertyKey[]): string {
+  return path.map((part) => printableText(String(part))).join('.') || '(body)';
+}
+
+function fieldIssue(path: readonly PropertyKey[], message: string): FieldIssue {
+  const name = fieldName(path);
+  return { path: name, field: name, message };
+}
+
+/** Turns zod issues into `{ path, field, message }` triples a form can show beside its fields. */
 export function toFieldIssues(error: ZodError): FieldIssue[] {
-  return error.issues.map((issue) => ({
-    path: issue.path.map(String).join('.') || '(body)',
-    message: issue.message,
-  }));
+  return error.issues.flatMap((issue: z.core.$ZodIssue) => {
+    if (issue.code === 'unrecognized_keys') {
+      return issue.keys.map((key) =>
+        fieldIssue([...issue.path, key], 'Unknown field: this request does not accept it; remove it'),
+      );
+    }
+    if (issue.code === 'invalid_key') {
+      const reason = issue.issues.map((inner) => inner.message).join('; ');
+      return [
+        fieldIssue(issue.path, `The field name ${reason ? `is not accepted: ${reason}` : 'is not accepted'}`),
+      ];
+    }
+    return [fieldIssue(issue.path, issue.message)];
+  });
 }
 
 /**
@@ -20,6 +41,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   let status: number;
   if (error instanceof AppError) {
     status = error.status;
+    if (status >= 500) req.log?.error({ err: error, cause: error.cause }, error.message);
     body = { error: { code: error.code, message: error.message, details: error.details } };
   } else if (error instanceof ZodError) {
     status = 400;

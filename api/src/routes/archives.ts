@@ -1,7 +1,5 @@
-import fs from 'node:fs';
 import multer from 'multer';
 import { AppError } from '../../../shared/errors';
-import { verifyArchive } from '../archive/verify-archive';
 import type { RouteSpec } from '../http/route-spec';
 import type { ArchiveService } from '../services/archive/archive-service';
 import { ZCaseParams } from './cases';
@@ -23,6 +21,8 @@ export function archiveRoutes(archives: ArchiveService, options: ArchiveRouteOpt
       method: 'get',
       path: '/cases/:id/archive',
       access: ['legal'],
+      // A read that leaves a custody record: the export appends it before the last byte is sent.
+      audit: { action: 'archive.export' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         // Custody is appended by the export itself once the last byte is written (see archive-service).
@@ -57,14 +57,7 @@ export function archiveRoutes(archives: ArchiveService, options: ArchiveRouteOpt
       path: '/archives/verify',
       access: ['legal', 'reviewer', 'admin'],
       before: [upload],
-      audit: {
-        action: 'archive.verify',
-        facts: (_req, body) => ({
-          targetType: 'archive',
-          targetId: (body as { archiveSha256?: string } | undefined)?.archiveSha256 ?? null,
-          details: { ok: (body as { ok?: boolean } | undefined)?.ok ?? null },
-        }),
-      },
+      audit: { action: 'archive.verify' },
       handler: async (req, res) => {
         if (!req.file) {
           throw new AppError(
@@ -73,11 +66,7 @@ export function archiveRoutes(archives: ArchiveService, options: ArchiveRouteOpt
             [{ path: 'archive', message: 'Required' }],
           );
         }
-        try {
-          res.json(await verifyArchive(req.file.path));
-        } finally {
-          await fs.promises.rm(req.file.path, { force: true });
-        }
+        res.json(await archives.verifyUploadedArchive(req.file.path, req.user));
       },
     },
   ];

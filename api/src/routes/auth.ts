@@ -16,17 +16,7 @@ export function authRoutes(auth: AuthService, cookies: SessionCookieOptions): Ro
       path: '/auth/login',
       access: 'public',
       before: [loginRateLimit()],
-      audit: {
-        action: 'auth.login',
-        facts: (_req, body) => {
-          const user = (body as { user?: { id: string; email: string; role: string } }).user;
-          return {
-            targetType: 'session',
-            targetId: user?.id ?? null,
-            actor: user ? { id: user.id, email: user.email, role: user.role } : null,
-          };
-        },
-      },
+      audit: { action: 'auth.login' },
       handler: async (req, res) => {
         const body = ZLoginRequest.parse(req.body);
         const session = await auth.logIn(body, req.get('user-agent'));
@@ -38,12 +28,9 @@ export function authRoutes(auth: AuthService, cookies: SessionCookieOptions): Ro
       method: 'post',
       path: '/auth/logout',
       access: ROLES,
-      audit: {
-        action: 'auth.logout',
-        facts: (req) => ({ targetType: 'session', targetId: req.user.sessionId }),
-      },
+      audit: { action: 'auth.logout' },
       handler: async (req, res) => {
-        await auth.logOut(req.user.sessionId);
+        await auth.logOut(req.user);
         clearSessionCookies(res);
         res.status(204).end();
       },

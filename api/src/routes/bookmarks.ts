@@ -7,17 +7,6 @@ import { ZCaseParams } from './cases';
 
 const ZBookmarkParams = z.object({ id: z.uuid('Bookmark id must be a UUID') });
 
-/** Facts of a bookmark write, read from the bookmark the handler sent back. */
-function bookmarkFacts(_req: unknown, body: unknown) {
-  const bookmark = body as { id?: string; caseId?: string; step?: number; replayId?: string };
-  return {
-    targetType: 'bookmark',
-    targetId: bookmark.id ?? null,
-    caseId: bookmark.caseId ?? null,
-    details: { replayId: bookmark.replayId, step: bookmark.step },
-  };
-}
-
 export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
   return [
     {
@@ -32,7 +21,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       method: 'post',
       path: '/cases/:id/bookmarks',
       access: ['investigator'],
-      audit: { action: 'bookmark.create', facts: bookmarkFacts },
+      audit: { action: 'bookmark.create' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         const body = ZCreateBookmarkRequest.parse(req.body);
@@ -52,7 +41,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       path: '/bookmarks/:id',
       // The service narrows this to the author (or an admin).
       access: ['investigator', 'admin'],
-      audit: { action: 'bookmark.edit_note', facts: bookmarkFacts },
+      audit: { action: 'bookmark.edit_note' },
       handler: async (req, res) => {
         const { id } = ZBookmarkParams.parse(req.params);
         res.json(await bookmarks.updateNote(id, ZUpdateBookmarkRequest.parse(req.body), req.user));
@@ -62,7 +51,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       method: 'delete',
       path: '/bookmarks/:id',
       access: ['investigator'],
-      audit: { action: 'bookmark.delete', facts: bookmarkFacts },
+      audit: { action: 'bookmark.delete' },
       handler: async (req, res) => {
         const { id } = ZBookmarkParams.parse(req.params);
         res.json(await bookmarks.deleteBookmark(id, req.user));

@@ -3,7 +3,6 @@ import multer from 'multer';
 import { z } from 'zod';
 import { AppError } from '../../../shared/errors';
 import { ROLES } from '../../../shared/roles';
-import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { BundlesService } from '../services/bundles/bundles-service';
 import { ZCaseParams } from './cases';
@@ -30,22 +29,8 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       path: '/cases/:id/bundles',
       access: ['investigator'],
       before: [upload],
-      audit: {
-        action: 'bundle.upload',
-        // A bundle that fails validation is still stored (422), so that is a write too.
-        alsoOnStatuses: [422],
-        facts: (req, body) => {
-          const bundle =
-            (body as { bundle?: unknown }).bundle ??
-            (body as { error?: { details?: { bundle?: unknown } } }).error?.details?.bundle;
-          return {
-            targetType: 'bundle',
-            targetId: bodyField(bundle, 'id'),
-            caseId: routeParam(req, 'id'),
-            details: { sha256: bodyField(bundle, 'sha256'), status: bodyField(bundle, 'status') },
-          };
-        },
-      },
+      // A bundle that fails validation is still stored and audited; the answer is then 422.
+      audit: { action: 'bundle.upload' },
       handler: async (req, res) => {
         const { id: caseId } = ZCaseParams.parse(req.params);
         if (!req.file) {
@@ -59,7 +44,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
           caseId,
           tempFile: req.file.path,
           originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
-          uploaderId: req.user.id,
+          actor: req.user,
         });
         if (outcome.bundle.status === 'invalid') {
           const errors = outcome.bundle.issues.filter((issue) => issue.severity !== 'warning');

@@ -1,21 +1,12 @@
 import { z } from 'zod';
-import {
-  type TCaseStatus,
-  ZCaseListQuery,
-  ZCreateCaseRequest,
-  ZUpdateCaseRequest,
-} from '../../../shared/contracts/cases';
-import { ROLES, type Role } from '../../../shared/roles';
-import { bodyField, routeParam } from '../http/audit-facts';
+import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../shared/contracts/cases';
+import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
 import type { CasesService } from '../services/cases/cases-service';
 
 export const ZCaseParams = z.object({ id: z.uuid('Case id must be a UUID') });
 
-/** Moves a case to another state through the lifecycle, or throws why it may not. */
-export type CaseStatusChanger = (caseId: string, to: TCaseStatus, role: Role) => Promise<unknown>;
-
-export function caseRoutes(cases: CasesService, changeStatus: CaseStatusChanger): RouteSpec[] {
+export function caseRoutes(cases: CasesService): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -29,17 +20,10 @@ export function caseRoutes(cases: CasesService, changeStatus: CaseStatusChanger)
       method: 'post',
       path: '/cases',
       access: ['investigator', 'admin'],
-      audit: {
-        action: 'case.create',
-        facts: (_req, body) => ({
-          targetType: 'case',
-          targetId: bodyField(body, 'id'),
-          caseId: bodyField(body, 'id'),
-        }),
-      },
+      audit: { action: 'case.create' },
       handler: async (req, res) => {
         const body = ZCreateCaseRequest.parse(req.body);
-        res.status(201).json(await cases.createCase(body, req.user.id));
+        res.status(201).json(await cases.createCase(body, req.user));
       },
     },
     {
@@ -55,26 +39,10 @@ export function caseRoutes(cases: CasesService, changeStatus: CaseStatusChanger)
       method: 'patch',
       path: '/cases/:id',
       access: ['investigator', 'admin'],
-      audit: {
-        action: 'case.update',
-        facts: (req, body) => ({
-          targetType: 'case',
-          targetId: routeParam(req, 'id'),
-          caseId: routeParam(req, 'id'),
-          details: {
-            fields: Object.keys(req.body ?? {}),
-            ...(req.body?.status ? { status: bodyField(body, 'status') } : {}),
-          },
-        }),
-      },
+      audit: { action: 'case.update' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        const { status, ...fields } = ZUpdateCaseRequest.parse(req.body);
-        // A status change is a lifecycle move like any other, checked by the same state machine.
-        if (status && status !== (await cases.getCase(id)).status) {
-          await changeStatus(id, status, req.user.role);
-        }
-        res.json(await cases.updateCase(id, fields));
+        res.json(await cases.updateCase(id, ZUpdateCaseRequest.parse(req.body), req.user));
       },
     },
   ];

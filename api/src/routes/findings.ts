@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { ZFindingsDraft, ZReturnRequest, ZSignoffRequest } from '../../../shared/contracts/findings';
 import { ROLES } from '../../../shared/roles';
 import { SAFETY_CAUTION } from '../../../shared/safety-caution';
-import type { AuthedRequest, RouteSpec } from '../http/route-spec';
+import type { RouteSpec } from '../http/route-spec';
 import type { FindingsService } from '../services/findings/findings-service';
 import type { ReviewService } from '../services/findings/review-service';
 import { ZCaseParams } from './cases';
@@ -11,8 +11,6 @@ const ZVersionParams = ZCaseParams.extend({
   v: z.coerce.number().int().min(1, 'Version numbers start at 1'),
 });
 const ZDiffQuery = z.object({ against: z.coerce.number().int().min(1).optional() });
-const caseOf = (req: AuthedRequest) => (req.params as { id: string }).id;
-const versionOf = (req: AuthedRequest) => Number((req.params as { v: string }).v);
 
 export function findingsRoutes(findings: FindingsService, reviews: ReviewService): RouteSpec[] {
   return [
@@ -28,10 +26,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       method: 'put',
       path: '/cases/:id/findings',
       access: ['investigator'],
-      audit: {
-        action: 'findings.save',
-        facts: (req) => ({ targetType: 'findings_draft', targetId: caseOf(req), caseId: caseOf(req) }),
-      },
+      audit: { action: 'findings.save' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         res.json(await findings.saveDraft(id, ZFindingsDraft.parse(req.body), req.user));
@@ -41,18 +36,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       method: 'post',
       path: '/cases/:id/findings/submit',
       access: ['investigator'],
-      audit: {
-        action: 'findings.submit',
-        facts: (req, body) => {
-          const { version, sha256, from } = body as { version: number; sha256: string; from: string };
-          return {
-            targetType: 'findings_version',
-            targetId: String(version),
-            caseId: caseOf(req),
-            details: { version, sha256, from, to: 'in_review' },
-          };
-        },
-      },
+      audit: { action: 'findings.submit' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         const submitted = await findings.submit(id, req.user);
@@ -90,19 +74,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       method: 'post',
       path: '/cases/:id/findings/versions/:v/signoff',
       access: ['reviewer'],
-      audit: {
-        action: 'findings.signoff',
-        facts: (req, body) => ({
-          targetType: 'findings_version',
-          targetId: String(versionOf(req)),
-          caseId: caseOf(req),
-          details: {
-            version: versionOf(req),
-            kid: (body as { signature?: { kid?: string } }).signature?.kid,
-            to: 'signed_off',
-          },
-        }),
-      },
+      audit: { action: 'findings.signoff' },
       handler: async (req, res) => {
         const { id, v } = ZVersionParams.parse(req.params);
         ZSignoffRequest.parse(req.body);
@@ -113,15 +85,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       method: 'post',
       path: '/cases/:id/findings/versions/:v/return',
       access: ['reviewer'],
-      audit: {
-        action: 'findings.return',
-        facts: (req) => ({
-          targetType: 'findings_version',
-          targetId: String(versionOf(req)),
-          caseId: caseOf(req),
-          details: { version: versionOf(req), to: 'changes_requested' },
-        }),
-      },
+      audit: { action: 'findings.return' },
       handler: async (req, res) => {
         const { id, v } = ZVersionParams.parse(req.params);
         const { comment } = ZReturnRequest.parse(req.body);

@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import { ZLinkFixRequest } from '../../../shared/contracts/fixes';
 import { ROLES } from '../../../shared/roles';
-import type { AuthedRequest, RouteSpec } from '../http/route-spec';
+import type { RouteSpec } from '../http/route-spec';
 import type { FixesService } from '../services/fixes/fixes-service';
 import { ZCaseParams } from './cases';
 
 const ZFixParams = ZCaseParams.extend({ fixId: z.uuid('Fix id must be a UUID') });
-const caseOf = (req: AuthedRequest) => (req.params as { id: string }).id;
 
 export function fixRoutes(fixes: FixesService): RouteSpec[] {
   return [
@@ -22,14 +21,7 @@ export function fixRoutes(fixes: FixesService): RouteSpec[] {
       method: 'post',
       path: '/cases/:id/fixes',
       access: ['engineer'],
-      audit: {
-        action: 'fix.link',
-        facts: (req, body) => ({
-          targetType: 'fix',
-          targetId: (body as { id?: string }).id ?? null,
-          caseId: caseOf(req),
-        }),
-      },
+      audit: { action: 'fix.link' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         res.status(201).json(await fixes.linkFix(id, ZLinkFixRequest.parse(req.body), req.user));
@@ -39,17 +31,10 @@ export function fixRoutes(fixes: FixesService): RouteSpec[] {
       method: 'post',
       path: '/cases/:id/fixes/:fixId/verify',
       access: ['investigator', 'reviewer'],
-      audit: {
-        action: 'fix.verify',
-        facts: (req) => ({
-          targetType: 'fix',
-          targetId: (req.params as { fixId: string }).fixId,
-          caseId: caseOf(req),
-        }),
-      },
+      audit: { action: 'fix.verify' },
       handler: async (req, res) => {
         const { id, fixId } = ZFixParams.parse(req.params);
-        res.json(await fixes.verifyFix(id, fixId, req.user.id));
+        res.json(await fixes.verifyFix(id, fixId, req.user));
       },
     },
   ];

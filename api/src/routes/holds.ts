@@ -1,10 +1,8 @@
 import { ZPlaceHoldRequest, ZReleaseHoldRequest } from '../../../shared/contracts/holds';
 import { ROLES } from '../../../shared/roles';
-import type { AuthedRequest, RouteSpec } from '../http/route-spec';
+import type { RouteSpec } from '../http/route-spec';
 import type { HoldsService } from '../services/holds/holds-service';
 import { ZCaseParams } from './cases';
-
-const caseOf = (req: AuthedRequest) => (req.params as { id: string }).id;
 
 export function holdRoutes(holds: HoldsService): RouteSpec[] {
   return [
@@ -21,35 +19,20 @@ export function holdRoutes(holds: HoldsService): RouteSpec[] {
       method: 'post',
       path: '/cases/:id/hold',
       access: ['legal'],
-      audit: {
-        action: 'hold.place',
-        facts: (req, body) => ({
-          targetType: 'hold',
-          targetId: (body as { id?: string }).id ?? null,
-          caseId: caseOf(req),
-          details: { reason: (body as { reason?: string }).reason },
-        }),
-      },
+      audit: { action: 'hold.place' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.status(201).json(await holds.placeHold(id, ZPlaceHoldRequest.parse(req.body), req.user.id));
+        res.status(201).json(await holds.placeHold(id, ZPlaceHoldRequest.parse(req.body), req.user));
       },
     },
     {
       method: 'delete',
       path: '/cases/:id/hold',
       access: ['legal'],
-      audit: {
-        action: 'hold.release',
-        facts: (req, body) => ({
-          targetType: 'hold',
-          targetId: (body as { id?: string }).id ?? null,
-          caseId: caseOf(req),
-        }),
-      },
+      audit: { action: 'hold.release' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json(await holds.releaseHold(id, ZReleaseHoldRequest.parse(req.body ?? {}), req.user.id));
+        res.json(await holds.releaseHold(id, ZReleaseHoldRequest.parse(req.body ?? {}), req.user));
       },
     },
   ];

@@ -3,7 +3,6 @@ import { z } from 'zod';
 import { ZStartReplayRequest } from '../../../shared/contracts/replays';
 import { NEES_BOUND_95 } from '../../../shared/engine/trajectory-error';
 import { ROLES } from '../../../shared/roles';
-import { bodyField, routeParam } from '../http/audit-facts';
 import type { RouteSpec } from '../http/route-spec';
 import type { ReplayNotice, ReplaysService } from '../services/replays/replays-service';
 
@@ -24,19 +23,10 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       method: 'post',
       path: '/bundles/:id/replays',
       access: ['investigator', 'engineer'],
-      // The answer is the replay, which names its case.
-      audit: {
-        action: 'replay.start',
-        facts: (req, body) => ({
-          targetType: 'replay',
-          targetId: bodyField(body, 'id'),
-          caseId: bodyField(body, 'caseId'),
-          details: { bundleId: routeParam(req, 'id') },
-        }),
-      },
+      audit: { action: 'replay.start' },
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        const replay = await replays.startReplay(id, ZStartReplayRequest.parse(req.body ?? {}), req.user.id);
+        const replay = await replays.startReplay(id, ZStartReplayRequest.parse(req.body ?? {}), req.user);
         res.status(202).location(`/api/replays/${replay.id}`).json(replay);
       },
     },
@@ -62,17 +52,10 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       method: 'delete',
       path: '/replays/:id',
       access: ['investigator', 'engineer'],
-      audit: {
-        action: 'replay.delete',
-        facts: (req, body) => ({
-          targetType: 'replay',
-          targetId: routeParam(req, 'id'),
-          caseId: bodyField(body, 'caseId'),
-        }),
-      },
+      audit: { action: 'replay.delete' },
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        res.status(202).json(await replays.cancelReplay(id));
+        res.status(202).json(await replays.cancelReplay(id, req.user));
       },
     },
     {

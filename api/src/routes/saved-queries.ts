@@ -21,18 +21,7 @@ export function savedQueryRoutes(queries: SavedQueriesService): RouteSpec[] {
       method: 'post',
       path: '/cases/:id/queries',
       access: ['investigator'],
-      audit: {
-        action: 'saved_query.create',
-        facts: (_req, body) => {
-          const saved = body as { id?: string; caseId?: string; resultSha256?: string; rowCount?: number };
-          return {
-            targetType: 'saved_query',
-            targetId: saved.id ?? null,
-            caseId: saved.caseId ?? null,
-            details: { resultSha256: saved.resultSha256, rowCount: saved.rowCount },
-          };
-        },
-      },
+      audit: { action: 'saved_query.create' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
         const body = ZCreateSavedQueryRequest.parse(req.body);

@@ -1,91 +1,69 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { count } from 'drizzle-orm';
+import type { TCreateCaseRequest } from '../../../shared/contracts/cases';
 import { zipFolder } from '../bundles/zip-folder';
-import type { Database } from '../db/client';
-import { users } from '../db/schema';
-import type { AuditService } from '../services/audit/audit-service';
-import type { BundlesService } from '../services/bundles/bundles-service';
-import { createCasesService } from '../services/cases/cases-service';
-import type { ReplaysService } from '../services/replays/replays-service';
-import { createUsersService } from '../services/users/users-service';
+import type { Services } from '../composition/create-services';
+import type { Actor } from '../services/actor';
 import { DEMO_CASES } from './demo-cases';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 
-export interface DemoBundleSeeding {
-  bundles: BundlesService;
+export type DemoSeedServices = Pick<Services, 'users' | 'cases' | 'bundles' | 'replays'>;
+
+export interface DemoSeedOptions {
   /**
-   * When given, the seeded actions are written to the audit trail as the routes would write them,
-   * so demo cases have a history (and the first upload moves a case into analysis).
+   * Folder holding the sample bundles (`sample-logs/`). When given, each demo case also gets its
+   * sample bundle and a replay with the robot's own settings.
    */
-  audit?: Pick<AuditService, 'append'>;
-  /** When given, each sample bundle also gets a replay with the robot's own settings. */
-  replays?: ReplaysService;
-  /** Folder holding the sample bundles (`sample-logs/`). */
-  sampleDir: string;
+  sampleDir?: string;
 }
 
 /**
  * Seeds one account per role and the demo cases, only into an empty database: a database that
- * already has users is never touched. With `withBundles`, each case also gets its sample bundle.
+ * already has users is never touched. Everything goes through the services, so the demo cases
+ * have the same audit history real ones would (and the first upload moves a case into analysis).
  */
-export async function seedDemoData(db: Database, withBundles?: DemoBundleSeeding): Promise<boolean> {
-  const [{ existing }] = await db.select({ existing: count() }).from(users);
-  if (existing > 0) return false;
-  const usersService = createUsersService({ db });
+export async function seedDemoData(
+  services: DemoSeedServices,
+  options: DemoSeedOptions = {},
+): Promise<boolean> {
+  if ((await services.users.listUsers()).length > 0) return false;
   const people = [];
   for (const person of DEMO_PEOPLE) {
-    people.push(await usersService.createUser({ ...person, password: DEMO_PASSWORD }));
+    people.push(await services.users.createUser({ ...person, password: DEMO_PASSWORD }, null));
   }
-  const investigator = people.find((p) => p.role === 'investigator')!;
-  const casesService = createCasesService({ db });
-  const zipDir = withBundles ? fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-seed-')) : '';
+  const { id, email, role } = people.find((p) => p.role === 'investigator')!;
+  const investigator: Actor = { id, email, role };
+  const { sampleDir } = options;
+  const zipDir = sampleDir ? fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-seed-')) : '';
   try {
     for (const { sampleFolder, ...demoCase } of DEMO_CASES) {
-      const created = await casesService.createCase(demoCase, investigator.id);
-      const actor = { id: investigator.id, email: investigator.email, role: investigator.role };
-      const record = (
-        action: string,
-        targetType: string,
-        targetId: string,
-        details: Record<string, unknown>,
-      ) =>
-        withBundles?.audit?.append({
-          actor,
-          action,
-          targetType,
-          targetId,
-          caseId: created.id,
-          payload: details,
-          details,
-        });
-      await record('case.create', 'case', created.id, { reference: created.reference, seeded: true });
-      const folder = withBundles && path.join(withBundles.sampleDir, sampleFolder);
-      if (!withBundles || !folder || !fs.existsSync(folder)) continue;
-      const zip = await zipFolder(folder, path.join(zipDir, `${sampleFolder}.zip`));
-      const { bundle } = await withBundles.bundles.uploadBundle({
-        caseId: created.id,
-        tempFile: zip,
-        originalName: `${sampleFolder}.zip`,
-        uploaderId: investigator.id,
-      });
-      await record('bundle.upload', 'bundle', bundle.id, {
-        sha256: bundle.sha256,
-        status: bundle.status,
-        seeded: true,
-      });
-      if (withBundles.replays && bundle.status === 'valid') {
-        const replay = await withBundles.replays.startReplay(
-          bundle.id,
-          { label: "Robot's own settings" },
-          investigator.id,
-        );
-        await record('replay.start', 'replay', replay.id, { bundleId: bundle.id, seeded: true });
-      }
+      const folder = sampleDir ? path.join(sampleDir, sampleFolder) : undefined;
+      await seedCase(services, demoCase, investigator, { folder, zipDir });
     }
   } finally {
     if (zipDir) fs.rmSync(zipDir, { recursive: true, force: true });
   }
   return true;
+}
+
+async function seedCase(
+  services: DemoSeedServices,
+  demoCase: TCreateCaseRequest,
+  actor: Actor,
+  { folder, zipDir }: { folder?: string; zipDir: string },
+) {
+  const created = await services.cases.createCase(demoCase, actor);
+  if (!folder || !fs.existsSync(folder)) return;
+  const name = path.basename(folder);
+  const zip = await zipFolder(folder, path.join(zipDir, `${name}.zip`));
+  const { bundle } = await services.bundles.uploadBundle({
+    caseId: created.id,
+    tempFile: zip,
+    originalName: `${name}.zip`,
+    actor,
+  });
+  if (bundle.status === 'valid') {
+    await services.replays.startReplay(bundle.id, { label: "Robot's own settings" }, actor);
+  }
 }

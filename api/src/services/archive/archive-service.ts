@@ -6,12 +6,14 @@ import {
   ARCHIVE_FORMAT,
   type TArchiveExport,
   type TArchiveManifest,
+  type TArchiveVerification,
 } from '../../../../shared/contracts/archives';
 import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
 import { buildArchiveEntries } from '../../archive/archive-entries';
 import { type CaseEvidenceSources, collectCaseEvidence } from '../../archive/collect-case-evidence';
 import { renderReport } from '../../archive/report/render-report';
 import { signManifest } from '../../archive/sign-manifest';
+import { verifyArchive } from '../../archive/verify-archive';
 import { writeArchive } from '../../archive/write-archive';
 import { PROJECT_ROOT } from '../../config';
 import { loadBundleForReplay } from '../../replays/replay-bundle-file';
@@ -92,7 +94,7 @@ export function createArchiveService(deps: {
           }),
           (bytes) => signManifest(bytes, key, { signedBy: exporter.email, signedAt: exportedAt }),
         );
-        await deps.audit.append({
+        await deps.audit.appendAlone({
           actor: exporter,
           action: 'archive.export',
           targetType: 'archive',
@@ -126,7 +128,28 @@ export function createArchiveService(deps: {
       }));
   }
 
-  return { prepareExport, listExports };
+  /**
+   * Verifies an uploaded archive, records the check (`archive.verify`, with the archive's SHA-256
+   * and the verdict) and removes the uploaded copy.
+   */
+  async function verifyUploadedArchive(file: string, actor: ArchiveExporter): Promise<TArchiveVerification> {
+    try {
+      const verification = await verifyArchive(file);
+      await deps.audit.appendAlone({
+        actor,
+        action: 'archive.verify',
+        targetType: 'archive',
+        targetId: verification.archiveSha256,
+        details: { ok: verification.ok },
+        payload: verification,
+      });
+      return verification;
+    } finally {
+      await fs.promises.rm(file, { force: true });
+    }
+  }
+
+  return { prepareExport, listExports, verifyUploadedArchive };
 }
 
 export type ArchiveService = ReturnType<typeof createArchiveService>;

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { asc, count, desc, eq, sql } from 'drizzle-orm';
+import type { AuditAction } from '../../../../shared/audit-actions';
 import {
   type AuditChainEntry,
   auditChainOf,
@@ -9,7 +10,9 @@ import {
 } from '../../../../shared/audit-chain';
 import { canonicalJson } from '../../../../shared/canonical-json';
 import { type TAuditList, type TAuditListQuery, ZAuditListQuery } from '../../../../shared/contracts/audit';
-import type { Database } from '../../db/client';
+import { isSafeText } from '../../../../shared/contracts/safe-text';
+import { AppError } from '../../../../shared/errors';
+import type { Database, Transaction } from '../../db/client';
 import { type AuditEntryRow, auditEntries } from '../../db/schema';
 
 export interface AuditActor {
@@ -18,18 +21,20 @@ export interface AuditActor {
   role: string;
 }
 
-export interface AppendAuditInput {
+/** One audit entry as a service states it, from values it has validated. */
+export interface AuditEntryInput {
+  /** Who acted; only id, e-mail and role are recorded (a session user can be passed as is). */
   actor: AuditActor | null;
-  action: string;
+  action: AuditAction;
   targetType: string;
   targetId?: string | null;
+  /** Puts the entry in this case's chain; without it the entry joins the global chain. */
   caseId?: string | null;
-  /** Hashed with RFC 8785 canonical JSON; only the hash is kept. */
-  payload: unknown;
+  /** Small, human-readable facts for the case history (e.g. a status change). Stored as jsonb. */
   details?: Record<string, unknown>;
+  /** What the action was given, after validation and without secrets; only its hash is kept. Defaults to `details`. */
+  payload?: unknown;
 }
-
-export type AuditListener = (entry: AuditChainEntry) => Promise<void> | void;
 
 function toEntry(row: AuditEntryRow): AuditChainEntry {
   return { ...row, details: row.details as Record<string, unknown> };
@@ -42,17 +47,40 @@ export function payloadSha256(payload: unknown): string {
     .digest('hex');
 }
 
+/** The first string or key in `value` that jsonb would refuse, as a path, or null. */
+function unsafeTextIn(value: unknown, path: string): string | null {
+  if (typeof value === 'string') return isSafeText(value) ? null : path;
+  if (Array.isArray(value)) {
+    for (const [index, item] of value.entries()) {
+      const found = unsafeTextIn(item, `${path}.${index}`);
+      if (found) return found;
+    }
+  } else if (value && typeof value === 'object') {
+    for (const [key, item] of Object.entries(value)) {
+      if (!isSafeText(key)) return `${path}.(a field name)`;
+      const found = unsafeTextIn(item, `${path}.${key}`);
+      if (found) return found;
+    }
+  }
+  return null;
+}
+
 /**
  * The append-only audit trail. There is deliberately no update or delete here; the database
  * trigger refuses them too.
  */
 export function createAuditService({ db }: { db: Database }) {
-  const listeners: AuditListener[] = [];
-
-  /** Appends one entry to its chain; appends to one chain are serialized by an advisory lock. */
-  async function append(input: AppendAuditInput): Promise<AuditChainEntry> {
+  /**
+   * Appends one entry inside the caller's transaction, so it commits with the write it records or
+   * not at all. Appends to one chain are serialized by an advisory lock held until that commit.
+   * Any failure becomes `audit_failed`, which rolls the caller's transaction back.
+   */
+  async function append(tx: Transaction, input: AuditEntryInput): Promise<AuditChainEntry> {
     const chain = auditChainOf(input.caseId);
-    const entry = await db.transaction(async (tx) => {
+    const details = input.details ?? {};
+    try {
+      const unsafe = unsafeTextIn(details, 'details');
+      if (unsafe) throw new Error(`${unsafe} holds text that cannot be stored (NUL or a lone surrogate)`);
       await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${chain}))`);
       const [last] = await tx
         .select({ chainSeq: auditEntries.chainSeq, entryHash: auditEntries.entryHash })
@@ -71,8 +99,8 @@ export function createAuditService({ db }: { db: Database }) {
         targetId: input.targetId ?? null,
         caseId: input.caseId ?? null,
         at: new Date().toISOString(),
-        payloadSha256: payloadSha256(input.payload),
-        details: input.details ?? {},
+        payloadSha256: payloadSha256(input.payload === undefined ? details : input.payload),
+        details,
         prevHash: last?.entryHash ?? GENESIS_HASH,
       };
       const [row] = await tx
@@ -80,9 +108,22 @@ export function createAuditService({ db }: { db: Database }) {
         .values({ ...unhashed, entryHash: computeAuditEntryHash(unhashed) })
         .returning();
       return toEntry(row);
-    });
-    for (const listener of listeners) await listener(entry);
-    return entry;
+    } catch (error) {
+      throw new AppError(
+        'audit_failed',
+        `Nothing was saved: the audit entry for this action (${input.action}) could not be written. Try again; if it keeps failing, tell an administrator.`,
+        undefined,
+        { cause: error },
+      );
+    }
+  }
+
+  /**
+   * For an action whose only database record is its audit entry (an archive exported or
+   * verified, a replay cancelled): appends in a transaction of its own.
+   */
+  function appendAlone(input: AuditEntryInput): Promise<AuditChainEntry> {
+    return db.transaction((tx) => append(tx, input));
   }
 
   async function listChain(chain: string, rawQuery: TAuditListQuery = {}): Promise<TAuditList> {
@@ -118,15 +159,12 @@ export function createAuditService({ db }: { db: Database }) {
 
   return {
     append,
+    appendAlone,
     listCaseEntries: (caseId: string, query?: TAuditListQuery) => listChain(auditChainOf(caseId), query),
     listGlobalEntries: (query?: TAuditListQuery) => listChain(auditChainOf(null), query),
     readCaseChain: (caseId: string) => readChain(auditChainOf(caseId)),
     verifyCaseChain: async (caseId: string) => verifyAuditChain(await readChain(auditChainOf(caseId))),
     verifyGlobalChain: async () => verifyAuditChain(await readChain(auditChainOf(null))),
-    /** Runs after each append (e.g. the lifecycle reacting to a first bundle upload). */
-    onAppended(listener: AuditListener) {
-      listeners.push(listener);
-    },
   };
 }
 

@@ -2,8 +2,10 @@ import { randomUUID } from 'node:crypto';
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import type { TLoginRequest, TSessionUser } from '../../../../shared/contracts/auth';
 import { AppError } from '../../../../shared/errors';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { sessions, users } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { hashPassword, verifyPassword } from './passwords';
 import { loadOrCreateSecret } from './server-secret';
 import { csrfTokenFor, readSessionToken, signSessionToken } from './session-tokens';
@@ -11,6 +13,7 @@ import type { SessionUser } from './session-user';
 
 export interface AuthServiceOptions {
   db: Database;
+  audit: AuditService;
   sessionTtlSeconds: number;
   sessionMaxAgeSeconds: number;
 }
@@ -30,7 +33,12 @@ export interface AuthenticatedSession {
 
 const GENERIC_LOGIN_FAILURE = 'E-mail or password is not correct.';
 
-export function createAuthService({ db, sessionTtlSeconds, sessionMaxAgeSeconds }: AuthServiceOptions) {
+export function createAuthService({
+  db,
+  audit,
+  sessionTtlSeconds,
+  sessionMaxAgeSeconds,
+}: AuthServiceOptions) {
   let keyPromise: Promise<Buffer> | undefined;
   const sessionKey = () => {
     keyPromise ??= loadOrCreateSecret(db, 'session-token-key');
@@ -44,13 +52,22 @@ export function createAuthService({ db, sessionTtlSeconds, sessionMaxAgeSeconds 
     const isMatch = await verifyPassword(request.password, row?.passwordHash ?? (await decoyHash));
     if (!row || !isMatch || !row.active) throw new AppError('invalid_credentials', GENERIC_LOGIN_FAILURE);
     const sessionId = randomUUID();
-    await db.insert(sessions).values({
-      id: sessionId,
-      userId: row.id,
-      expiresAt: new Date(Date.now() + sessionMaxAgeSeconds * 1000),
-      userAgent: userAgent?.slice(0, 300),
-    });
     const key = await sessionKey();
+    await db.transaction(async (tx) => {
+      await tx.insert(sessions).values({
+        id: sessionId,
+        userId: row.id,
+        expiresAt: new Date(Date.now() + sessionMaxAgeSeconds * 1000),
+        userAgent: userAgent?.slice(0, 300),
+      });
+      await audit.append(tx, {
+        actor: row,
+        action: 'auth.login',
+        targetType: 'session',
+        targetId: row.id,
+        payload: { email: row.email, sessionId },
+      });
+    });
     return {
       user: { id: row.id, email: row.email, name: row.name, role: row.role },
       token: await signSessionToken(key, row.id, sessionId, sessionTtlSeconds),
@@ -89,13 +106,21 @@ export function createAuthService({ db, sessionTtlSeconds, sessionMaxAgeSeconds 
     };
   }
 
-  async function logOut(sessionId: string): Promise<void> {
-    await db.update(sessions).set({ revokedAt: new Date() }).where(eq(sessions.id, sessionId));
+  async function logOut(user: Actor & { sessionId: string }): Promise<void> {
+    await db.transaction(async (tx) => {
+      await tx.update(sessions).set({ revokedAt: new Date() }).where(eq(sessions.id, user.sessionId));
+      await audit.append(tx, {
+        actor: user,
+        action: 'auth.logout',
+        targetType: 'session',
+        targetId: user.sessionId,
+      });
+    });
   }
 
-  /** Ends every session of a user, e.g. when an admin deactivates the account. */
-  async function revokeAllSessions(userId: string): Promise<void> {
-    await db
+  /** Ends every session of a user inside `tx`, e.g. when an admin deactivates the account. */
+  async function revokeAllSessions(tx: Transaction, userId: string): Promise<void> {
+    await tx
       .update(sessions)
       .set({ revokedAt: new Date() })
       .where(and(eq(sessions.userId, userId), isNull(sessions.revokedAt)));

@@ -6,26 +6,32 @@ import type {
   TUpdateBookmarkRequest,
 } from '../../../../shared/contracts/bookmarks';
 import { AppError } from '../../../../shared/errors';
-import type { Role } from '../../../../shared/roles';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { type BookmarkRow, bookmarks, bundles, replays } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { loadPeople } from '../findings/people';
-import type { HoldsService } from '../holds/holds-service';
+import { assertNotHeld } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import { toBookmark } from './bookmark-mapper';
 import { findVersionsCitingBookmark } from './cited-by-findings';
-
-interface Actor {
-  id: string;
-  role: Role;
-}
 
 function invalid(path: string, message: string): AppError {
   return new AppError('validation_failed', `${path}: ${message}.`, [{ path, message }]);
 }
 
 /** Pinned replay moments of a case; findings cite them as evidence. */
-export function createBookmarksService({ db, holds }: { db: Database; holds: HoldsService }) {
+/** Audit facts of a bookmark write: the case history shows which replay step it pins. */
+function bookmarkEntry(row: BookmarkRow) {
+  return {
+    targetType: 'bookmark',
+    targetId: row.id,
+    caseId: row.caseId,
+    details: { replayId: row.replayId, step: row.step },
+  };
+}
+
+export function createBookmarksService({ db, audit }: { db: Database; audit: AuditService }) {
   async function withPeople(rows: BookmarkRow[]): Promise<TBookmark[]> {
     const people = await loadPeople(
       db,
@@ -34,15 +40,15 @@ export function createBookmarksService({ db, holds }: { db: Database; holds: Hol
     return rows.map((row) => toBookmark(row, people));
   }
 
-  async function loadRow(bookmarkId: string): Promise<BookmarkRow> {
-    const [row] = await db.select().from(bookmarks).where(eq(bookmarks.id, bookmarkId));
+  async function loadRow(bookmarkId: string, executor: Database = db): Promise<BookmarkRow> {
+    const [row] = await executor.select().from(bookmarks).where(eq(bookmarks.id, bookmarkId));
     if (!row) throw new AppError('not_found', `No bookmark with id ${bookmarkId}.`);
     return row;
   }
 
   /** The replay must be a finished run of one of this case's bundles, and the step inside it. */
-  async function loadPinnableReplay(caseId: string, request: TCreateBookmarkRequest) {
-    const [replay] = await db
+  async function loadPinnableReplay(tx: Transaction, caseId: string, request: TCreateBookmarkRequest) {
+    const [replay] = await tx
       .select({
         bundleId: replays.bundleId,
         caseId: bundles.caseId,
@@ -66,24 +72,33 @@ export function createBookmarksService({ db, holds }: { db: Database; holds: Hol
   }
 
   async function createBookmark(caseId: string, request: TCreateBookmarkRequest, actor: Actor) {
-    await loadCaseState(db, caseId);
-    const replay = await loadPinnableReplay(caseId, request);
-    const [row] = await db
-      .insert(bookmarks)
-      .values({
-        id: randomUUID(),
-        caseId,
-        bundleId: replay.bundleId,
-        replayId: request.replayId,
-        replayLabel: replay.label,
-        replayDigest: replay.digest,
-        step: request.step,
-        t: request.t,
-        view: request.view,
-        note: request.note,
-        authorId: actor.id,
-      })
-      .returning();
+    const row = await db.transaction(async (tx) => {
+      await loadCaseState(tx, caseId);
+      const replay = await loadPinnableReplay(tx, caseId, request);
+      const [inserted] = await tx
+        .insert(bookmarks)
+        .values({
+          id: randomUUID(),
+          caseId,
+          bundleId: replay.bundleId,
+          replayId: request.replayId,
+          replayLabel: replay.label,
+          replayDigest: replay.digest,
+          step: request.step,
+          t: request.t,
+          view: request.view,
+          note: request.note,
+          authorId: actor.id,
+        })
+        .returning();
+      await audit.append(tx, {
+        actor,
+        action: 'bookmark.create',
+        ...bookmarkEntry(inserted),
+        payload: request,
+      });
+      return inserted;
+    });
     return (await withPeople([row]))[0];
   }
 
@@ -99,34 +114,47 @@ export function createBookmarksService({ db, holds }: { db: Database; holds: Hol
   }
 
   async function updateNote(bookmarkId: string, request: TUpdateBookmarkRequest, actor: Actor) {
-    const existing = await loadRow(bookmarkId);
-    if (existing.authorId !== actor.id && actor.role !== 'admin') {
-      throw new AppError('forbidden', 'Only the bookmark author or an admin can edit its note.');
-    }
-    const [row] = await db
-      .update(bookmarks)
-      .set({ note: request.note, updatedAt: new Date() })
-      .where(eq(bookmarks.id, bookmarkId))
-      .returning();
+    const row = await db.transaction(async (tx) => {
+      const existing = await loadRow(bookmarkId, tx);
+      if (existing.authorId !== actor.id && actor.role !== 'admin') {
+        throw new AppError('forbidden', 'Only the bookmark author or an admin can edit its note.');
+      }
+      const [updated] = await tx
+        .update(bookmarks)
+        .set({ note: request.note, updatedAt: new Date() })
+        .where(eq(bookmarks.id, bookmarkId))
+        .returning();
+      await audit.append(tx, {
+        actor,
+        action: 'bookmark.edit_note',
+        ...bookmarkEntry(updated),
+        payload: { note: request.note },
+      });
+      return updated;
+    });
     return (await withPeople([row]))[0];
   }
 
   async function deleteBookmark(bookmarkId: string, actor: Actor): Promise<TBookmark> {
-    const existing = await loadRow(bookmarkId);
-    if (existing.authorId !== actor.id) {
-      throw new AppError('forbidden', 'Only the bookmark author can delete it.');
-    }
-    await holds.assertNotHeld(existing.caseId, `Deleting bookmark ${bookmarkId}`);
-    const citing = await findVersionsCitingBookmark(db, existing.caseId, bookmarkId);
-    if (citing.length) {
-      throw new AppError(
-        'conflict',
-        `Bookmark ${bookmarkId} is cited by findings version ${citing.join(', ')}; a cited bookmark is kept.`,
-        { versions: citing },
-      );
-    }
-    await db.delete(bookmarks).where(eq(bookmarks.id, bookmarkId));
-    return (await withPeople([existing]))[0];
+    const row = await db.transaction(async (tx) => {
+      const existing = await loadRow(bookmarkId, tx);
+      if (existing.authorId !== actor.id) {
+        throw new AppError('forbidden', 'Only the bookmark author can delete it.');
+      }
+      await assertNotHeld(tx, existing.caseId, `Deleting bookmark ${bookmarkId}`);
+      const citing = await findVersionsCitingBookmark(tx, existing.caseId, bookmarkId);
+      if (citing.length) {
+        throw new AppError(
+          'conflict',
+          `Bookmark ${bookmarkId} is cited by findings version ${citing.join(', ')}; a cited bookmark is kept.`,
+          { versions: citing },
+        );
+      }
+      await tx.delete(bookmarks).where(eq(bookmarks.id, bookmarkId));
+      await audit.append(tx, { actor, action: 'bookmark.delete', ...bookmarkEntry(existing) });
+      return existing;
+    });
+    return (await withPeople([row]))[0];
   }
 
   return { createBookmark, listBookmarks, getBookmark, updateNote, deleteBookmark };

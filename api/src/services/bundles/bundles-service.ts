@@ -6,14 +6,19 @@ import type { BundleIssue } from '../../../../shared/bundle/types';
 import { AppError } from '../../../../shared/errors';
 import { inspectBundle } from '../../bundles/inspect-bundle';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { bundles, cases, replays, users } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
+import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
 
 export interface BundlesServiceOptions {
   db: Database;
+  audit: AuditService;
+  lifecycle: LifecycleService;
   evidence: EvidenceStore;
   /** Folder for derived data (Arrow copies); rebuilt from the originals if lost. */
   derivedDir: string;
@@ -29,11 +34,12 @@ export interface UploadOutcome {
 /** Table names served to the browser; they match the bundle's file stems. */
 const TABLE_NAME = /^[a-z_]{1,40}$/;
 
-export function createBundlesService({ db, evidence, derivedDir, maxUnpackedBytes }: BundlesServiceOptions) {
+export function createBundlesService(options: BundlesServiceOptions) {
+  const { db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes } = options;
   const tablesDir = (bundleId: string) => path.join(derivedDir, 'bundles', bundleId, 'tables');
 
-  const selectWithUploader = () =>
-    db
+  const selectWithUploader = (executor: Database = db) =>
+    executor
       .select({ row: bundles, uploaderName: users.name })
       .from(bundles)
       .innerJoin(users, eq(users.id, bundles.uploadedBy));
@@ -43,8 +49,8 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
     if (!found) throw new AppError('not_found', `No case with id ${caseId}.`);
   }
 
-  async function getBundle(id: string): Promise<TBundleRecord> {
-    const [found] = await selectWithUploader().where(eq(bundles.id, id));
+  async function getBundle(id: string, executor: Database = db): Promise<TBundleRecord> {
+    const [found] = await selectWithUploader(executor).where(eq(bundles.id, id));
     if (!found) throw new AppError('not_found', `No bundle with id ${id}.`);
     return toBundleRecord(found.row, found.uploaderName);
   }
@@ -59,24 +65,44 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
 
   /**
    * Keeps the uploaded file as evidence first (content-addressed, read-only), then validates it.
-   * An invalid bundle is still recorded, with its issues, so nothing brought in is lost.
+   * An invalid bundle is still recorded, with its issues, so nothing brought in is lost. The row,
+   * its `bundle.upload` entry and the case's move into analysis commit together.
    */
-  async function uploadBundle(options: {
+  async function uploadBundle(upload: {
     caseId: string;
     tempFile: string;
     originalName: string;
-    uploaderId: string;
+    actor: Actor;
   }): Promise<UploadOutcome> {
-    await requireCase(options.caseId).catch(async (error) => {
-      await fs.promises.rm(options.tempFile, { force: true });
+    const { actor } = upload;
+    const auditUpload = (tx: Transaction, bundle: TBundleRecord, isDuplicate: boolean) =>
+      audit.append(tx, {
+        actor,
+        action: 'bundle.upload',
+        targetType: 'bundle',
+        targetId: bundle.id,
+        caseId: upload.caseId,
+        details: {
+          sha256: bundle.sha256,
+          status: bundle.status,
+          ...(isDuplicate ? { duplicate: true } : {}),
+        },
+        payload: { originalName: upload.originalName, sha256: bundle.sha256, sizeBytes: bundle.sizeBytes },
+      });
+    await requireCase(upload.caseId).catch(async (error) => {
+      await fs.promises.rm(upload.tempFile, { force: true });
       throw error;
     });
-    const stored = await evidence.storeUploadedFile(options.tempFile);
+    const stored = await evidence.storeUploadedFile(upload.tempFile);
     const [existing] = await db
       .select({ id: bundles.id })
       .from(bundles)
-      .where(and(eq(bundles.caseId, options.caseId), eq(bundles.sha256, stored.sha256)));
-    if (existing) return { bundle: await getBundle(existing.id), isDuplicate: true };
+      .where(and(eq(bundles.caseId, upload.caseId), eq(bundles.sha256, stored.sha256)));
+    if (existing) {
+      const bundle = await getBundle(existing.id);
+      await db.transaction((tx) => auditUpload(tx, bundle, true));
+      return { bundle, isDuplicate: true };
+    }
 
     const id = randomUUID();
     const inspection = await inspectBundle(
@@ -86,7 +112,7 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
     // Issues about the archive itself name the stored copy; show the name the investigator knows.
     const storedName = path.basename(stored.path);
     let issues: BundleIssue[] = inspection.issues.map((issue) =>
-      issue.file === storedName ? { ...issue, file: options.originalName } : issue,
+      issue.file === storedName ? { ...issue, file: upload.originalName } : issue,
     );
     let tables: { name: string; rows: number }[] = [];
     if (inspection.ok && inspection.bundle) {
@@ -105,21 +131,27 @@ export function createBundlesService({ db, evidence, derivedDir, maxUnpackedByte
         ];
       }
     }
-    await db.insert(bundles).values({
-      id,
-      caseId: options.caseId,
-      sha256: stored.sha256,
-      sizeBytes: stored.sizeBytes,
-      originalName: options.originalName.slice(0, 255),
-      uploadedBy: options.uploaderId,
-      status: inspection.ok ? 'valid' : 'invalid',
-      issues,
-      files: inspection.files,
-      summary: inspection.summary ?? null,
-      manifest: inspection.ok ? (inspection.bundle?.manifest ?? null) : null,
-      tables,
+    const bundle = await db.transaction(async (tx) => {
+      await tx.insert(bundles).values({
+        id,
+        caseId: upload.caseId,
+        sha256: stored.sha256,
+        sizeBytes: stored.sizeBytes,
+        originalName: upload.originalName.slice(0, 255),
+        uploadedBy: actor.id,
+        status: inspection.ok ? 'valid' : 'invalid',
+        issues,
+        files: inspection.files,
+        summary: inspection.summary ?? null,
+        manifest: inspection.ok ? (inspection.bundle?.manifest ?? null) : null,
+        tables,
+      });
+      const inserted = await getBundle(id, tx);
+      await auditUpload(tx, inserted, false);
+      await lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload');
+      return inserted;
     });
-    return { bundle: await getBundle(id), isDuplicate: false };
+    return { bundle, isDuplicate: false };
   }
 
   /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */

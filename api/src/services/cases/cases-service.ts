@@ -7,10 +7,14 @@ import type {
   TCreateCaseRequest,
   TUpdateCaseRequest,
 } from '../../../../shared/contracts/cases';
-import { ZCaseListQuery, ZCreateCaseRequest } from '../../../../shared/contracts/cases';
+import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../../shared/contracts/cases';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { caseReferenceSeq, cases, users } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
+import { loadCaseState } from '../lifecycle/case-state';
+import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { toCase } from './case-mapper';
 
 // Severity sorts by rank, not alphabetically.
@@ -29,7 +33,13 @@ function escapeLike(text: string): string {
   return text.replace(/[\\%_]/g, (c) => `\\${c}`);
 }
 
-export function createCasesService({ db }: { db: Database }) {
+export interface CasesServiceOptions {
+  db: Database;
+  audit: AuditService;
+  lifecycle: LifecycleService;
+}
+
+export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions) {
   const selectWithAuthor = () =>
     db
       .select({ row: cases, authorName: users.name })
@@ -74,38 +84,71 @@ export function createCasesService({ db }: { db: Database }) {
     return toCase(found.row, { id: found.row.createdBy, name: found.authorName });
   }
 
-  async function createCase(request: TCreateCaseRequest, authorId: string): Promise<TCase> {
+  async function createCase(request: TCreateCaseRequest, actor: Actor): Promise<TCase> {
     const body = ZCreateCaseRequest.parse(request);
-    const [{ next }] = await db
-      .select({ next: sql<string>`nextval(${caseReferenceSeq.seqName})` })
-      .from(sql`(select 1) as one`);
-    const id = randomUUID();
-    await db.insert(cases).values({
-      id,
-      reference: `DC-${String(next).padStart(4, '0')}`,
-      title: body.title,
-      site: body.site,
-      robotId: body.robotId,
-      incidentTime: new Date(body.incidentTime),
-      severity: body.severity,
-      summary: body.summary,
-      createdBy: authorId,
+    const id = await db.transaction(async (tx) => {
+      const [{ next }] = await tx
+        .select({ next: sql<string>`nextval(${caseReferenceSeq.seqName})` })
+        .from(sql`(select 1) as one`);
+      const caseId = randomUUID();
+      const reference = `DC-${String(next).padStart(4, '0')}`;
+      await tx.insert(cases).values({
+        id: caseId,
+        reference,
+        title: body.title,
+        site: body.site,
+        robotId: body.robotId,
+        incidentTime: new Date(body.incidentTime),
+        severity: body.severity,
+        summary: body.summary,
+        createdBy: actor.id,
+      });
+      await audit.append(tx, {
+        actor,
+        action: 'case.create',
+        targetType: 'case',
+        targetId: caseId,
+        caseId,
+        payload: { ...body, reference },
+      });
+      return caseId;
     });
     return getCase(id);
   }
 
-  async function updateCase(id: string, request: TUpdateCaseRequest): Promise<TCase> {
-    const { incidentTime, ...rest } = request;
-    const [row] = await db
-      .update(cases)
-      .set({
-        ...rest,
-        ...(incidentTime ? { incidentTime: new Date(incidentTime) } : {}),
-        updatedAt: new Date(),
-      })
-      .where(eq(cases.id, id))
-      .returning({ id: cases.id });
-    if (!row) throw new AppError('not_found', `No case with id ${id}.`);
+  /**
+   * Edits the case record. A status change is a lifecycle move like any other, checked by the
+   * same state machine, and commits with the edit and its one `case.update` entry.
+   */
+  async function updateCase(id: string, request: TUpdateCaseRequest, actor: Actor): Promise<TCase> {
+    const changes = ZUpdateCaseRequest.parse(request);
+    const { status, incidentTime, ...rest } = changes;
+    await db.transaction(async (tx) => {
+      const current = await loadCaseState(tx, id);
+      if (status && status !== current.status) {
+        await lifecycle.transition(tx, id, status, actor.role, true);
+      }
+      await tx
+        .update(cases)
+        .set({
+          ...rest,
+          ...(incidentTime ? { incidentTime: new Date(incidentTime) } : {}),
+          updatedAt: new Date(),
+        })
+        .where(eq(cases.id, id));
+      await audit.append(tx, {
+        actor,
+        action: 'case.update',
+        targetType: 'case',
+        targetId: id,
+        caseId: id,
+        details: {
+          fields: Object.keys(changes),
+          ...(status ? { status } : {}),
+        },
+        payload: changes,
+      });
+    });
     return getCase(id);
   }
 

@@ -11,11 +11,12 @@ import {
 } from '../../../../shared/contracts/findings';
 import { AppError } from '../../../../shared/errors';
 import { diffJson } from '../../../../shared/json-diff';
-import type { Role } from '../../../../shared/roles';
 import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { type FindingVersionRow, findingDrafts, findingReviews, findingVersions } from '../../db/schema';
-import type { HoldsService } from '../holds/holds-service';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
+import { assertNotHeld, findActiveHold } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
@@ -23,24 +24,45 @@ import { validateEvidence } from './evidence-citations';
 import { type FindingsDocument, freezeFindings } from './findings-document';
 import { loadPeople } from './people';
 
-export interface Actor {
-  id: string;
-  role: Role;
+/** A stored findings version, or a 404 naming it; `db` may be an open transaction. */
+export async function loadVersionRow(
+  db: Database,
+  caseId: string,
+  version: number,
+): Promise<FindingVersionRow> {
+  const [row] = await db
+    .select()
+    .from(findingVersions)
+    .where(and(eq(findingVersions.caseId, caseId), eq(findingVersions.version, version)));
+  if (!row) throw new AppError('not_found', `Case ${caseId} has no findings version ${version}.`);
+  return row;
+}
+
+/** The highest version number of a case's findings, or null before the first submission. */
+export async function latestVersionNumber(db: Database, caseId: string): Promise<number | null> {
+  const [latest] = await db
+    .select({ version: findingVersions.version })
+    .from(findingVersions)
+    .where(eq(findingVersions.caseId, caseId))
+    .orderBy(desc(findingVersions.version))
+    .limit(1);
+  return latest?.version ?? null;
 }
 
 /** Findings drafts and their frozen, numbered versions. Reviews live in review-service.ts. */
 export function createFindingsService(deps: {
   db: Database;
-  holds: HoldsService;
+  audit: AuditService;
   lifecycle: LifecycleService;
   notify: Notifications;
 }) {
-  const { db, holds, lifecycle, notify } = deps;
+  const { db, audit, lifecycle, notify } = deps;
 
-  async function editBlockedReason(caseId: string): Promise<string | null> {
-    const hold = await holds.activeHold(caseId);
+  /** Why the findings cannot be edited now, or null; `executor` may be an open transaction. */
+  async function editBlockedReason(executor: Database, caseId: string): Promise<string | null> {
+    const hold = await findActiveHold(executor, caseId);
     if (hold) return `The case is under legal hold since ${hold.placedAt} (${hold.reason}).`;
-    const { status } = await loadCaseState(db, caseId);
+    const { status } = await loadCaseState(executor, caseId);
     return canEditFindings(status)
       ? null
       : `Findings cannot be edited while the case is ${status}; ${
@@ -51,14 +73,9 @@ export function createFindingsService(deps: {
   async function getFindings(caseId: string): Promise<TFindingsResponse> {
     const state = await loadCaseState(db, caseId);
     const [draft] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
-    const [latest] = await db
-      .select({ version: findingVersions.version })
-      .from(findingVersions)
-      .where(eq(findingVersions.caseId, caseId))
-      .orderBy(desc(findingVersions.version))
-      .limit(1);
+    const latest = await latestVersionNumber(db, caseId);
     const people = await loadPeople(db, draft ? [draft.updatedBy] : []);
-    const blocked = await editBlockedReason(caseId);
+    const blocked = await editBlockedReason(db, caseId);
     return {
       caseId,
       caseStatus: state.status,
@@ -69,16 +86,16 @@ export function createFindingsService(deps: {
             updatedAt: draft.updatedAt.toISOString(),
           }
         : null,
-      latestVersion: latest?.version ?? null,
+      latestVersion: latest,
       canEdit: blocked === null,
       editBlockedReason: blocked,
       safetyCaution: SAFETY_CAUTION,
     };
   }
 
-  async function assertEditable(caseId: string, what: string) {
-    await holds.assertNotHeld(caseId, what);
-    const blocked = await editBlockedReason(caseId);
+  async function assertEditable(tx: Transaction, caseId: string, what: string) {
+    await assertNotHeld(tx, caseId, what);
+    const blocked = await editBlockedReason(tx, caseId);
     if (blocked) throw new AppError('conflict', `${what} is not allowed now. ${blocked}`);
   }
 
@@ -87,15 +104,25 @@ export function createFindingsService(deps: {
     content: TFindingsDraft,
     actor: Actor,
   ): Promise<TFindingsResponse> {
-    await assertEditable(caseId, 'Editing the findings');
-    await db
-      .insert(findingDrafts)
-      .values({ caseId, content, updatedBy: actor.id })
-      .onConflictDoUpdate({
-        target: findingDrafts.caseId,
-        set: { content, updatedBy: actor.id, updatedAt: new Date() },
+    await db.transaction(async (tx) => {
+      await assertEditable(tx, caseId, 'Editing the findings');
+      await tx
+        .insert(findingDrafts)
+        .values({ caseId, content, updatedBy: actor.id })
+        .onConflictDoUpdate({
+          target: findingDrafts.caseId,
+          set: { content, updatedBy: actor.id, updatedAt: new Date() },
+        });
+      await audit.append(tx, {
+        actor,
+        action: 'findings.save',
+        targetType: 'findings_draft',
+        targetId: caseId,
+        caseId,
+        payload: content,
       });
-    await lifecycle.noteWorkStarted(caseId);
+      await lifecycle.noteWorkStarted(tx, caseId, actor, 'findings.save');
+    });
     return getFindings(caseId);
   }
 
@@ -103,60 +130,59 @@ export function createFindingsService(deps: {
     caseId: string,
     actor: Actor,
   ): Promise<{ version: number; sha256: string; from: string }> {
-    await assertEditable(caseId, 'Submitting the findings');
-    const { from } = await lifecycle.assertTransition(caseId, 'in_review', actor.role, false);
-    const [draft] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
-    if (!draft)
-      throw new AppError(
-        'conflict',
-        'There is no findings draft to submit; save one first (PUT .../findings).',
-      );
-    const content = ZFindingsContent.parse(draft.content);
-    await validateEvidence(db, caseId, content.evidence);
-    const state = await loadCaseState(db, caseId);
-    const [latest] = await db
-      .select({ version: findingVersions.version })
-      .from(findingVersions)
-      .where(eq(findingVersions.caseId, caseId))
-      .orderBy(desc(findingVersions.version))
-      .limit(1);
-    const version = (latest?.version ?? 0) + 1;
-    const author = (await loadPeople(db, [actor.id])).get(actor.id);
-    if (!author) throw new AppError('not_found', `No user ${actor.id}.`);
-    const submittedAt = new Date().toISOString();
-    const document: FindingsDocument = {
-      schema: 'driftcase.findings/1',
-      caseId,
-      caseReference: state.reference,
-      version,
-      author,
-      submittedAt,
-      content,
-    };
-    const frozen = freezeFindings(document);
-    // The unique (case, version) key makes a racing second submission fail instead of forking.
-    await db
-      .insert(findingVersions)
-      .values({ id: randomUUID(), caseId, version, authorId: actor.id, submittedAt, ...frozen });
-    await lifecycle.transition(caseId, 'in_review', actor.role, false);
+    const submitted = await db.transaction(async (tx) => {
+      await assertEditable(tx, caseId, 'Submitting the findings');
+      const { from } = await lifecycle.assertTransition(tx, caseId, 'in_review', actor.role, false);
+      const [draft] = await tx.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
+      if (!draft)
+        throw new AppError(
+          'conflict',
+          'There is no findings draft to submit; save one first (PUT .../findings).',
+        );
+      const content = ZFindingsContent.parse(draft.content);
+      await validateEvidence(tx, caseId, content.evidence);
+      const state = await loadCaseState(tx, caseId);
+      const version = ((await latestVersionNumber(tx, caseId)) ?? 0) + 1;
+      const author = (await loadPeople(tx, [actor.id])).get(actor.id);
+      if (!author) throw new AppError('not_found', `No user ${actor.id}.`);
+      const submittedAt = new Date().toISOString();
+      const document: FindingsDocument = {
+        schema: 'driftcase.findings/1',
+        caseId,
+        caseReference: state.reference,
+        version,
+        author,
+        submittedAt,
+        content,
+      };
+      const frozen = freezeFindings(document);
+      // The unique (case, version) key makes a racing second submission fail instead of forking.
+      await tx
+        .insert(findingVersions)
+        .values({ id: randomUUID(), caseId, version, authorId: actor.id, submittedAt, ...frozen });
+      await lifecycle.transition(tx, caseId, 'in_review', actor.role, false);
+      await audit.append(tx, {
+        actor,
+        action: 'findings.submit',
+        targetType: 'findings_version',
+        targetId: String(version),
+        caseId,
+        details: { version, sha256: frozen.sha256, from, to: 'in_review' },
+      });
+      return { version, sha256: frozen.sha256, from, state, author };
+    });
+    const { state, author, ...result } = submitted;
     await notify.findingsSubmitted({
       caseId,
       caseReference: state.reference,
       title: state.title,
-      version,
+      version: result.version,
       author,
     });
-    return { version, sha256: frozen.sha256, from };
+    return result;
   }
 
-  async function versionRow(caseId: string, version: number): Promise<FindingVersionRow> {
-    const [row] = await db
-      .select()
-      .from(findingVersions)
-      .where(and(eq(findingVersions.caseId, caseId), eq(findingVersions.version, version)));
-    if (!row) throw new AppError('not_found', `Case ${caseId} has no findings version ${version}.`);
-    return row;
-  }
+  const versionRow = (caseId: string, version: number) => loadVersionRow(db, caseId, version);
 
   async function versionStates(caseId: string): Promise<Map<number, (typeof VERSION_STATES)[number]>> {
     const versions = await db

@@ -3,26 +3,29 @@ import { and, asc, eq } from 'drizzle-orm';
 import type { TFindingsVersion, TSignatureStatus } from '../../../../shared/contracts/findings';
 import { AppError } from '../../../../shared/errors';
 import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
-import type { Database } from '../../db/client';
-import { findingReviews } from '../../db/schema';
+import type { Database, Transaction } from '../../db/client';
+import { type FindingVersionRow, findingReviews } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
 import { signDetached, verifyDetached } from '../signing/detached-jws';
 import type { SigningKeyStore } from '../signing/signing-key';
 import type { FindingsDocument } from './findings-document';
-import type { Actor, FindingsService } from './findings-service';
+import { type FindingsService, latestVersionNumber, loadVersionRow } from './findings-service';
 import { loadPeople } from './people';
 
 /** Reviewer decisions on findings versions: detached-JWS sign-off or return with a comment. */
 export function createReviewService(deps: {
   db: Database;
+  audit: AuditService;
   findings: FindingsService;
   lifecycle: LifecycleService;
   notify: Notifications;
   keys: SigningKeyStore;
 }) {
-  const { db, findings, lifecycle, notify, keys } = deps;
+  const { db, audit, findings, lifecycle, notify, keys } = deps;
   const encoder = new TextEncoder();
 
   async function checkSignature(jws: string, canonical: string): Promise<TSignatureStatus> {
@@ -69,10 +72,16 @@ export function createReviewService(deps: {
     };
   }
 
-  async function assertReviewable(caseId: string, version: number, reviewer: Actor, verb: string) {
-    const row = await findings.versionRow(caseId, version);
-    const { status } = await loadCaseState(db, caseId);
-    const latest = (await findings.listVersions(caseId)).at(-1)?.version;
+  async function assertReviewable(
+    tx: Transaction,
+    caseId: string,
+    version: number,
+    reviewer: Actor,
+    verb: string,
+  ) {
+    const row = await loadVersionRow(tx, caseId, version);
+    const { status } = await loadCaseState(tx, caseId);
+    const latest = await latestVersionNumber(tx, caseId);
     if (status !== 'in_review' || latest !== version) {
       throw new AppError(
         'illegal_transition',
@@ -90,27 +99,71 @@ export function createReviewService(deps: {
     return row;
   }
 
-  async function signOff(caseId: string, version: number, reviewer: Actor & { email: string }) {
-    const row = await assertReviewable(caseId, version, reviewer, 'signed');
-    await lifecycle.assertTransition(caseId, 'signed_off', reviewer.role, false);
+  /**
+   * One reviewer decision in one transaction: the checks, the review row, the case's move and the
+   * audit entry. `review` gives the decision's own columns and facts (signature or comment).
+   */
+  async function decide(
+    caseId: string,
+    version: number,
+    reviewer: Actor,
+    decision: {
+      kind: 'signoff' | 'return';
+      to: 'signed_off' | 'changes_requested';
+      action: 'findings.signoff' | 'findings.return';
+      review: (row: FindingVersionRow) => Promise<{
+        columns: { at: string; jws?: string; kid?: string; comment?: string; meta?: unknown };
+        details: Record<string, unknown>;
+        payload: Record<string, unknown>;
+      }>;
+    },
+  ) {
+    const verb = decision.kind === 'signoff' ? 'signed' : 'returned';
+    return db.transaction(async (tx) => {
+      const row = await assertReviewable(tx, caseId, version, reviewer, verb);
+      await lifecycle.assertTransition(tx, caseId, decision.to, reviewer.role, false);
+      const { columns, details, payload } = await decision.review(row);
+      await tx.insert(findingReviews).values({
+        id: randomUUID(),
+        caseId,
+        version,
+        kind: decision.kind,
+        reviewerId: reviewer.id,
+        ...columns,
+      });
+      await lifecycle.transition(tx, caseId, decision.to, reviewer.role, false);
+      await audit.append(tx, {
+        actor: reviewer,
+        action: decision.action,
+        targetType: 'findings_version',
+        targetId: String(version),
+        caseId,
+        details: { version, ...details, to: decision.to },
+        payload: { version, ...payload },
+      });
+      return { row, jws: columns.jws };
+    });
+  }
+
+  async function signOff(caseId: string, version: number, reviewer: Actor) {
     const signingKey = await keys.current();
-    const signedAt = new Date().toISOString();
-    const jws = await signDetached(encoder.encode(row.canonical), signingKey, {
-      signedBy: reviewer.email,
-      signedAt,
-    });
-    await db.insert(findingReviews).values({
-      id: randomUUID(),
-      caseId,
-      version,
+    const { row, jws } = await decide(caseId, version, reviewer, {
       kind: 'signoff',
-      reviewerId: reviewer.id,
-      at: signedAt,
-      jws,
-      kid: signingKey.kid,
-      meta: { acknowledgedCaution: SAFETY_CAUTION },
+      to: 'signed_off',
+      action: 'findings.signoff',
+      review: async (reviewed) => {
+        const at = new Date().toISOString();
+        const signature = await signDetached(encoder.encode(reviewed.canonical), signingKey, {
+          signedBy: reviewer.email,
+          signedAt: at,
+        });
+        return {
+          columns: { at, jws: signature, kid: signingKey.kid, meta: { acknowledgedCaution: SAFETY_CAUTION } },
+          details: { kid: signingKey.kid },
+          payload: { sha256: reviewed.sha256, jws: signature },
+        };
+      },
     });
-    await lifecycle.transition(caseId, 'signed_off', reviewer.role, false);
     await notify.findingsReviewed({
       caseId,
       version,
@@ -118,32 +171,26 @@ export function createReviewService(deps: {
       kind: 'signoff',
       reviewerEmail: reviewer.email,
     });
+    const signed = jws as string;
     return {
       version,
-      jws,
-      signature: await checkSignature(jws, row.canonical),
+      jws: signed,
+      signature: await checkSignature(signed, row.canonical),
       safetyCaution: SAFETY_CAUTION,
     };
   }
 
-  async function returnVersion(
-    caseId: string,
-    version: number,
-    comment: string,
-    reviewer: Actor & { email: string },
-  ) {
-    const row = await assertReviewable(caseId, version, reviewer, 'returned');
-    await lifecycle.assertTransition(caseId, 'changes_requested', reviewer.role, false);
-    await db.insert(findingReviews).values({
-      id: randomUUID(),
-      caseId,
-      version,
+  async function returnVersion(caseId: string, version: number, comment: string, reviewer: Actor) {
+    const { row } = await decide(caseId, version, reviewer, {
       kind: 'return',
-      reviewerId: reviewer.id,
-      at: new Date().toISOString(),
-      comment,
+      to: 'changes_requested',
+      action: 'findings.return',
+      review: async () => ({
+        columns: { at: new Date().toISOString(), comment },
+        details: {},
+        payload: { comment },
+      }),
     });
-    await lifecycle.transition(caseId, 'changes_requested', reviewer.role, false);
     await notify.findingsReviewed({
       caseId,
       version,

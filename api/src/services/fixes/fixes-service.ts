@@ -4,6 +4,8 @@ import type { TFix, TLinkFixRequest } from '../../../../shared/contracts/fixes';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bundles, type CaseFixRow, caseFixes, replays } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { loadPeople, type Person } from '../findings/people';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { Notifications } from '../mail/notifications';
@@ -27,7 +29,8 @@ function toFix(row: CaseFixRow, people: Map<string, Person>): TFix {
 }
 
 /** Fixes linked to a case, each with the replay that should show the problem gone. */
-export function createFixesService({ db, notify }: { db: Database; notify: Notifications }) {
+export function createFixesService(deps: { db: Database; audit: AuditService; notify: Notifications }) {
+  const { db, audit, notify } = deps;
   async function withPeople(rows: CaseFixRow[]): Promise<TFix[]> {
     const people = await loadPeople(
       db,
@@ -43,66 +46,77 @@ export function createFixesService({ db, notify }: { db: Database; notify: Notif
     );
   }
 
-  async function linkFix(
-    caseId: string,
-    request: TLinkFixRequest,
-    actor: { id: string; email: string },
-  ): Promise<TFix> {
-    await loadCaseState(db, caseId);
-    if (request.verificationReplayId) {
-      const [replay] = await db
-        .select({ caseId: bundles.caseId })
-        .from(replays)
-        .innerJoin(bundles, eq(bundles.id, replays.bundleId))
-        .where(eq(replays.id, request.verificationReplayId));
-      if (!replay || replay.caseId !== caseId) {
-        throw new AppError(
-          'validation_failed',
-          `verificationReplayId: no replay ${request.verificationReplayId} in this case.`,
-          [{ path: 'verificationReplayId', message: 'No such replay in this case' }],
-        );
-      }
-    }
+  async function linkFix(caseId: string, request: TLinkFixRequest, actor: Actor): Promise<TFix> {
     const changedSettings =
       request.changedSettings === undefined
         ? null
         : typeof request.changedSettings === 'string'
           ? request.changedSettings
           : JSON.stringify(request.changedSettings, null, 2);
-    const [row] = await db
-      .insert(caseFixes)
-      .values({
-        id: randomUUID(),
+    const row = await db.transaction(async (tx) => {
+      await loadCaseState(tx, caseId);
+      if (request.verificationReplayId) {
+        const [replay] = await tx
+          .select({ caseId: bundles.caseId })
+          .from(replays)
+          .innerJoin(bundles, eq(bundles.id, replays.bundleId))
+          .where(eq(replays.id, request.verificationReplayId));
+        if (!replay || replay.caseId !== caseId) {
+          throw new AppError(
+            'validation_failed',
+            `verificationReplayId: no replay ${request.verificationReplayId} in this case.`,
+            [{ path: 'verificationReplayId', message: 'No such replay in this case' }],
+          );
+        }
+      }
+      const [inserted] = await tx
+        .insert(caseFixes)
+        .values({
+          id: randomUUID(),
+          caseId,
+          url: request.url ?? null,
+          commitId: request.commitId ?? null,
+          description: request.description,
+          changedSettings,
+          softwareVersion: request.softwareVersion ?? null,
+          verificationReplayId: request.verificationReplayId ?? null,
+          linkedBy: actor.id,
+        })
+        .returning();
+      await audit.append(tx, {
+        actor,
+        action: 'fix.link',
+        targetType: 'fix',
+        targetId: inserted.id,
         caseId,
-        url: request.url ?? null,
-        commitId: request.commitId ?? null,
-        description: request.description,
-        changedSettings,
-        softwareVersion: request.softwareVersion ?? null,
-        verificationReplayId: request.verificationReplayId ?? null,
-        linkedBy: actor.id,
-      })
-      .returning();
+        payload: { ...request, changedSettings },
+      });
+      return inserted;
+    });
     await notify.fixLinked({ caseId, description: request.description, linkedByEmail: actor.email });
     return (await withPeople([row]))[0];
   }
 
-  async function verifyFix(caseId: string, fixId: string, actorId: string): Promise<TFix> {
-    const [existing] = await db
-      .select()
-      .from(caseFixes)
-      .where(and(eq(caseFixes.caseId, caseId), eq(caseFixes.id, fixId)));
-    if (!existing) throw new AppError('not_found', `Case ${caseId} has no fix ${fixId}.`);
-    if (existing.verifiedAt)
-      throw new AppError(
-        'conflict',
-        `Fix ${fixId} was already verified at ${existing.verifiedAt.toISOString()}.`,
-      );
-    const [row] = await db
-      .update(caseFixes)
-      .set({ verifiedAt: new Date(), verifiedBy: actorId })
-      .where(eq(caseFixes.id, fixId))
-      .returning();
+  async function verifyFix(caseId: string, fixId: string, actor: Actor): Promise<TFix> {
+    const row = await db.transaction(async (tx) => {
+      const [existing] = await tx
+        .select()
+        .from(caseFixes)
+        .where(and(eq(caseFixes.caseId, caseId), eq(caseFixes.id, fixId)));
+      if (!existing) throw new AppError('not_found', `Case ${caseId} has no fix ${fixId}.`);
+      if (existing.verifiedAt)
+        throw new AppError(
+          'conflict',
+          `Fix ${fixId} was already verified at ${existing.verifiedAt.toISOString()}.`,
+        );
+      const [updated] = await tx
+        .update(caseFixes)
+        .set({ verifiedAt: new Date(), verifiedBy: actor.id })
+        .where(eq(caseFixes.id, fixId))
+        .returning();
+      await audit.append(tx, { actor, action: 'fix.verify', targetType: 'fix', targetId: fixId, caseId });
+      return updated;
+    });
     return (await withPeople([row]))[0];
   }
 

@@ -4,6 +4,8 @@ import type { TCaseHold, TPlaceHoldRequest, TReleaseHoldRequest } from '../../..
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { type CaseHoldRow, caseHolds } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { loadCaseState } from '../lifecycle/case-state';
 
 function toHold(row: CaseHoldRow): TCaseHold {
@@ -19,65 +21,85 @@ function toHold(row: CaseHoldRow): TCaseHold {
   };
 }
 
+/** The active hold of a case, or null; `db` may be an open transaction. */
+export async function findActiveHold(db: Database, caseId: string): Promise<TCaseHold | null> {
+  const [row] = await db
+    .select()
+    .from(caseHolds)
+    .where(and(eq(caseHolds.caseId, caseId), isNull(caseHolds.releasedAt)))
+    .orderBy(desc(caseHolds.placedAt))
+    .limit(1);
+  return row ? toHold(row) : null;
+}
+
+/**
+ * Throws 409 `on_hold` when the case is under legal hold. Services call it, inside the write's
+ * transaction, before deleting anything that belongs to a case (bundles, replays, ...).
+ * @param what the refused action, for the message (e.g. "Deleting bundle 3f2…").
+ */
+export async function assertNotHeld(db: Database, caseId: string, what = 'This change'): Promise<void> {
+  const hold = await findActiveHold(db, caseId);
+  if (hold) {
+    throw new AppError(
+      'on_hold',
+      `${what} is not allowed: case ${caseId} is under legal hold since ${hold.placedAt} (${hold.reason}).`,
+      { caseId, hold },
+    );
+  }
+}
+
 /** Legal holds: while one is active nothing of the case may be deleted and findings stay as they are. */
-export function createHoldsService({ db }: { db: Database }) {
-  async function activeHold(caseId: string): Promise<TCaseHold | null> {
-    const [row] = await db
-      .select()
-      .from(caseHolds)
-      .where(and(eq(caseHolds.caseId, caseId), isNull(caseHolds.releasedAt)))
-      .orderBy(desc(caseHolds.placedAt))
-      .limit(1);
-    return row ? toHold(row) : null;
+export function createHoldsService({ db, audit }: { db: Database; audit: AuditService }) {
+  async function placeHold(caseId: string, request: TPlaceHoldRequest, actor: Actor): Promise<TCaseHold> {
+    return db.transaction(async (tx) => {
+      await loadCaseState(tx, caseId);
+      const existing = await findActiveHold(tx, caseId);
+      if (existing) {
+        throw new AppError(
+          'conflict',
+          `Case ${caseId} is already under legal hold since ${existing.placedAt}.`,
+          { hold: existing },
+        );
+      }
+      const [row] = await tx
+        .insert(caseHolds)
+        .values({ id: randomUUID(), caseId, reason: request.reason, placedBy: actor.id })
+        .returning();
+      await audit.append(tx, {
+        actor,
+        action: 'hold.place',
+        targetType: 'hold',
+        targetId: row.id,
+        caseId,
+        details: { reason: request.reason },
+      });
+      return toHold(row);
+    });
   }
 
-  /**
-   * Throws 409 `on_hold` when the case is under legal hold. Other services call it before
-   * deleting anything that belongs to a case (bundles, replays, ...).
-   * @param what the refused action, for the message (e.g. "Deleting bundle 3f2…").
-   */
-  async function assertNotHeld(caseId: string, what = 'This change'): Promise<void> {
-    const hold = await activeHold(caseId);
-    if (hold) {
-      throw new AppError(
-        'on_hold',
-        `${what} is not allowed: case ${caseId} is under legal hold since ${hold.placedAt} (${hold.reason}).`,
-        { caseId, hold },
-      );
-    }
-  }
-
-  async function placeHold(caseId: string, request: TPlaceHoldRequest, actorId: string): Promise<TCaseHold> {
-    await loadCaseState(db, caseId);
-    const existing = await activeHold(caseId);
-    if (existing) {
-      throw new AppError(
-        'conflict',
-        `Case ${caseId} is already under legal hold since ${existing.placedAt}.`,
-        { hold: existing },
-      );
-    }
-    const [row] = await db
-      .insert(caseHolds)
-      .values({ id: randomUUID(), caseId, reason: request.reason, placedBy: actorId })
-      .returning();
-    return toHold(row);
-  }
-
-  async function releaseHold(
-    caseId: string,
-    request: TReleaseHoldRequest,
-    actorId: string,
-  ): Promise<TCaseHold> {
-    await loadCaseState(db, caseId);
-    const [row] = await db
-      .update(caseHolds)
-      .set({ releasedAt: new Date(), releasedBy: actorId, releaseReason: request.reason ?? null })
-      .where(and(eq(caseHolds.caseId, caseId), isNull(caseHolds.releasedAt)))
-      .returning();
-    if (!row)
-      throw new AppError('conflict', `Case ${caseId} is not under legal hold; there is nothing to release.`);
-    return toHold(row);
+  async function releaseHold(caseId: string, request: TReleaseHoldRequest, actor: Actor): Promise<TCaseHold> {
+    return db.transaction(async (tx) => {
+      await loadCaseState(tx, caseId);
+      const [row] = await tx
+        .update(caseHolds)
+        .set({ releasedAt: new Date(), releasedBy: actor.id, releaseReason: request.reason ?? null })
+        .where(and(eq(caseHolds.caseId, caseId), isNull(caseHolds.releasedAt)))
+        .returning();
+      if (!row)
+        throw new AppError(
+          'conflict',
+          `Case ${caseId} is not under legal hold; there is nothing to release.`,
+        );
+      await audit.append(tx, {
+        actor,
+        action: 'hold.release',
+        targetType: 'hold',
+        targetId: row.id,
+        caseId,
+        payload: { reason: request.reason ?? null },
+      });
+      return toHold(row);
+    });
   }
 
   async function listHolds(caseId: string): Promise<TCaseHold[]> {
@@ -89,7 +111,12 @@ export function createHoldsService({ db }: { db: Database }) {
     return rows.map(toHold);
   }
 
-  return { activeHold, assertNotHeld, placeHold, releaseHold, listHolds };
+  return {
+    activeHold: (caseId: string) => findActiveHold(db, caseId),
+    placeHold,
+    releaseHold,
+    listHolds,
+  };
 }
 
 export type HoldsService = ReturnType<typeof createHoldsService>;

@@ -1,12 +1,15 @@
 import { and, count, eq, isNull } from 'drizzle-orm';
+import type { AuditAction } from '../../../../shared/audit-actions';
 import { checkTransition, nextActor, transitionsFrom } from '../../../../shared/case-lifecycle';
-import type { TCaseLifecycle } from '../../../../shared/contracts/case-lifecycle';
+import type { TCaseLifecycle, TCaseTransitionRequest } from '../../../../shared/contracts/case-lifecycle';
 import type { TCaseStatus } from '../../../../shared/contracts/cases';
 import { AppError } from '../../../../shared/errors';
 import type { Role } from '../../../../shared/roles';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { caseFixes, cases } from '../../db/schema';
-import type { HoldsService } from '../holds/holds-service';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
+import { findActiveHold } from '../holds/holds-service';
 import { loadCaseState } from './case-state';
 
 export interface TransitionResult {
@@ -16,24 +19,44 @@ export interface TransitionResult {
   event: string;
 }
 
-/** Applies the shared state machine to stored cases. */
-export function createLifecycleService({ db, holds }: { db: Database; holds: HoldsService }) {
-  async function unverifiedFixes(caseId: string): Promise<number> {
-    const [{ total }] = await db
-      .select({ total: count() })
-      .from(caseFixes)
-      .where(and(eq(caseFixes.caseId, caseId), isNull(caseFixes.verifiedAt)));
-    return total;
-  }
+async function unverifiedFixes(db: Database, caseId: string): Promise<number> {
+  const [{ total }] = await db
+    .select({ total: count() })
+    .from(caseFixes)
+    .where(and(eq(caseFixes.caseId, caseId), isNull(caseFixes.verifiedAt)));
+  return total;
+}
+
+/**
+ * Applies the shared state machine to stored cases. Every status change is an explicit call from
+ * the service doing the write that causes it, inside that write's transaction.
+ */
+export function createLifecycleService({ db, audit }: { db: Database; audit: AuditService }) {
+  /** The `case.transition` entry of a move; `why` says what asked for it (a comment or a cause). */
+  const auditMove = (tx: Transaction, actor: Actor, moved: TransitionResult, why: Record<string, unknown>) =>
+    audit.append(tx, {
+      actor,
+      action: 'case.transition',
+      targetType: 'case',
+      targetId: moved.caseId,
+      caseId: moved.caseId,
+      details: { from: moved.from, to: moved.to, event: moved.event, ...why },
+    });
 
   /** Throws 409 `illegal_transition` (or 403 for a wrong role) unless the move is allowed now. */
-  async function assertTransition(caseId: string, to: TCaseStatus, role: Role, direct: boolean) {
-    const state = await loadCaseState(db, caseId);
+  async function assertTransition(
+    executor: Database,
+    caseId: string,
+    to: TCaseStatus,
+    role: Role,
+    direct: boolean,
+  ) {
+    const state = await loadCaseState(executor, caseId);
     const check = checkTransition(
       state.status,
       to,
       role,
-      { unverifiedFixes: await unverifiedFixes(caseId) },
+      { unverifiedFixes: await unverifiedFixes(executor, caseId) },
       { direct },
     );
     if (!check.ok) {
@@ -47,18 +70,20 @@ export function createLifecycleService({ db, holds }: { db: Database; holds: Hol
   }
 
   /**
-   * Moves a case to `to` if the machine allows it for this role. `direct` is a plain status
-   * request; actions that cause a move themselves (submit, sign, return) pass false.
+   * Moves a case to `to` inside `tx` if the machine allows it for this role. `direct` is a plain
+   * status request; actions that cause a move themselves (submit, sign, return) pass false. The
+   * caller's own audit entry records the move.
    */
   async function transition(
+    tx: Transaction,
     caseId: string,
     to: TCaseStatus,
     role: Role,
     direct: boolean,
   ): Promise<TransitionResult> {
-    const { from, transition: move } = await assertTransition(caseId, to, role, direct);
+    const { from, transition: move } = await assertTransition(tx, caseId, to, role, direct);
     // Conditional on the old status, so two racing requests cannot both move the case.
-    const [row] = await db
+    const [row] = await tx
       .update(cases)
       .set({ status: to, updatedAt: new Date() })
       .where(and(eq(cases.id, caseId), eq(cases.status, from)))
@@ -71,19 +96,44 @@ export function createLifecycleService({ db, holds }: { db: Database; holds: Hol
     return { caseId, from, to, event: move.event };
   }
 
-  /** Starts analysis when work first arrives on an open case; does nothing otherwise. */
-  async function noteWorkStarted(caseId: string): Promise<TransitionResult | null> {
-    const [row] = await db
+  /** `POST /cases/:id/transitions`: a plain status change, audited as `case.transition` with its comment. */
+  async function requestTransition(
+    caseId: string,
+    request: TCaseTransitionRequest,
+    actor: Actor,
+  ): Promise<TransitionResult> {
+    return db.transaction(async (tx) => {
+      const moved = await transition(tx, caseId, request.to, actor.role, true);
+      await auditMove(tx, actor, moved, { comment: request.comment });
+      return moved;
+    });
+  }
+
+  /**
+   * Starts analysis when work first arrives on an open case (a bundle, a findings draft), inside
+   * that work's transaction, and audits the move as `case.transition` caused by `cause`.
+   * Does nothing on a case that is not open.
+   */
+  async function noteWorkStarted(
+    tx: Transaction,
+    caseId: string,
+    actor: Actor,
+    cause: AuditAction,
+  ): Promise<TransitionResult | null> {
+    const [row] = await tx
       .update(cases)
       .set({ status: 'analysing', updatedAt: new Date() })
       .where(and(eq(cases.id, caseId), eq(cases.status, 'open')))
       .returning({ id: cases.id });
-    return row ? { caseId, from: 'open', to: 'analysing', event: 'start_analysis' } : null;
+    if (!row) return null;
+    const moved: TransitionResult = { caseId, from: 'open', to: 'analysing', event: 'start_analysis' };
+    await auditMove(tx, actor, moved, { cause });
+    return moved;
   }
 
   async function getLifecycle(caseId: string): Promise<TCaseLifecycle> {
     const state = await loadCaseState(db, caseId);
-    const hold = await holds.activeHold(caseId);
+    const hold = await findActiveHold(db, caseId);
     return {
       caseId,
       status: state.status,
@@ -99,7 +149,7 @@ export function createLifecycleService({ db, holds }: { db: Database; holds: Hol
     };
   }
 
-  return { assertTransition, transition, noteWorkStarted, getLifecycle };
+  return { assertTransition, transition, requestTransition, noteWorkStarted, getLifecycle };
 }
 
 export type LifecycleService = ReturnType<typeof createLifecycleService>;

@@ -20,3 +20,9 @@ export async function listOutbox(db: Database, rawQuery: TOutboxQuery): Promise<
     pageSize: query.pageSize,
   };
 }
+
+export function createOutboxService({ db }: { db: Database }) {
+  return { listOutbox: (query: TOutboxQuery) => listOutbox(db, query) };
+}
+
+export type OutboxService = ReturnType<typeof createOutboxService>;

@@ -17,12 +17,15 @@ import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
 import { replayDir } from '../../replays/replay-files';
 import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import { toReplay } from './replay-mapper';
 import { createStepCache } from './step-cache';
 
 export interface ReplaysServiceOptions {
   db: Database;
+  audit: AuditService;
   evidence: EvidenceStore;
   derivedDir: string;
   pool: ReplayPool;
@@ -44,6 +47,7 @@ export type ReplayNotice =
 
 export function createReplaysService({
   db,
+  audit,
   evidence,
   derivedDir,
   pool,
@@ -143,11 +147,7 @@ export function createReplaysService({
     }
   }
 
-  async function startReplay(
-    bundleId: string,
-    request: TStartReplayRequest,
-    userId: string,
-  ): Promise<TReplay> {
+  async function startReplay(bundleId: string, request: TStartReplayRequest, actor: Actor): Promise<TReplay> {
     const body = ZStartReplayRequest.parse(request);
     const [bundle] = await db.select().from(bundles).where(eq(bundles.id, bundleId));
     if (!bundle) throw new AppError('not_found', `No bundle with id ${bundleId}.`);
@@ -166,21 +166,33 @@ export function createReplaysService({
       );
     }
     const id = randomUUID();
-    await db.insert(replays).values({
-      id,
-      bundleId,
-      label: body.label ?? '',
-      status: 'queued',
-      overrides: body.overrides,
-      settings: resolved.settings,
-      createdBy: userId,
+    await db.transaction(async (tx) => {
+      await tx.insert(replays).values({
+        id,
+        bundleId,
+        label: body.label ?? '',
+        status: 'queued',
+        overrides: body.overrides,
+        settings: resolved.settings,
+        createdBy: actor.id,
+      });
+      await audit.append(tx, {
+        actor,
+        action: 'replay.start',
+        targetType: 'replay',
+        targetId: id,
+        caseId: bundle.caseId,
+        details: { bundleId },
+        payload: { bundleId, label: body.label ?? '', overrides: body.overrides },
+      });
     });
     live.set(id, { progress: null, controller: new AbortController() });
     void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides);
     return getReplay(id);
   }
 
-  async function cancelReplay(id: string): Promise<TReplay> {
+  /** Cancels a live replay; the request is audited before the run is stopped, never after. */
+  async function cancelReplay(id: string, actor: Actor): Promise<TReplay> {
     const replay = await getReplay(id);
     const state = live.get(id);
     if (!state)
@@ -188,6 +200,13 @@ export function createReplaysService({
         'conflict',
         `Replay ${id} is ${replay.status}; only a queued or running replay can be cancelled.`,
       );
+    await audit.appendAlone({
+      actor,
+      action: 'replay.delete',
+      targetType: 'replay',
+      targetId: id,
+      caseId: replay.caseId,
+    });
     state.controller.abort();
     return { ...replay, status: 'cancelled' };
   }

@@ -5,6 +5,8 @@ import { AppError } from '../../../../shared/errors';
 import { QueryResultError, queryResultSha256 } from '../../../../shared/query-result-hash';
 import type { Database } from '../../db/client';
 import { bundles, type SavedQueryRow, savedQueries } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { loadPeople } from '../findings/people';
 import { loadCaseState } from '../lifecycle/case-state';
 import { toSavedQuery } from './saved-query-mapper';
@@ -36,7 +38,7 @@ function assertHashMatchesPreview(request: TCreateSavedQueryRequest): void {
 }
 
 /** SQL queries over a case's bundles, saved with their result hash as evidence. */
-export function createSavedQueriesService({ db }: { db: Database }) {
+export function createSavedQueriesService({ db, audit }: { db: Database; audit: AuditService }) {
   async function withPeople(rows: SavedQueryRow[]): Promise<TSavedQuery[]> {
     const people = await loadPeople(
       db,
@@ -48,31 +50,43 @@ export function createSavedQueriesService({ db }: { db: Database }) {
   async function saveQuery(
     caseId: string,
     request: TCreateSavedQueryRequest,
-    actor: { id: string },
+    actor: Actor,
   ): Promise<TSavedQuery> {
-    await loadCaseState(db, caseId);
-    const [bundle] = await db
-      .select({ caseId: bundles.caseId })
-      .from(bundles)
-      .where(eq(bundles.id, request.bundleId));
-    if (!bundle || bundle.caseId !== caseId)
-      throw invalid('bundleId', `No bundle ${request.bundleId} in this case`);
-    assertHashMatchesPreview(request);
-    const [row] = await db
-      .insert(savedQueries)
-      .values({
-        id: randomUUID(),
+    const row = await db.transaction(async (tx) => {
+      await loadCaseState(tx, caseId);
+      const [bundle] = await tx
+        .select({ caseId: bundles.caseId })
+        .from(bundles)
+        .where(eq(bundles.id, request.bundleId));
+      if (!bundle || bundle.caseId !== caseId)
+        throw invalid('bundleId', `No bundle ${request.bundleId} in this case`);
+      assertHashMatchesPreview(request);
+      const [inserted] = await tx
+        .insert(savedQueries)
+        .values({
+          id: randomUUID(),
+          caseId,
+          bundleId: request.bundleId,
+          title: request.title,
+          sql: request.sql,
+          resultSha256: request.resultSha256,
+          rowCount: request.rowCount,
+          columns: request.columns,
+          preview: request.preview ?? null,
+          authorId: actor.id,
+        })
+        .returning();
+      await audit.append(tx, {
+        actor,
+        action: 'saved_query.create',
+        targetType: 'saved_query',
+        targetId: inserted.id,
         caseId,
-        bundleId: request.bundleId,
-        title: request.title,
-        sql: request.sql,
-        resultSha256: request.resultSha256,
-        rowCount: request.rowCount,
-        columns: request.columns,
-        preview: request.preview ?? null,
-        authorId: actor.id,
-      })
-      .returning();
+        details: { resultSha256: request.resultSha256, rowCount: request.rowCount },
+        payload: request,
+      });
+      return inserted;
+    });
     return (await withPeople([row]))[0];
   }
 

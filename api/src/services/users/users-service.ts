@@ -1,10 +1,17 @@
 import { randomUUID } from 'node:crypto';
 import { asc, eq } from 'drizzle-orm';
-import type { TCreateUserRequest, TUpdateUserRequest, TUser } from '../../../../shared/contracts/users';
+import {
+  type TCreateUserRequest,
+  type TUpdateUserRequest,
+  type TUser,
+  ZUpdateUserRequest,
+} from '../../../../shared/contracts/users';
 import { AppError } from '../../../../shared/errors';
-import type { Database } from '../../db/client';
+import type { Database, Transaction } from '../../db/client';
 import { isUniqueViolation } from '../../db/postgres-errors';
 import { type UserRow, users } from '../../db/schema';
+import type { Actor } from '../actor';
+import type { AuditService } from '../audit/audit-service';
 import { hashPassword } from '../auth/passwords';
 
 export function toUser(row: UserRow): TUser {
@@ -20,29 +27,43 @@ export function toUser(row: UserRow): TUser {
 
 export interface UsersServiceOptions {
   db: Database;
-  /** Called when an account is deactivated, so its sessions end at once. */
-  onDeactivated?: (userId: string) => Promise<void>;
+  audit: AuditService;
+  /** Ends a deactivated account's sessions inside the deactivation's transaction. */
+  revokeAllSessions: (tx: Transaction, userId: string) => Promise<void>;
 }
 
-export function createUsersService({ db, onDeactivated }: UsersServiceOptions) {
+export function createUsersService({ db, audit, revokeAllSessions }: UsersServiceOptions) {
   async function listUsers(): Promise<TUser[]> {
     const rows = await db.select().from(users).orderBy(asc(users.name));
     return rows.map(toUser);
   }
 
-  async function createUser(request: TCreateUserRequest): Promise<TUser> {
+  /** `actor` is null when the system itself creates the account (the demo seed). */
+  async function createUser(request: TCreateUserRequest, actor: Actor | null): Promise<TUser> {
+    const passwordHash = await hashPassword(request.password);
     try {
-      const [row] = await db
-        .insert(users)
-        .values({
-          id: randomUUID(),
-          email: request.email,
-          name: request.name,
-          role: request.role,
-          passwordHash: await hashPassword(request.password),
-        })
-        .returning();
-      return toUser(row);
+      return await db.transaction(async (tx) => {
+        const [row] = await tx
+          .insert(users)
+          .values({
+            id: randomUUID(),
+            email: request.email,
+            name: request.name,
+            role: request.role,
+            passwordHash,
+          })
+          .returning();
+        await audit.append(tx, {
+          actor,
+          action: 'user.create',
+          targetType: 'user',
+          targetId: row.id,
+          details: { role: row.role },
+          // The password stays out: a hash of a short password could be guessed back.
+          payload: { email: request.email, name: request.name, role: request.role },
+        });
+        return toUser(row);
+      });
     } catch (error) {
       if (isUniqueViolation(error)) {
         throw new AppError('conflict', `A user with the e-mail ${request.email} already exists.`, [
@@ -53,18 +74,33 @@ export function createUsersService({ db, onDeactivated }: UsersServiceOptions) {
     }
   }
 
-  async function updateUser(id: string, actingUserId: string, request: TUpdateUserRequest): Promise<TUser> {
-    if (id === actingUserId && (request.active === false || (request.role && request.role !== 'admin'))) {
+  async function updateUser(id: string, request: TUpdateUserRequest, actor: Actor): Promise<TUser> {
+    const changes = ZUpdateUserRequest.parse(request);
+    if (id === actor.id && (changes.active === false || (changes.role && changes.role !== 'admin'))) {
       throw new AppError('conflict', 'You cannot deactivate yourself or remove your own admin role.');
     }
-    const [row] = await db
-      .update(users)
-      .set({ ...request, updatedAt: new Date() })
-      .where(eq(users.id, id))
-      .returning();
-    if (!row) throw new AppError('not_found', `No user with id ${id}.`);
-    if (request.active === false) await onDeactivated?.(id);
-    return toUser(row);
+    return db.transaction(async (tx) => {
+      const [row] = await tx
+        .update(users)
+        .set({ ...changes, updatedAt: new Date() })
+        .where(eq(users.id, id))
+        .returning();
+      if (!row) throw new AppError('not_found', `No user with id ${id}.`);
+      if (changes.active === false) await revokeAllSessions(tx, id);
+      await audit.append(tx, {
+        actor,
+        action: 'user.update',
+        targetType: 'user',
+        targetId: id,
+        details: {
+          fields: Object.keys(changes),
+          ...(changes.role ? { role: changes.role } : {}),
+          ...(changes.active !== undefined ? { active: changes.active } : {}),
+        },
+        payload: changes,
+      });
+      return toUser(row);
+    });
   }
 
   return { listUsers, createUser, updateUser };

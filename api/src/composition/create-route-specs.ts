@@ -1,0 +1,47 @@
+import type { AppConfig } from '../config';
+import type { RouteSpec } from '../http/route-spec';
+import type { SessionCookieOptions } from '../http/session-middleware';
+import { archiveRoutes } from '../routes/archives';
+import { auditRoutes } from '../routes/audit';
+import { authRoutes } from '../routes/auth';
+import { bookmarkRoutes } from '../routes/bookmarks';
+import { bundleRoutes } from '../routes/bundles';
+import { caseRoutes } from '../routes/cases';
+import { findingsRoutes } from '../routes/findings';
+import { fixRoutes } from '../routes/fixes';
+import { healthRoutes } from '../routes/health';
+import { holdRoutes } from '../routes/holds';
+import { keyRoutes } from '../routes/keys';
+import { lifecycleRoutes } from '../routes/lifecycle';
+import { outboxRoutes } from '../routes/outbox';
+import { replayRoutes } from '../routes/replays';
+import { savedQueryRoutes } from '../routes/saved-queries';
+import { userRoutes } from '../routes/users';
+import type { Services } from './create-services';
+
+export function sessionCookieOptions(config: AppConfig): SessionCookieOptions {
+  return { secure: config.secureCookies, maxAgeSeconds: config.sessionMaxAgeSeconds };
+}
+
+/** Every API route, each given only the services it calls. The only place routes are made. */
+export function createRouteSpecs(services: Services, config: AppConfig): RouteSpec[] {
+  const uploads = { incomingDir: services.evidence.incoming, maxUploadBytes: config.maxUploadBytes };
+  return [
+    ...healthRoutes(),
+    ...authRoutes(services.auth, sessionCookieOptions(config)),
+    ...userRoutes(services.users),
+    ...caseRoutes(services.cases),
+    ...bundleRoutes(services.bundles, uploads),
+    ...replayRoutes(services.replays),
+    ...lifecycleRoutes(services.lifecycle),
+    ...findingsRoutes(services.findings, services.reviews),
+    ...fixRoutes(services.fixes),
+    ...holdRoutes(services.holds),
+    ...auditRoutes(services.audit),
+    ...keyRoutes(services.keys),
+    ...outboxRoutes(services.outbox),
+    ...archiveRoutes(services.archives, uploads),
+    ...bookmarkRoutes(services.bookmarks),
+    ...savedQueryRoutes(services.savedQueries),
+  ];
+}

@@ -1,0 +1,119 @@
+import path from 'node:path';
+import type { Logger } from 'pino';
+import type { AppConfig } from '../config';
+import type { Database } from '../db/client';
+import { createReplayPool, type ReplayPool } from '../replays/replay-pool';
+import { createArchiveService } from '../services/archive/archive-service';
+import { createAuditService } from '../services/audit/audit-service';
+import { createAuthService } from '../services/auth/auth-service';
+import { createBookmarksService } from '../services/bookmarks/bookmarks-service';
+import { createBundlesService } from '../services/bundles/bundles-service';
+import { createCasesService } from '../services/cases/cases-service';
+import { createEvidenceStore } from '../services/evidence/evidence-store';
+import { createFindingsService } from '../services/findings/findings-service';
+import { createReviewService } from '../services/findings/review-service';
+import { createFixesService } from '../services/fixes/fixes-service';
+import { createHoldsService } from '../services/holds/holds-service';
+import { createLifecycleService } from '../services/lifecycle/lifecycle-service';
+import { createMailQueue } from '../services/mail/mail-queue';
+import { createNotifications } from '../services/mail/notifications';
+import { createOutboxService } from '../services/mail/outbox-service';
+import { createReplaysService } from '../services/replays/replays-service';
+import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
+import { createSigningKeyStore } from '../services/signing/signing-key';
+import { createUsersService } from '../services/users/users-service';
+
+export interface ServiceDependencies {
+  db: Database;
+  config: AppConfig;
+  logger: Logger;
+  /** Worker threads for replays; one is made when not given. */
+  replayPool?: ReplayPool;
+}
+
+/**
+ * Creates every service once, each with the services it calls passed in. This is the only place
+ * services are created; a write's side effects (a status change, a notification) are explicit
+ * calls inside the service that does the write, never listeners wired here.
+ */
+export function createServices({ db, config, logger, replayPool }: ServiceDependencies) {
+  const audit = createAuditService({ db });
+  const auth = createAuthService({
+    db,
+    audit,
+    sessionTtlSeconds: config.sessionTtlSeconds,
+    sessionMaxAgeSeconds: config.sessionMaxAgeSeconds,
+  });
+  const users = createUsersService({ db, audit, revokeAllSessions: auth.revokeAllSessions });
+  const holds = createHoldsService({ db, audit });
+  const lifecycle = createLifecycleService({ db, audit });
+  const cases = createCasesService({ db, audit, lifecycle });
+
+  const evidence = createEvidenceStore(config.dataDir);
+  const derivedDir = path.join(config.dataDir, 'derived');
+  const { maxUnpackedBytes } = config;
+  const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
+  const replayWorkers = replayPool ?? createReplayPool();
+  const replays = createReplaysService({
+    ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },
+    pool: replayWorkers,
+    loadBundle: bundles.parsedBundle,
+  });
+
+  const mailQueue = createMailQueue({
+    db,
+    smtpUrl: config.smtpUrl,
+    from: 'Driftcase <driftcase@localhost>',
+    logger,
+  });
+  const notify = createNotifications({ db, queue: mailQueue, publicUrl: config.publicUrl, logger });
+  const outbox = createOutboxService({ db });
+  const keys = createSigningKeyStore(config.dataDir);
+  const findings = createFindingsService({ db, audit, lifecycle, notify });
+  const reviews = createReviewService({ db, audit, findings, lifecycle, notify, keys });
+  const fixes = createFixesService({ db, audit, notify });
+  const bookmarks = createBookmarksService({ db, audit });
+  const savedQueries = createSavedQueriesService({ db, audit });
+
+  const archives = createArchiveService({
+    sources: {
+      getCase: cases.getCase,
+      listCaseBundles: bundles.listCaseBundles,
+      originalPathFor: evidence.pathFor,
+      listBundleReplays: replays.listBundleReplays,
+      derivedDir,
+      listFindingsVersions: findings.listVersions,
+      getFindingsVersion: reviews.getVersion,
+      listFixes: fixes.listFixes,
+      readCaseChain: audit.readCaseChain,
+      jwks: keys.jwks,
+      workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
+    },
+    ...{ keys, audit, notify, maxUnpackedBytes },
+  });
+
+  return {
+    audit,
+    auth,
+    users,
+    holds,
+    lifecycle,
+    cases,
+    evidence,
+    bundles,
+    replays,
+    replayWorkers,
+    mailQueue,
+    notify,
+    outbox,
+    keys,
+    findings,
+    reviews,
+    fixes,
+    bookmarks,
+    savedQueries,
+    archives,
+  };
+}
+
+export type Services = ReturnType<typeof createServices>;

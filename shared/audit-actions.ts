@@ -1,0 +1,32 @@
+/**
+ * Every action the audit trail records. The web app's case history and the evidence archive read
+ * these names, so an existing one is never renamed; a new write adds its own here.
+ */
+export const AUDIT_ACTIONS = [
+  'auth.login',
+  'auth.logout',
+  'user.create',
+  'user.update',
+  'case.create',
+  'case.update',
+  'case.transition',
+  'bundle.upload',
+  'replay.start',
+  'replay.delete',
+  'findings.save',
+  'findings.submit',
+  'findings.signoff',
+  'findings.return',
+  'fix.link',
+  'fix.verify',
+  'hold.place',
+  'hold.release',
+  'bookmark.create',
+  'bookmark.edit_note',
+  'bookmark.delete',
+  'saved_query.create',
+  'archive.export',
+  'archive.verify',
+] as const;
+
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
