@@ -14,22 +14,34 @@ function fieldIssue(path: readonly PropertyKey[], message: string): FieldIssue {
   return { path: name, field: name, message };
 }
 
-/** Turns zod issues into `{ path, field, message }` triples a form can show beside its fields. */
-export function toFieldIssues(error: ZodError): FieldIssue[] {
-  return error.issues.flatMap((issue: z.core.$ZodIssue) => {
+/** Whether a union option failed only because the value has another type (so it is not the one meant). */
+const isWrongType = (issues: readonly z.core.$ZodIssue[]) =>
+  issues.every((issue) => issue.code === 'invalid_type' && issue.path.length === 0);
+
+function issuesToFields(issues: readonly z.core.$ZodIssue[], prefix: readonly PropertyKey[]): FieldIssue[] {
+  return issues.flatMap((issue) => {
+    const path = [...prefix, ...issue.path];
     if (issue.code === 'unrecognized_keys') {
       return issue.keys.map((key) =>
-        fieldIssue([...issue.path, key], 'Unknown field: this request does not accept it; remove it'),
+        fieldIssue([...path, key], 'Unknown field: this request does not accept it; remove it'),
       );
     }
     if (issue.code === 'invalid_key') {
       const reason = issue.issues.map((inner) => inner.message).join('; ');
-      return [
-        fieldIssue(issue.path, `The field name ${reason ? `is not accepted: ${reason}` : 'is not accepted'}`),
-      ];
+      return [fieldIssue(path, `This field name is not accepted${reason ? `: ${reason}` : ''}`)];
     }
-    return [fieldIssue(issue.path, issue.message)];
+    if (issue.code === 'invalid_union') {
+      // The option of the value's own type explains the problem better than "Invalid input".
+      const meant = issue.errors.filter((option) => !isWrongType(option));
+      if (meant.length === 1) return issuesToFields(meant[0], path);
+    }
+    return [fieldIssue(path, issue.message)];
   });
+}
+
+/** Turns zod issues into `{ path, field, message }` triples a form can show beside its fields. */
+export function toFieldIssues(error: ZodError): FieldIssue[] {
+  return issuesToFields(error.issues, []);
 }
 
 /**

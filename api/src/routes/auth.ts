@@ -1,4 +1,5 @@
 import { ZLoginRequest } from '../../../shared/contracts/auth';
+import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ROLES } from '../../../shared/roles';
 import { loginRateLimit } from '../http/login-rate-limit';
 import type { RouteSpec } from '../http/route-spec';
@@ -30,6 +31,7 @@ export function authRoutes(auth: AuthService, cookies: SessionCookieOptions): Ro
       access: ROLES,
       audit: { action: 'auth.logout' },
       handler: async (req, res) => {
+        parseEmptyBody(req.body);
         await auth.logOut(req.user);
         clearSessionCookies(res);
         res.status(204).end();

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ZCreateBookmarkRequest, ZUpdateBookmarkRequest } from '../../../shared/contracts/bookmarks';
+import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
 import type { BookmarksService } from '../services/bookmarks/bookmarks-service';
@@ -54,6 +55,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       audit: { action: 'bookmark.delete' },
       handler: async (req, res) => {
         const { id } = ZBookmarkParams.parse(req.params);
+        parseEmptyBody(req.body);
         res.json(await bookmarks.deleteBookmark(id, req.user));
       },
     },

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ZFindingsDraft, ZReturnRequest, ZSignoffRequest } from '../../../shared/contracts/findings';
 import { ROLES } from '../../../shared/roles';
 import { SAFETY_CAUTION } from '../../../shared/safety-caution';
@@ -39,6 +40,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       audit: { action: 'findings.submit' },
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
+        parseEmptyBody(req.body);
         const submitted = await findings.submit(id, req.user);
         res.status(201).json({ ...submitted, safetyCaution: SAFETY_CAUTION });
       },

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ZLinkFixRequest } from '../../../shared/contracts/fixes';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
@@ -34,6 +35,7 @@ export function fixRoutes(fixes: FixesService): RouteSpec[] {
       audit: { action: 'fix.verify' },
       handler: async (req, res) => {
         const { id, fixId } = ZFixParams.parse(req.params);
+        parseEmptyBody(req.body);
         res.json(await fixes.verifyFix(id, fixId, req.user));
       },
     },

@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import { z } from 'zod';
+import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ZStartReplayRequest } from '../../../shared/contracts/replays';
 import { NEES_BOUND_95 } from '../../../shared/engine/trajectory-error';
 import { ROLES } from '../../../shared/roles';
@@ -55,6 +56,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       audit: { action: 'replay.delete' },
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
+        parseEmptyBody(req.body);
         res.status(202).json(await replays.cancelReplay(id, req.user));
       },
     },
