@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
@@ -333,6 +334,30 @@ describe('text validation', () => {
         );
       }
     }
+  });
+
+  it('refuses an upload whose file name holds NUL, keeping nothing of it', async () => {
+    const token = await t.tokenFor('investigator');
+    const caseId = (await request(t.app).get('/api/cases').set('Authorization', `Bearer ${token}`)).body
+      .items[0].id;
+    const { incoming } = t.app.locals.services.evidence;
+    const kept = () => (fs.existsSync(incoming) ? fs.readdirSync(incoming).sort() : []);
+    const before = kept();
+    // RFC 7578 section 4.2 / RFC 5987: a percent-encoded UTF-8 file name, here with %00 in it.
+    // (A lone surrogate cannot arrive this way: its bytes are not UTF-8 and decode to U+FFFD.)
+    const body = Buffer.from(
+      '--XYZ\r\nContent-Disposition: form-data; name="bundle"; filename*=UTF-8\'\'dock%00four.zip\r\n' +
+        'Content-Type: application/zip\r\n\r\nPK not a zip\r\n--XYZ--\r\n',
+    );
+    const res = await request(t.app)
+      .post(`/api/cases/${caseId}/bundles`)
+      .set('Authorization', `Bearer ${token}`)
+      .set('Content-Type', 'multipart/form-data; boundary=XYZ')
+      .send(body);
+    expect(res.status, JSON.stringify(res.body)).toBe(400);
+    expect(fieldsOf(res)).toEqual(['bundle']);
+    expect(res.body.error.message).toContain('file name must not contain the NUL character');
+    expect(kept()).toEqual(before);
   });
 
   it('refuses NUL in the case list query string with 400 naming the parameter', async () => {

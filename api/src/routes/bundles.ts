@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import multer from 'multer';
 import { z } from 'zod';
+import { safeText, unsafeTextReason } from '../../../shared/contracts/safe-text';
 import { AppError } from '../../../shared/errors';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
@@ -9,7 +10,7 @@ import { ZCaseParams } from './cases';
 
 const ZBundleParams = z.object({ id: z.uuid('Bundle id must be a UUID') });
 const ZReplayOfBundleParams = ZBundleParams.extend({ replayId: z.uuid('Replay id must be a UUID') });
-const ZTableParams = ZBundleParams.extend({ name: z.string().min(1).max(40) });
+const ZTableParams = ZBundleParams.extend({ name: safeText().min(1).max(40) });
 
 export interface BundleRouteOptions {
   incomingDir: string;
@@ -40,10 +41,19 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
             [{ path: 'bundle', message: 'Required' }],
           );
         }
+        const originalName = Buffer.from(req.file.originalname, 'latin1').toString('utf8');
+        const nameProblem = unsafeTextReason(originalName);
+        if (nameProblem) {
+          await fs.promises.rm(req.file.path, { force: true });
+          const message = `The file name ${nameProblem}; rename the file and upload it again`;
+          throw new AppError('validation_failed', `Invalid request: bundle: ${message}.`, [
+            { path: 'bundle', field: 'bundle', message },
+          ]);
+        }
         const outcome = await bundles.uploadBundle({
           caseId,
           tempFile: req.file.path,
-          originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
+          originalName,
           actor: req.user,
         });
         if (outcome.bundle.status === 'invalid') {
