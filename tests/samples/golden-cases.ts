@@ -6,9 +6,11 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
-export const SAMPLES_DIR = join(import.meta.dirname, '../../sample-logs');
-export const GOLDEN_DIGESTS_FILE = join(import.meta.dirname, 'digests.json');
+// From import.meta.url, not import.meta.dirname: the Debian Node 18 check runs this file too.
+export const SAMPLES_DIR = fileURLToPath(new URL('../../sample-logs', import.meta.url));
+export const GOLDEN_DIGESTS_FILE = fileURLToPath(new URL('./digests.json', import.meta.url));
 
 export const GOLDEN_SETTINGS: Record<string, Record<string, unknown>> = {
   manifest: {},
