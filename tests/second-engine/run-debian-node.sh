@@ -19,6 +19,7 @@ fi
 
 # Built next to golden-cases.ts so its paths (relative to import.meta.url) resolve as in the source.
 BUILT=tests/samples/.check-golden-digests.mjs
+trap 'rm -f "$BUILT"' EXIT
 npx esbuild tests/second-engine/check-golden-digests.ts --bundle --platform=node --format=esm \
   --target=node18 --log-level=warning --outfile="$BUILT"
 
