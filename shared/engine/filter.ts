@@ -41,7 +41,7 @@ export interface ReplayOptions {
    * Called once before step 0 with the state and workspace, e.g. to move the particle arrays
    * into shared memory and set `workspace.particleStages` for a split across threads.
    */
-  adopt?: (state: ParticleState, workspace: StepWorkspace) => void;
+  adopt?: (state: ParticleState, workspace: StepWorkspace, context: ReplayContext) => void;
 }
 
 export interface ReplayMetrics {
@@ -103,7 +103,7 @@ export function runReplay(
   const keyframeInterval = options.keyframeInterval ?? DEFAULT_KEYFRAME_INTERVAL;
   const state = createInitialState(context);
   const workspace = createStepWorkspace(context);
-  options.adopt?.(state, workspace);
+  options.adopt?.(state, workspace, context);
   const series = createReplaySeries(steps);
   const keyframes: Keyframe[] = [];
   for (let step = 0; step < steps; step++) {
