@@ -131,4 +131,27 @@ describe('architecture', () => {
     );
     expect(found).toEqual([]);
   });
+
+  it('keeps host transcendental functions out of everything that feeds the digest', () => {
+    // ECMA-262 leaves Math.exp, Math.log, Math.sin, ... "implementation-approximated": Node and a
+    // browser may differ in the last bit, and one bit changes the digest. The engine's own
+    // functions (shared/engine/numerics) use exactly specified double arithmetic only. sqrt,
+    // abs, floor, round, min, max, fround and imul are exact and stay allowed; `**` does not:
+    // engines evaluate it with their own pow.
+    const hostMath =
+      /\bMath\.(exp|expm1|log|log1p|log2|log10|sin|cos|tan|asin|acos|atan|atan2|sinh|cosh|tanh|asinh|acosh|atanh|pow|hypot|cbrt)\b/;
+    const found = ['shared/engine', 'shared/bundle'].flatMap((root) =>
+      sourceFiles(root).flatMap((file) => {
+        const text = fs.readFileSync(file, 'utf8').replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, '');
+        return text.split('\n').flatMap((line, index) => {
+          const problems = [];
+          const call = hostMath.exec(line);
+          if (call) problems.push(`${file}:${index + 1}: ${call[0]}`);
+          if (/[\w)\]]\s*\*\*\s*[\w(]/.test(line)) problems.push(`${file}:${index + 1}: ** operator`);
+          return problems;
+        });
+      }),
+    );
+    expect(found).toEqual([]);
+  });
 });

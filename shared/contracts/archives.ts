@@ -49,6 +49,12 @@ export const ZArchiveCheck = z.object({
   /** Archive path the check is about, when there is one. */
   file: z.string().nullable(),
   message: z.string(),
+  /**
+   * Set on a replay check that could not compare digests because the replay was recorded under
+   * an older digest layout (an older engine's numbers): not a sign of tampering, and the check
+   * is not `ok` either, since its digest was not re-confirmed.
+   */
+  olderDigestLayout: z.number().optional(),
 });
 export type TArchiveCheck = z.infer<typeof ZArchiveCheck>;
 

@@ -46,6 +46,11 @@ export const ZReplay = z.object({
   /** Effective settings (manifest filter block + overrides); null until the run starts. */
   settings: z.record(z.string(), z.unknown()).nullable(),
   digest: z.string().nullable(),
+  /**
+   * What produced the digest: engine version, digest layout (see shared/engine/engine-version.ts)
+   * and runtime; null until done, and for replays made before engine 2.0.0 (digest layout 1).
+   */
+  engine: z.object({ engine: z.string(), digestLayout: z.number(), runtime: z.string() }).nullable(),
   steps: z.number().nullable(),
   elapsedMs: z.number().nullable(),
   metrics: ZReplayMetrics.nullable(),

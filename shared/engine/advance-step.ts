@@ -3,9 +3,11 @@
  * normalisation, diagnostics, recovery averages, resampling (with optional KLD particle count)
  * and random-particle injection. Mutates the state; fills `workspace.record`.
  */
+
 import { type ClusterScratch, countBeliefClusters, createClusterScratch } from './cluster-count';
 import { createRangeScratch, type RangeScratch, runParticleStages } from './filter-step';
 import { kldTargetCount } from './kld-sampling';
+import { exp, log } from './numerics';
 import type { ParticleState } from './particle-state';
 import {
   createPoseSummary,
@@ -104,7 +106,7 @@ export function createStepWorkspace(context: ReplayContext): StepWorkspace {
 }
 
 function exponentiateWeights(logWeight: Float64Array, n: number, weights: Float64Array): void {
-  for (let i = 0; i < n; i++) weights[i] = Math.exp(logWeight[i]);
+  for (let i = 0; i < n; i++) weights[i] = exp(logWeight[i]);
 }
 
 /** Applies the measurement log-likelihoods and renormalises; returns the step log-likelihood. */
@@ -115,7 +117,7 @@ function updateWeights(state: ParticleState, increments: Float64Array): number {
   const normaliser = logSumExp(logWeight, n);
   if (!Number.isFinite(normaliser)) {
     // Every particle is impossible under the measurements: keep the set, forget the weights.
-    logWeight.fill(-Math.log(n), 0, n);
+    logWeight.fill(-log(n), 0, n);
     return normaliser;
   }
   for (let i = 0; i < n; i++) logWeight[i] -= normaliser;
@@ -166,8 +168,8 @@ function resampleState(
   state.y = spareY;
   state.theta = spareTheta;
   state.count = draws;
-  state.logWeight.fill(-Math.log(draws), 0, draws);
-  workspace.weights.fill(Math.exp(-Math.log(draws)), 0, draws);
+  state.logWeight.fill(-log(draws), 0, draws);
+  workspace.weights.fill(exp(-log(draws)), 0, draws);
   workspace.record.distinct = countDistinctAncestors(ancestors, draws, workspace.marks, n);
 }
 

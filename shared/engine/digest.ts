@@ -3,7 +3,8 @@
  * replays can be compared by one string.
  *
  * Layout (all little-endian):
- *   header: the 26 ASCII bytes "driftcase-replay-digest/1\n", then uint32 step count;
+ *   header: the 26 ASCII bytes "driftcase-replay-digest/<DIGEST_LAYOUT>\n" (layout 2 today, see
+ *   engine-version.ts), then uint32 step count;
  *   per step, in step order:
  *     float64 t, x, y, theta, cov_xx, cov_xy, cov_yy, cov_tt, ess, entropy, log_likelihood
  *     uint8   resampled (method code, 0 = none)
@@ -11,10 +12,12 @@
  * Every NaN is written as the canonical quiet NaN 0x7FF8000000000000.
  * Errors against reference/onboard poses are NOT included: they depend on other files, not the filter.
  */
+
+import { DIGEST_LAYOUT } from './engine-version';
 import type { ReplaySeries } from './replay-series';
 import { sha256Hex } from './sha256';
 
-const HEADER = 'driftcase-replay-digest/1\n';
+const HEADER = `driftcase-replay-digest/${DIGEST_LAYOUT}\n`;
 const FLOAT_FIELDS = [
   't',
   'x',

@@ -3,9 +3,15 @@
  * can be split across worker threads: every particle's result depends only on its own state, the
  * shared read-only context and counter-keyed random numbers.
  */
-import { accumulateDetectionLogLikelihood } from './landmark-model';
+
+import {
+  accumulateDetectionLogLikelihood,
+  createDetectionScratch,
+  type DetectionScratch,
+} from './landmark-association';
 import { accumulateScanLogLikelihood, robotFrameEndpoints } from './likelihood-field';
 import { decomposeOdometry, sampleOdometryMotion } from './motion-model';
+import { cos, sin } from './numerics';
 import type { ParticleState } from './particle-state';
 import type { RandomScratch } from './random';
 import type { ReplayContext } from './replay-context';
@@ -16,11 +22,17 @@ export interface RangeScratch {
   /** Robot-frame beam endpoints of the scan being applied (m), length = beams used. */
   endX: Float64Array;
   endY: Float64Array;
+  detections: DetectionScratch;
 }
 
 export function createRangeScratch(context: ReplayContext, random: RandomScratch): RangeScratch {
   const beams = context.beams?.indices.length ?? 0;
-  return { random, endX: new Float64Array(beams), endY: new Float64Array(beams) };
+  return {
+    random,
+    endX: new Float64Array(beams),
+    endY: new Float64Array(beams),
+    detections: createDetectionScratch(context.landmarks, context.capacity),
+  };
 }
 
 /**
@@ -72,8 +84,8 @@ export function computeHeadingTrig(
   sinTheta: Float64Array,
 ): void {
   for (let i = from; i < to; i++) {
-    cosTheta[i] = Math.cos(theta[i]);
-    sinTheta[i] = Math.sin(theta[i]);
+    cosTheta[i] = cos(theta[i]);
+    sinTheta[i] = sin(theta[i]);
   }
 }
 
@@ -124,23 +136,18 @@ export function weighParticleRange(
   }
   const detections = bundle.detections;
   if (landmarks && detections) {
-    for (let d = timeline.detectionStart[step]; d < timeline.detectionStart[step + 1]; d++) {
-      const reportedClass = detections.classIndex[d];
-      const { range, bearing } = detections;
-      accumulateDetectionLogLikelihood(
-        landmarks,
-        state.x,
-        state.y,
-        state.theta,
-        from,
-        to,
-        reportedClass,
-        range[d],
-        bearing[d],
-        out,
-      );
-      measurements++;
-    }
+    const first = timeline.detectionStart[step];
+    const end = timeline.detectionStart[step + 1];
+    accumulateDetectionLogLikelihood(
+      landmarks,
+      { x: state.x, y: state.y, theta: state.theta, cosTheta, sinTheta },
+      from,
+      to,
+      { classIndex: detections.classIndex, range: detections.range, bearing: detections.bearing, first, end },
+      out,
+      scratch.detections,
+    );
+    measurements += end - first;
   }
   return measurements;
 }

@@ -3,7 +3,7 @@
  * and can resume from a keyframe to reproduce any step's exact particle set.
  */
 import type { Bundle } from '../bundle/types';
-import { advanceStep, createStepWorkspace } from './advance-step';
+import { advanceStep, createStepWorkspace, type StepWorkspace } from './advance-step';
 import { replayDigest } from './digest';
 import { initializeParticles } from './initial-belief';
 import {
@@ -37,6 +37,11 @@ export interface ReplayOptions {
   keyframeInterval?: number;
   /** Reuse a context already built for the same bundle and settings. */
   context?: ReplayContext;
+  /**
+   * Called once before step 0 with the state and workspace, e.g. to move the particle arrays
+   * into shared memory and set `workspace.particleStages` for a split across threads.
+   */
+  adopt?: (state: ParticleState, workspace: StepWorkspace, context: ReplayContext) => void;
 }
 
 export interface ReplayMetrics {
@@ -98,6 +103,7 @@ export function runReplay(
   const keyframeInterval = options.keyframeInterval ?? DEFAULT_KEYFRAME_INTERVAL;
   const state = createInitialState(context);
   const workspace = createStepWorkspace(context);
+  options.adopt?.(state, workspace, context);
   const series = createReplaySeries(steps);
   const keyframes: Keyframe[] = [];
   for (let step = 0; step < steps; step++) {

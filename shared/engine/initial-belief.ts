@@ -3,8 +3,10 @@
  * (independent x, y, theta with sigma_xy, sigma_xy, sigma_theta) or uniform over free cells.
  * Draws are keyed (seed, initialBelief, step 0, particle).
  */
+
 import type { InitialBelief } from '../bundle/types';
 import { type FreeSpace, placeUniformPose } from './free-space';
+import { log } from './numerics';
 import { fillNormals, fillUniforms, type RandomScratch, RNG_PURPOSE } from './random';
 import { wrapAngle } from './stats';
 
@@ -21,7 +23,7 @@ export function initializeParticles(
   scratch: RandomScratch,
 ): void {
   const values = scratch.values;
-  const uniformLogWeight = -Math.log(n);
+  const uniformLogWeight = -log(n);
   for (let i = 0; i < n; i++) {
     if (initial.mode === 'pose') {
       fillNormals(seed, RNG_PURPOSE.initialBelief, 0, i, 0, scratch);

@@ -5,14 +5,17 @@
  *   p(z) = (1 - clutter) * max_l [ N(r; r_l, sigma_r) N(b; b_l, sigma_b) P(reported | class_l) ]
  *        + clutter / (max_range * 2 pi * classes)
  * where the second term is the uniform density over range [0, max_range], bearing (-pi, pi] and classes.
+ *
+ * Association is exact yet cheap: a landmark whose range or bearing residual exceeds `gateSigmas`
+ * sigmas has a term so small that (1 - clutter) term + clutter density rounds to the clutter
+ * density itself (see `associationGateSigmas`), so skipping it cannot change a single bit of the
+ * result. The spatial index (landmark-index.ts) applies those gates to the whole particle cloud
+ * before the particle loop; tests compare the result with a search over every landmark.
  */
 import type { DetectorConfig, Landmark } from '../bundle/types';
-
-/**
- * Range residuals beyond this many sigmas are skipped: their Gaussian factor is below e^-32, far
- * under the clutter floor, so skipping changes nothing measurable and saves an atan2 per landmark.
- */
-export const RANGE_GATE_SIGMAS = 8;
+import { buildLandmarkIndex, type LandmarkIndex } from './landmark-index';
+import { atan, atan2, cos, exp, log, sin } from './numerics';
+import { POW2, POW2_OFFSET } from './numerics/powers-of-two';
 
 /** Landmarks and detector settings in struct-of-arrays form for the per-particle loop. */
 export interface LandmarkModel {
@@ -24,14 +27,56 @@ export interface LandmarkModel {
   classCount: number;
   /** Row-major confusion, confusion[true * classCount + reported]. */
   confusion: Float64Array;
+  /** Per reported class, the true classes with non-zero confusion to it. */
+  sourceClasses: Int32Array[];
   rangeSigma: number;
   bearingSigma: number;
+  inverseRangeSigma: number;
+  inverseBearingSigma: number;
   maxRange: number;
   clutter: number;
   /** Uniform clutter density (1 / (m rad)) per class. */
   clutterDensity: number;
   /** 1 / (2 pi sigma_r sigma_b) */
   gaussianNormaliser: number;
+  /** Residuals beyond this many sigmas cannot change a result (see associationGateSigmas). */
+  gateSigmas: number;
+  /** tan(gateSigmas sigma_b) with slack when that angle is below pi/2, else Infinity (no bearing prefilter). */
+  bearingGateTangent: number;
+  /** Detections per flush of the per-particle product of likelihoods into a log (no under- or overflow). */
+  detectionsPerLog: number;
+  index: LandmarkIndex;
+}
+
+/** Slack on the bearing prefilter's tangent, far above the rounding of the dot and cross products. */
+const TANGENT_SLACK = 1e-9;
+
+/** Half the spacing of doubles just above `value` (a positive normal double). */
+function halfUlpAbove(value: number): number {
+  let e = -1022;
+  while (e < 1023 && POW2[POW2_OFFSET + e + 1] <= value) e++;
+  return POW2[POW2_OFFSET + e - 52 - 1] ?? Number.MIN_VALUE;
+}
+
+/**
+ * Residual gate G (in sigmas) from the detector: a term N exp(-G^2 / 2) P with P <= max confusion,
+ * times (1 - clutter), stays below half an ulp of the clutter term (below half the smallest
+ * subnormal without clutter), so adding it to the clutter term rounds back to the clutter term;
+ * one extra unit in the exponent (a factor e) absorbs the rounding of the residuals themselves.
+ * Without clutter, below a quarter of the smallest subnormal (log taken directly: it is not a double).
+ */
+export function associationGateSigmas(
+  gaussianNormaliser: number,
+  clutter: number,
+  clutterDensity: number,
+  maxConfusion: number,
+): number {
+  const clutterTerm = clutter * clutterDensity;
+  const largest = (1 - clutter) * gaussianNormaliser * maxConfusion;
+  if (!(largest > 0)) return 0;
+  const logNegligible = clutterTerm > 0 ? log(halfUlpAbove(clutterTerm)) : log(Number.MIN_VALUE) - log(4);
+  const logRatio = log(largest) - logNegligible;
+  return logRatio > 0 ? Math.sqrt(2 * (logRatio + 1)) : 0;
 }
 
 export function buildLandmarkModel(landmarks: readonly Landmark[], detector: DetectorConfig): LandmarkModel {
@@ -46,8 +91,33 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
     classIndex[l] = detector.classes.indexOf(landmarks[l].class);
   }
   const confusion = new Float64Array(classCount * classCount);
+  let maxConfusion = 0;
   for (let i = 0; i < classCount; i++)
-    for (let j = 0; j < classCount; j++) confusion[i * classCount + j] = detector.confusion[i][j];
+    for (let j = 0; j < classCount; j++) {
+      confusion[i * classCount + j] = detector.confusion[i][j];
+      maxConfusion = Math.max(maxConfusion, detector.confusion[i][j]);
+    }
+  const sourceClasses = Array.from({ length: classCount }, (_, reported) =>
+    Int32Array.from(
+      Array.from({ length: classCount }, (_, t) => t).filter((t) => confusion[t * classCount + reported] > 0),
+    ),
+  );
+  const clutterDensity = 1 / (detector.max_range * 2 * Math.PI * classCount);
+  const gaussianNormaliser = 1 / (2 * Math.PI * detector.range_sigma * detector.bearing_sigma);
+  const gateSigmas = associationGateSigmas(
+    gaussianNormaliser,
+    detector.clutter,
+    clutterDensity,
+    maxConfusion,
+  );
+  const bearingGate = gateSigmas * detector.bearing_sigma;
+  const clutterTerm = detector.clutter * clutterDensity;
+  const largestFactor = (1 - detector.clutter) * gaussianNormaliser * maxConfusion + clutterTerm;
+  const widestLog = Math.max(
+    1,
+    clutterTerm > 0 ? -log(clutterTerm) : 0,
+    largestFactor > 0 ? log(largestFactor) : 0,
+  );
   return {
     count,
     x,
@@ -55,183 +125,80 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
     classIndex,
     classCount,
     confusion,
+    sourceClasses,
     rangeSigma: detector.range_sigma,
     bearingSigma: detector.bearing_sigma,
+    inverseRangeSigma: 1 / detector.range_sigma,
+    inverseBearingSigma: 1 / detector.bearing_sigma,
     maxRange: detector.max_range,
     clutter: detector.clutter,
-    clutterDensity: 1 / (detector.max_range * 2 * Math.PI * classCount),
-    gaussianNormaliser: 1 / (2 * Math.PI * detector.range_sigma * detector.bearing_sigma),
+    clutterDensity,
+    gaussianNormaliser,
+    gateSigmas,
+    bearingGateTangent:
+      bearingGate < 1.5
+        ? (sin(bearingGate) / cos(bearingGate)) * (1 + TANGENT_SLACK)
+        : Number.POSITIVE_INFINITY,
+    // A product of this many factors stays within about e^+-690, inside the double range.
+    detectionsPerLog: clutterTerm > 0 ? Math.max(1, Math.floor(690 / widestLog)) : 1,
+    index: buildLandmarkIndex(x, y, classIndex, classCount, detector.max_range),
   };
 }
 
+/** Bearing residual (rad, in [-pi, pi]) from the cross and dot products of landmark direction and detection direction. */
+function bearingResidual(cross: number, dot: number): number {
+  return dot > 0 ? atan(cross / dot) : atan2(cross, dot);
+}
+
 /**
- * Best association term max_l N(r) N(b) P(reported | class_l) for a robot at (poseX, poseY,
- * poseTheta) over the landmarks candidates[0..candidateCount). A landmark is considered when its
- * distance d satisfies d <= max_range and |r - d| <= RANGE_GATE_SIGMAS sigma_r, tested on d^2
- * against [lowerSquared, upperSquared].
+ * The association term N(r; r_l) N(b; b_l) P(reported | class_l) from the range residual (m) and
+ * the cross and dot products of the landmark direction with the detection's map-frame direction.
  */
-function bestAssociation(
+export function termFromResiduals(
   model: LandmarkModel,
-  candidates: Int32Array,
-  candidateCount: number,
-  poseX: number,
-  poseY: number,
-  poseTheta: number,
+  trueClass: number,
   reportedClass: number,
-  range: number,
-  bearing: number,
-  lowerSquared: number,
-  upperSquared: number,
+  rangeResidual: number,
+  cross: number,
+  dot: number,
 ): number {
-  const inverseRangeVariance = 1 / (model.rangeSigma * model.rangeSigma);
-  const inverseBearingVariance = 1 / (model.bearingSigma * model.bearingSigma);
-  let best = 0;
-  for (let c = 0; c < candidateCount; c++) {
-    const l = candidates[c];
-    const dx = model.x[l] - poseX;
-    const dy = model.y[l] - poseY;
-    const distanceSquared = dx * dx + dy * dy;
-    if (distanceSquared > upperSquared || distanceSquared < lowerSquared) continue;
-    const trueClass = model.classIndex[l];
-    const rangeResidual = range - Math.sqrt(distanceSquared);
-    let bearingResidual = bearing - (Math.atan2(dy, dx) - poseTheta);
-    if (bearingResidual > Math.PI || bearingResidual <= -Math.PI) {
-      bearingResidual -= 2 * Math.PI * Math.round(bearingResidual / (2 * Math.PI));
-    }
-    const exponent =
-      -0.5 *
-      (rangeResidual * rangeResidual * inverseRangeVariance +
-        bearingResidual * bearingResidual * inverseBearingVariance);
-    const p =
-      model.gaussianNormaliser *
-      Math.exp(exponent) *
-      model.confusion[trueClass * model.classCount + reportedClass];
-    if (p > best) best = p;
-  }
-  return best;
-}
-
-/** Squared distance window [lower, upper] (m^2) passed by the range gate and max_range. */
-function gateWindow(model: LandmarkModel, range: number): [number, number] {
-  const gate = RANGE_GATE_SIGMAS * model.rangeSigma;
-  const lower = Math.max(0, range - gate);
-  const upper = Math.min(model.maxRange, range + gate);
-  return [lower * lower, upper * upper];
-}
-
-/**
- * Writes to `candidates` the landmarks of known class whose squared distance to some point of the
- * box [minX, maxX] x [minY, maxY] (m) can fall in [lowerSquared, upperSquared], and returns how
- * many. The box bounds use the same subtractions and squares as the per-particle gate, and rounded
- * arithmetic is monotone, so every landmark a particle in the box would pass is kept: filtering
- * changes no result, it only spares the per-particle loop the landmarks no particle can see.
- */
-function gateCandidates(
-  model: LandmarkModel,
-  minX: number,
-  maxX: number,
-  minY: number,
-  maxY: number,
-  lowerSquared: number,
-  upperSquared: number,
-  candidates: Int32Array,
-): number {
-  let count = 0;
-  for (let l = 0; l < model.count; l++) {
-    if (model.classIndex[l] < 0) continue;
-    const lx = model.x[l];
-    const ly = model.y[l];
-    const nearX = lx < minX ? lx - minX : lx > maxX ? lx - maxX : 0;
-    const nearY = ly < minY ? ly - minY : ly > maxY ? ly - maxY : 0;
-    const farX = Math.max(Math.abs(lx - minX), Math.abs(lx - maxX));
-    const farY = Math.max(Math.abs(ly - minY), Math.abs(ly - maxY));
-    if (nearX * nearX + nearY * nearY > upperSquared) continue;
-    if (farX * farX + farY * farY < lowerSquared) continue;
-    candidates[count++] = l;
-  }
-  return count;
-}
-
-/**
- * Likelihood (density, 1 / (m rad) per class) of one detection (reported class index, range m,
- * bearing rad in the robot frame) for a robot at pose (x, y, theta), map frame.
- */
-export function detectionLikelihood(
-  model: LandmarkModel,
-  poseX: number,
-  poseY: number,
-  poseTheta: number,
-  reportedClass: number,
-  range: number,
-  bearing: number,
-): number {
-  const [lower, upper] = gateWindow(model, range);
-  const candidates = new Int32Array(model.count);
-  const count = gateCandidates(model, poseX, poseX, poseY, poseY, lower, upper, candidates);
-  const best = bestAssociation(
-    model,
-    candidates,
-    count,
-    poseX,
-    poseY,
-    poseTheta,
-    reportedClass,
-    range,
-    bearing,
-    lower,
-    upper,
+  const r = rangeResidual * model.inverseRangeSigma;
+  const b = bearingResidual(cross, dot) * model.inverseBearingSigma;
+  return (
+    model.gaussianNormaliser *
+    exp(-0.5 * (r * r + b * b)) *
+    model.confusion[trueClass * model.classCount + reportedClass]
   );
-  return (1 - model.clutter) * best + model.clutter * model.clutterDensity;
 }
 
 /**
- * Adds log p(detection | particle pose) to out[i] for particles [from, to). Landmarks are first
- * narrowed to those within the gate of the particles' bounding box (see gateCandidates).
+ * The association term of landmark l for a robot at (px, py) whose detection points along the
+ * map-frame unit vector (ux, uy); 0 beyond max_range or for a class unknown to the detector.
+ * The gated, indexed loop computes the same expression for every landmark it keeps.
  */
-export function accumulateDetectionLogLikelihood(
+export function associationTerm(
   model: LandmarkModel,
-  x: Float64Array,
-  y: Float64Array,
-  theta: Float64Array,
-  from: number,
-  to: number,
-  reportedClass: number,
+  l: number,
+  px: number,
+  py: number,
+  ux: number,
+  uy: number,
   range: number,
-  bearing: number,
-  out: Float64Array,
-): void {
-  if (to <= from) return;
-  const [lower, upper] = gateWindow(model, range);
-  let minX = x[from];
-  let maxX = minX;
-  let minY = y[from];
-  let maxY = minY;
-  for (let i = from + 1; i < to; i++) {
-    const px = x[i];
-    const py = y[i];
-    if (px < minX) minX = px;
-    if (px > maxX) maxX = px;
-    if (py < minY) minY = py;
-    if (py > maxY) maxY = py;
-  }
-  const candidates = new Int32Array(model.count);
-  const count = gateCandidates(model, minX, maxX, minY, maxY, lower, upper, candidates);
-  const hitWeight = 1 - model.clutter;
-  const clutterTerm = model.clutter * model.clutterDensity;
-  for (let i = from; i < to; i++) {
-    const best = bestAssociation(
-      model,
-      candidates,
-      count,
-      x[i],
-      y[i],
-      theta[i],
-      reportedClass,
-      range,
-      bearing,
-      lower,
-      upper,
-    );
-    out[i] += Math.log(hitWeight * best + clutterTerm);
-  }
+  reportedClass: number,
+): number {
+  const trueClass = model.classIndex[l];
+  if (trueClass < 0) return 0;
+  const dx = model.x[l] - px;
+  const dy = model.y[l] - py;
+  const distanceSquared = dx * dx + dy * dy;
+  if (distanceSquared > model.maxRange * model.maxRange) return 0;
+  const rangeResidual = range - Math.sqrt(distanceSquared);
+  return termFromResiduals(
+    model,
+    trueClass,
+    reportedClass,
+    rangeResidual,
+    dx * uy - dy * ux,
+    dx * ux + dy * uy,
+  );
 }

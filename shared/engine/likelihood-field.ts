@@ -8,9 +8,11 @@
  * x in [origin_x + c res, +res), y in [origin_y + r res, +res)), so a map-frame point maps to a
  * cell with two multiplications. The bundle's own grid has row 0 northmost; conversion happens here.
  */
+
 import type { OccupancyGrid, ScanConfig, ScanModelConfig } from '../bundle/types';
 import { CELL_OCCUPIED } from '../bundle/types';
 import { FAR, squaredDistanceTransform } from './distance-transform';
+import { cos, log, sin } from './numerics';
 import { normalDensity } from './stats';
 
 export interface LikelihoodField {
@@ -73,7 +75,7 @@ export function buildLikelihoodField(
   const randomTerm = model.z_rand / rangeMax;
   // Rounded to Float32 like every table cell, so an endpoint off the map adds the same value
   // whether it is read from the padded border or substituted by a bounds check.
-  const floorLogLikelihood = Math.fround(Math.log(randomTerm));
+  const floorLogLikelihood = Math.fround(log(randomTerm));
   const logLikelihood = new Float32Array(width * height);
   const distance = new Float32Array(width * height);
   for (let row = 0; row < height; row++) {
@@ -87,7 +89,7 @@ export function buildLikelihoodField(
       logLikelihood[index] =
         isUnknown || d === Number.POSITIVE_INFINITY
           ? floorLogLikelihood
-          : Math.log(model.z_hit * normalDensity(d, 0, model.sigma_hit) + randomTerm);
+          : log(model.z_hit * normalDensity(d, 0, model.sigma_hit) + randomTerm);
     }
   }
   return {
@@ -129,14 +131,14 @@ export interface BeamGeometry {
 
 export function buildBeamGeometry(scan: ScanConfig, beamsUsed: number): BeamGeometry {
   const indices = selectEvenlySpacedBeams(scan.beams, beamsUsed);
-  const cos = new Float64Array(indices.length);
-  const sin = new Float64Array(indices.length);
+  const cosines = new Float64Array(indices.length);
+  const sines = new Float64Array(indices.length);
   for (let k = 0; k < indices.length; k++) {
     const angle = scan.mount[2] + scan.angle_min + indices[k] * scan.angle_increment;
-    cos[k] = Math.cos(angle);
-    sin[k] = Math.sin(angle);
+    cosines[k] = cos(angle);
+    sines[k] = sin(angle);
   }
-  return { indices, cos, sin };
+  return { indices, cos: cosines, sin: sines };
 }
 
 /**

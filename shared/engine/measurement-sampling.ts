@@ -5,15 +5,17 @@
  * robots"). An association is picked from the step's table (recovery-proposal.ts), range and
  * bearing noise are drawn from the detector's sigmas, and the pose is solved from the landmarks.
  */
+
 import { CELL_FREE, type DetectionTable, type OccupancyGrid } from '../bundle/types';
 import type { FreeSpace } from './free-space';
 import type { LandmarkModel } from './landmark-model';
+import { atan2, cos, sin } from './numerics';
 import type { MeasurementProposal } from './recovery-proposal';
 import { wrapAngle } from './stats';
 
 /** Robot-frame point (m) of a detection at `range` (m) and `bearing` (rad). */
 export function detectionPoint(range: number, bearing: number): [number, number] {
-  return [range * Math.cos(bearing), range * Math.sin(bearing)];
+  return [range * cos(bearing), range * sin(bearing)];
 }
 
 /** Index of the first entry whose cumulative weight exceeds u (binary search). */
@@ -41,8 +43,8 @@ export function placeFromSingleDetection(
   towardLandmark: number,
   out: Float64Array,
 ): void {
-  out[0] = model.x[a] - range * Math.cos(towardLandmark);
-  out[1] = model.y[a] - range * Math.sin(towardLandmark);
+  out[0] = model.x[a] - range * cos(towardLandmark);
+  out[1] = model.y[a] - range * sin(towardLandmark);
   out[2] = wrapAngle(towardLandmark - bearing);
 }
 
@@ -64,12 +66,12 @@ export function placeFromDetectionPair(
   const [xi, yi] = detectionPoint(rangeI, bearingI);
   const [xj, yj] = detectionPoint(rangeJ, bearingJ);
   const heading = wrapAngle(
-    Math.atan2(model.y[b] - model.y[a], model.x[b] - model.x[a]) - Math.atan2(yj - yi, xj - xi),
+    atan2(model.y[b] - model.y[a], model.x[b] - model.x[a]) - atan2(yj - yi, xj - xi),
   );
-  const cos = Math.cos(heading);
-  const sin = Math.sin(heading);
-  out[0] = model.x[a] - (cos * xi - sin * yi);
-  out[1] = model.y[a] - (sin * xi + cos * yi);
+  const c = cos(heading);
+  const s = sin(heading);
+  out[0] = model.x[a] - (c * xi - s * yi);
+  out[1] = model.y[a] - (s * xi + c * yi);
   out[2] = heading;
 }
 

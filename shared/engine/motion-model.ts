@@ -5,16 +5,11 @@
  *   var(trans) = a3 trans^2 + a4 (rot1^2 + rot2^2)
  *   var(rot2)  = a1 rot2^2 + a2 trans^2
  */
-import {
-  philox4x32Pair,
-  type RandomScratch,
-  RNG_PURPOSE,
-  seedKeyHigh,
-  seedKeyLow,
-  uniformFromWord,
-} from './random';
+
+import { atan2, sinCos } from './numerics';
+import { philox4x32Pair, type RandomScratch, RNG_PURPOSE, seedKeyHigh, seedKeyLow } from './random';
 import { wrapAngle } from './stats';
-import { cosSinOfWordTurn } from './turn-trig';
+import { zigguratNormal } from './ziggurat';
 
 /** Below this translation (m) the heading of travel is meaningless, so rot1 is set to 0 (common practice). */
 export const MIN_TRANSLATION_FOR_ROT1 = 1e-3;
@@ -42,7 +37,7 @@ export function decomposeOdometry(
   const dx = x1 - x0;
   const dy = y1 - y0;
   let trans = Math.sqrt(dx * dx + dy * dy);
-  let rot1 = trans < MIN_TRANSLATION_FOR_ROT1 ? 0 : wrapAngle(Math.atan2(dy, dx) - theta0);
+  let rot1 = trans < MIN_TRANSLATION_FOR_ROT1 ? 0 : wrapAngle(atan2(dy, dx) - theta0);
   if (Math.abs(rot1) > Math.PI / 2) {
     rot1 = wrapAngle(rot1 - Math.PI);
     trans = -trans;
@@ -67,9 +62,8 @@ export function odometryNoiseSigmas(
 
 /**
  * Moves particle i by the increment perturbed with three standard normals from one Philox block
- * (words[offset..offset+3]): Box–Muller (Box & Muller 1958) on the pairs (w0, w1) and (w2, w3),
- * giving z0 = r_a cos, z1 = r_a sin, z2 = r_b cos (the fourth normal is not needed), with the
- * angle's cos/sin from the table in turn-trig.ts. `trig` is two numbers of scratch.
+ * (words[offset..offset+3]): ziggurat deviates (ziggurat.ts) with values from words 0, 1, 2 and
+ * layers from the low three bytes of word 3. Writes the new heading's sin and cos when asked.
  */
 function moveParticle(
   x: Float64Array,
@@ -80,27 +74,44 @@ function moveParticle(
   offset: number,
   increment: OdometryIncrement,
   sigmas: readonly [number, number, number],
+  noise: MotionNoiseCounters,
   trig: Float64Array,
   cosTheta: Float64Array | undefined,
   sinTheta: Float64Array | undefined,
 ): void {
-  const radiusA = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset])));
-  const radiusB = Math.sqrt(-2 * Math.log(uniformFromWord(words[offset + 2])));
-  cosSinOfWordTurn(words[offset + 1], trig);
-  const noisyRot1 = increment.rot1 - sigmas[0] * (radiusA * trig[0]);
-  const noisyTrans = increment.trans - sigmas[1] * (radiusA * trig[1]);
-  cosSinOfWordTurn(words[offset + 3], trig);
-  const noisyRot2 = increment.rot2 - sigmas[2] * (radiusB * trig[0]);
+  const w0 = words[offset];
+  const w1 = words[offset + 1];
+  const w2 = words[offset + 2];
+  const layers = words[offset + 3];
+  const { step, purpose, keyLow, keyHigh, words: spare } = noise;
+  const n0 = zigguratNormal(w0, layers & 0xff, 0, i, step, purpose, keyLow, keyHigh, spare);
+  const n1 = zigguratNormal(w1, (layers >>> 8) & 0xff, 1, i, step, purpose, keyLow, keyHigh, spare);
+  const n2 = zigguratNormal(w2, (layers >>> 16) & 0xff, 2, i, step, purpose, keyLow, keyHigh, spare);
+  const noisyRot1 = increment.rot1 - sigmas[0] * n0;
+  const noisyTrans = increment.trans - sigmas[1] * n1;
+  const noisyRot2 = increment.rot2 - sigmas[2] * n2;
   const heading = theta[i] + noisyRot1;
-  x[i] += noisyTrans * Math.cos(heading);
-  y[i] += noisyTrans * Math.sin(heading);
+  sinCos(heading, trig);
+  x[i] += noisyTrans * trig[1];
+  y[i] += noisyTrans * trig[0];
   const next = heading + noisyRot2;
   const wrapped = next > Math.PI || next <= -Math.PI ? wrapAngle(next) : next;
   theta[i] = wrapped;
   if (cosTheta && sinTheta) {
-    cosTheta[i] = Math.cos(wrapped);
-    sinTheta[i] = Math.sin(wrapped);
+    sinCos(wrapped, trig);
+    cosTheta[i] = trig[1];
+    sinTheta[i] = trig[0];
   }
+}
+
+/** Counters and scratch the ziggurat's slow path needs to draw further blocks. */
+interface MotionNoiseCounters {
+  step: number;
+  purpose: number;
+  keyLow: number;
+  keyHigh: number;
+  /** Separate from the motion loop's words, which the slow path must not overwrite. */
+  words: Uint32Array;
 }
 
 /**
@@ -129,9 +140,11 @@ export function sampleOdometryMotion(
   const keyLow = seedKeyLow(seed);
   const keyHigh = seedKeyHigh(seed);
   const purpose = RNG_PURPOSE.motion;
+  const noise: MotionNoiseCounters = { step, purpose, keyLow, keyHigh, words: scratch.fallbackWords };
   for (let i = from; i < to; i += 2) {
     philox4x32Pair(0, i, i + 1, step, purpose, keyLow, keyHigh, words);
-    moveParticle(x, y, theta, i, words, 0, increment, sigmas, values, cosTheta, sinTheta);
-    if (i + 1 < to) moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas, values, cosTheta, sinTheta);
+    moveParticle(x, y, theta, i, words, 0, increment, sigmas, noise, values, cosTheta, sinTheta);
+    if (i + 1 < to)
+      moveParticle(x, y, theta, i + 1, words, 4, increment, sigmas, noise, values, cosTheta, sinTheta);
   }
 }

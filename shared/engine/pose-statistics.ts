@@ -2,6 +2,7 @@
  * Weighted statistics of a particle set: mean pose (circular mean for the heading), covariance,
  * effective sample size and weight entropy. Map frame; m, rad.
  */
+import { atan2 } from './numerics';
 import { wrapAngle } from './stats';
 
 /** Summary of a weighted particle set (normalised weights). */
@@ -57,7 +58,7 @@ export function summarizeWeightedPoses(
     sumSquares += w * w;
     if (w > 0) entropy -= w * logWeight[i];
   }
-  const meanTheta = Math.atan2(sumSin, sumCos);
+  const meanTheta = atan2(sumSin, sumCos);
   let covXX = 0;
   let covXY = 0;
   let covYY = 0;
@@ -107,5 +108,5 @@ export function weightedMeanPose(
   }
   out[0] = meanX;
   out[1] = meanY;
-  out[2] = Math.atan2(sumSin, sumCos);
+  out[2] = atan2(sumSin, sumCos);
 }

@@ -13,6 +13,7 @@
  * Each call yields four 32-bit words. Uniforms have 32-bit resolution: u = (word + 0.5) / 2^32,
  * which lies strictly inside (0, 1) so logarithms in Box–Muller are always finite.
  */
+import { cos, log, sin } from './numerics';
 
 /** Purposes keep the streams of different engine stages apart (fourth counter word). */
 export const RNG_PURPOSE = {
@@ -132,10 +133,12 @@ export interface RandomScratch {
   words: Uint32Array;
   /** Last four uniforms or normals produced. */
   values: Float64Array;
+  /** Blocks drawn by the ziggurat's slow path (ziggurat.ts) while `words` holds the caller's block. */
+  fallbackWords: Uint32Array;
 }
 
 export function createRandomScratch(): RandomScratch {
-  return { words: new Uint32Array(8), values: new Float64Array(4) };
+  return { words: new Uint32Array(8), values: new Float64Array(4), fallbackWords: new Uint32Array(4) };
 }
 
 /** Uniform in (0, 1) with 32-bit resolution from one unsigned output word: (word + 0.5) / 2^32. */
@@ -188,12 +191,12 @@ export function fillNormals(
 ): void {
   fillUniforms(seed, purpose, step, particle, draw, scratch);
   const values = scratch.values;
-  const radiusA = Math.sqrt(-2 * Math.log(values[0]));
+  const radiusA = Math.sqrt(-2 * log(values[0]));
   const angleA = TWO_PI * values[1];
-  const radiusB = Math.sqrt(-2 * Math.log(values[2]));
+  const radiusB = Math.sqrt(-2 * log(values[2]));
   const angleB = TWO_PI * values[3];
-  values[0] = radiusA * Math.cos(angleA);
-  values[1] = radiusA * Math.sin(angleA);
-  values[2] = radiusB * Math.cos(angleB);
-  values[3] = radiusB * Math.sin(angleB);
+  values[0] = radiusA * cos(angleA);
+  values[1] = radiusA * sin(angleA);
+  values[2] = radiusB * cos(angleB);
+  values[3] = radiusB * sin(angleB);
 }

@@ -17,9 +17,11 @@
  * instead of a density tree. Entries are multiplied by it, and single-detection
  * angles are drawn around the point of the circle nearest the mean.
  */
+
 import type { DetectionTable } from '../bundle/types';
 import type { LandmarkModel } from './landmark-model';
 import { detectionPoint, placeFromDetectionPair } from './measurement-sampling';
+import { atan2, exp, hypot } from './numerics';
 import { wrapAngle } from './stats';
 
 /** Pair entries lighter than this fraction of the heaviest are dropped (inconsistent geometry). */
@@ -72,7 +74,7 @@ function confusionWeight(model: LandmarkModel, landmark: number, reportedClass: 
 }
 
 function gaussianFactor(distance: number, sigma: number): number {
-  return Math.exp((-0.5 * distance * distance) / (sigma * sigma));
+  return exp((-0.5 * distance * distance) / (sigma * sigma));
 }
 
 /**
@@ -107,10 +109,11 @@ function pairEntries(
     for (let j = i + 1; j < to; j++) {
       const [xi, yi] = detectionPoint(range[i], bearing[i]);
       const [xj, yj] = detectionPoint(range[j], bearing[j]);
-      const separation = Math.hypot(xj - xi, yj - yi);
+      const separation = hypot(xj - xi, yj - yi);
       // First-order spread of |p_i - p_j| from both detections' range and bearing noise (an upper bound).
       const spread = Math.sqrt(
-        2 * model.rangeSigma ** 2 + (range[i] ** 2 + range[j] ** 2) * model.bearingSigma ** 2,
+        2 * model.rangeSigma * model.rangeSigma +
+          (range[i] * range[i] + range[j] * range[j]) * model.bearingSigma * model.bearingSigma,
       );
       for (let a = 0; a < model.count; a++) {
         const weightA = confusionWeight(model, a, classIndex[i]);
@@ -118,13 +121,13 @@ function pairEntries(
         for (let b = 0; b < model.count; b++) {
           const weightB = b === a ? 0 : confusionWeight(model, b, classIndex[j]);
           if (weightB === 0) continue;
-          const residual = Math.hypot(model.x[b] - model.x[a], model.y[b] - model.y[a]) - separation;
+          const residual = hypot(model.x[b] - model.x[a], model.y[b] - model.y[a]) - separation;
           if (Math.abs(residual) > PAIR_GATE * spread) continue;
           let weight = weightA * weightB * gaussianFactor(residual, spread);
           if (prior) {
             placeFromDetectionPair(model, a, b, range[i], bearing[i], range[j], bearing[j], pose);
             weight *=
-              gaussianFactor(Math.hypot(pose[0] - prior.x, pose[1] - prior.y), prior.sigma) *
+              gaussianFactor(hypot(pose[0] - prior.x, pose[1] - prior.y), prior.sigma) *
               gaussianFactor(wrapAngle(pose[2] - prior.theta), prior.headingSigma);
           }
           entries.push({ i, j, a, b, weight, nearestAngle: 0, angleSigma: 0 });
@@ -154,8 +157,8 @@ function singleEntries(
       let angleSigma = 0;
       if (prior) {
         // The circle point nearest the mean lies on the line from L_a through the mean.
-        const toMean = Math.hypot(prior.x - model.x[a], prior.y - model.y[a]);
-        nearestAngle = Math.atan2(model.y[a] - prior.y, model.x[a] - prior.x);
+        const toMean = hypot(prior.x - model.x[a], prior.y - model.y[a]);
+        nearestAngle = atan2(model.y[a] - prior.y, model.x[a] - prior.x);
         angleSigma = prior.sigma / Math.max(range, model.rangeSigma);
         const heading = wrapAngle(nearestAngle - detections.bearing[i]);
         weight *=

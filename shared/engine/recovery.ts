@@ -17,10 +17,12 @@
  * (w_fast well under the healthy level) got no injection at all, and the first push did only once
  * the short average fell under the still-low long one.
  */
+
 import type { DetectionTable, OccupancyGrid } from '../bundle/types';
 import { type FreeSpace, placeUniformPose } from './free-space';
 import type { LandmarkModel } from './landmark-model';
 import { drawProposalPose, isFreePosition } from './measurement-sampling';
+import { exp, log, log1p } from './numerics';
 import type { ParticleState } from './particle-state';
 import type { WeightedPoseSummary } from './pose-statistics';
 import { fillNormals, fillUniforms, type RandomScratch, RNG_PURPOSE } from './random';
@@ -47,17 +49,17 @@ export const PROPOSAL_ATTEMPTS = 8;
 /** log((1 - alpha) exp(logAverage) + alpha exp(logValue)); the first value seeds the average. */
 export function updateLogAverage(logAverage: number, logValue: number, alpha: number): number {
   if (logAverage === Number.NEGATIVE_INFINITY) return logValue;
-  const a = Math.log1p(-alpha) + logAverage;
-  const b = Math.log(alpha) + logValue;
+  const a = log1p(-alpha) + logAverage;
+  const b = log(alpha) + logValue;
   const max = Math.max(a, b);
   if (max === Number.NEGATIVE_INFINITY) return max;
-  return max + Math.log(Math.exp(a - max) + Math.exp(b - max));
+  return max + log(exp(a - max) + exp(b - max));
 }
 
 /** Table 8.3, line 13: max(0, 1 - w_fast / w_slow), from the log averages. */
 export function injectionProbability(logSlow: number, logFast: number): number {
   if (logSlow === Number.NEGATIVE_INFINITY) return 0;
-  return Math.max(0, 1 - Math.exp(logFast - logSlow));
+  return Math.max(0, 1 - exp(logFast - logSlow));
 }
 
 /** A step's detections as a proposal for injected poses. */
@@ -148,8 +150,8 @@ export function buildInjectionProposal(
     x: pose.x,
     y: pose.y,
     theta: pose.theta,
-    sigma: Math.sqrt(BELIEF_SPREAD ** 2 + 0.5 * (pose.covXX + pose.covYY)),
-    headingSigma: Math.sqrt(BELIEF_HEADING_SPREAD ** 2 + pose.covTT),
+    sigma: Math.sqrt(BELIEF_SPREAD * BELIEF_SPREAD + 0.5 * (pose.covXX + pose.covYY)),
+    headingSigma: Math.sqrt(BELIEF_HEADING_SPREAD * BELIEF_HEADING_SPREAD + pose.covTT),
   };
   const from = timeline.detectionStart[step];
   const table = buildMeasurementProposal(

@@ -2,8 +2,10 @@
  * Scan endpoints at the replay's weighted-mean pose, and the map-disagreement count: how often
  * those endpoints land on cells the map says are free and far from any obstacle.
  */
+
 import { CELL_FREE } from '../bundle/types';
 import { robotFrameEndpoints } from './likelihood-field';
+import { cos, sin } from './numerics';
 import type { ReplayContext } from './replay-context';
 import type { ReplaySeries } from './replay-series';
 
@@ -23,8 +25,8 @@ export function scanEndpointsAt(context: ReplayContext, series: ReplaySeries, st
   const endX = new Float64Array(beams.indices.length);
   const endY = new Float64Array(beams.indices.length);
   const out = new Float64Array(2 * beams.indices.length * (last - first));
-  const c = Math.cos(series.theta[step]);
-  const s = Math.sin(series.theta[step]);
+  const c = cos(series.theta[step]);
+  const s = sin(series.theta[step]);
   let written = 0;
   for (let scanIndex = first; scanIndex < last; scanIndex++) {
     const count = robotFrameEndpoints(bundle.scans.ranges, scanIndex, scan, beams, endX, endY);

@@ -2,8 +2,9 @@
  * Small numeric helpers shared by the models and the diagnostics. Pure functions on numbers and
  * typed arrays; angles in radians.
  */
+import { exp, log } from './numerics';
 
-const LOG_SQRT_TWO_PI = 0.5 * Math.log(2 * Math.PI);
+const LOG_SQRT_TWO_PI = 0.5 * log(2 * Math.PI);
 const TWO_PI = 2 * Math.PI;
 
 /** Wraps an angle (rad) to (-pi, pi]. */
@@ -17,12 +18,12 @@ export function wrapAngle(angle: number): number {
 /** log of the normal density N(x; mean, sigma), sigma > 0 (same unit as x). */
 export function normalLogDensity(x: number, mean: number, sigma: number): number {
   const z = (x - mean) / sigma;
-  return -0.5 * z * z - Math.log(sigma) - LOG_SQRT_TWO_PI;
+  return -0.5 * z * z - log(sigma) - LOG_SQRT_TWO_PI;
 }
 
 /** Normal density N(x; mean, sigma). */
 export function normalDensity(x: number, mean: number, sigma: number): number {
-  return Math.exp(normalLogDensity(x, mean, sigma));
+  return exp(normalLogDensity(x, mean, sigma));
 }
 
 /** log(sum(exp(values[0..count)))) computed stably; -Infinity for an empty or all -Infinity input. */
@@ -31,8 +32,8 @@ export function logSumExp(values: Float64Array, count: number = values.length): 
   for (let i = 0; i < count; i++) if (values[i] > max) max = values[i];
   if (max === Number.NEGATIVE_INFINITY || Number.isNaN(max)) return max;
   let sum = 0;
-  for (let i = 0; i < count; i++) sum += Math.exp(values[i] - max);
-  return max + Math.log(sum);
+  for (let i = 0; i < count; i++) sum += exp(values[i] - max);
+  return max + log(sum);
 }
 
 /**
@@ -60,7 +61,7 @@ export function normalQuantile(p: number): number {
   const pLow = 0.02425;
   let x: number;
   if (p < pLow) {
-    const q = Math.sqrt(-2 * Math.log(p));
+    const q = Math.sqrt(-2 * log(p));
     x =
       (((((c[0] * q + c[1]) * q + c[2]) * q + c[3]) * q + c[4]) * q + c[5]) /
       ((((d[0] * q + d[1]) * q + d[2]) * q + d[3]) * q + 1);
@@ -71,13 +72,13 @@ export function normalQuantile(p: number): number {
       ((((((a[0] * r + a[1]) * r + a[2]) * r + a[3]) * r + a[4]) * r + a[5]) * q) /
       (((((b[0] * r + b[1]) * r + b[2]) * r + b[3]) * r + b[4]) * r + 1);
   } else {
-    const q = Math.sqrt(-2 * Math.log(1 - p));
+    const q = Math.sqrt(-2 * log(1 - p));
     x =
       -(((((c[0] * q + c[1]) * q + c[2]) * q + c[3]) * q + c[4]) * q + c[5]) /
       ((((d[0] * q + d[1]) * q + d[2]) * q + d[3]) * q + 1);
   }
   const error = 0.5 * erfc(-x / Math.SQRT2) - p;
-  const u = error * Math.sqrt(2 * Math.PI) * Math.exp((x * x) / 2);
+  const u = error * Math.sqrt(2 * Math.PI) * exp((x * x) / 2);
   return x - u / (1 + (x * u) / 2);
 }
 
@@ -87,7 +88,7 @@ export function erfc(x: number): number {
   const t = 1 / (1 + 0.5 * z);
   const r =
     t *
-    Math.exp(
+    exp(
       -z * z -
         1.26551223 +
         t *
@@ -112,7 +113,7 @@ export function erfc(x: number): number {
  * Wilson–Hilferty cube approximation (Wilson & Hilferty 1931), about 0.1 % at the upper tail.
  */
 export function chiSquareQuantile(p: number, dof: number): number {
-  if (dof === 2) return -2 * Math.log(1 - p);
+  if (dof === 2) return -2 * log(1 - p);
   const z = normalQuantile(p);
   const h = 2 / (9 * dof);
   const cube = 1 - h + z * Math.sqrt(h);
@@ -120,8 +121,8 @@ export function chiSquareQuantile(p: number, dof: number): number {
   if (dof !== 3) return approximate;
   let x = approximate;
   for (let iteration = 0; iteration < 30; iteration++) {
-    const survival = erfc(Math.sqrt(x / 2)) + Math.sqrt((2 * x) / Math.PI) * Math.exp(-x / 2);
-    const density = (Math.sqrt(x) * Math.exp(-x / 2)) / Math.sqrt(2 * Math.PI);
+    const survival = erfc(Math.sqrt(x / 2)) + Math.sqrt((2 * x) / Math.PI) * exp(-x / 2);
+    const density = (Math.sqrt(x) * exp(-x / 2)) / Math.sqrt(2 * Math.PI);
     const next = x + (survival - (1 - p)) / density;
     if (Math.abs(next - x) < 1e-12 * x) return next;
     x = next;
@@ -134,7 +135,7 @@ export function weightEntropy(weights: Float64Array, count: number): number {
   let entropy = 0;
   for (let i = 0; i < count; i++) {
     const w = weights[i];
-    if (w > 0) entropy -= w * Math.log(w);
+    if (w > 0) entropy -= w * log(w);
   }
   return entropy;
 }

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { validateBundleFiles } from '../../shared/bundle/validate-bundle-files';
 import type { TReplay, TReplayStepResponse } from '../../shared/contracts/replays';
+import { DIGEST_LAYOUT, ENGINE_VERSION, replayFromFiles } from '../../shared/engine';
 import { runReplay } from '../../shared/engine/filter';
 import { resolveReplaySettings } from '../../shared/engine/settings';
 import { makeBundleFiles, makeTempDir, withFile, writeBundleZip } from '../support/bundle-fixtures';
@@ -58,6 +59,23 @@ describe('replays over the API', () => {
     const local = runReplay(parsed.bundle, settings.settings);
     expect(replay.digest).toBe(local.digest);
     expect(replay.steps).toBe(120);
+  });
+
+  it('splits a replay over the pool threads with the single-thread digest, and records the engine', async () => {
+    // 1,500 particles make six chunks, so the pool's helper thread has work to take.
+    const started = await request(t.app)
+      .post(`/api/bundles/${bundleId}/replays`)
+      .set(auth())
+      .send({ overrides: { particles: 1500 } })
+      .expect(202);
+    const split = await waitForFinish(started.body.id);
+    const single = replayFromFiles(files, { particles: 1500 }, { keyframeInterval: 0 });
+    expect(split.digest).toBe(single.digest);
+    expect(split.engine).toEqual({
+      engine: ENGINE_VERSION,
+      digestLayout: DIGEST_LAYOUT,
+      runtime: `node ${process.version} (V8 ${process.versions.v8})`,
+    });
   });
 
   it('records the upload and the replay in the case audit trail', async () => {

@@ -1,6 +1,7 @@
 import { execFile } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -159,6 +160,51 @@ describe('verify-archive finds tampering at the right file', () => {
   }, 60_000);
 });
 
+describe('an archive exported before engine 2.0.0 (digest layout 1)', () => {
+  let old: string;
+  beforeAll(async () => {
+    // Exactly what an older server exported: result.json without an engine stamp and a digest of
+    // layout 1 (here a stand-in value), archived and signed as usual.
+    const { caseId, replayId } = await archivedCase(t);
+    const resultFile = path.join(
+      os.tmpdir(),
+      `driftcase-test-${process.pid}`,
+      'derived',
+      'replays',
+      replayId,
+      'result.json',
+    );
+    const result = JSON.parse(fs.readFileSync(resultFile, 'utf8'));
+    delete result.engine;
+    result.digest = 'c0ffee'.padEnd(64, '0');
+    fs.writeFileSync(resultFile, JSON.stringify(result));
+    old = await downloadArchive(t, caseId, dir, 'old-layout.zip');
+  }, 120_000);
+
+  it('explains the digest as not comparable, not as tampering, and every other check holds', async () => {
+    const report = await verifyArchive(old);
+    const failed = report.checks.filter((c) => !c.ok);
+    expect(failed).toHaveLength(1);
+    expect(failed[0]).toMatchObject({ kind: 'replay', olderDigestLayout: 1 });
+    expect(failed[0].message).toMatch(/not a sign of tampering/);
+    expect(failed[0].message).toMatch(/engine 1\.x, digest layout 1/);
+    expect(failed[0].message).toMatch(/computes digest layout 2/);
+  }, 60_000);
+
+  it('still fails as tampering when a digest of the current layout is altered', async () => {
+    const digestName = [...entries.keys()].find((n) => n.endsWith('/digest'))!;
+    const replayJson = digestName.replace(/digest$/, 'replay.json');
+    expect(JSON.parse(entries.get(replayJson)!.toString('utf8')).engine.digestLayout).toBe(2);
+    const failed = await failures(
+      await tampered((copy) => copy.set(digestName, Buffer.from(`${'1'.repeat(64)}\n`))),
+      false,
+    );
+    const replayCheck = failed.find((c) => c.kind === 'replay');
+    expect(replayCheck?.olderDigestLayout).toBeUndefined();
+    expect(replayCheck?.message).toMatch(/changed after export/);
+  }, 60_000);
+});
+
 describe('npm run cli -- verify-archive', () => {
   const run = async (...args: string[]) => {
     try {
@@ -180,6 +226,16 @@ describe('npm run cli -- verify-archive', () => {
     expect(code).toBe(0);
     expect(stdout).toMatch(/^ok {3}manifest/m);
     expect(stdout).toMatch(/ALL \d+ CHECKS PASSED/);
+  }, 60_000);
+
+  it('exits 3 with an OLD line for a replay digest from an older engine', async () => {
+    const file = [...fs.readdirSync(dir)].find((name) => name === 'old-layout.zip');
+    const { code, stdout } = await run(path.join(dir, file!));
+    expect(code).toBe(3);
+    expect(stdout).toMatch(/^OLD {2}replay +replay .*not a sign of tampering/m);
+    expect(stdout).toMatch(
+      /OTHER CHECKS PASSED; 1 REPLAY DIGEST FROM AN OLDER ENGINE COULD NOT BE RE-CONFIRMED/,
+    );
   }, 60_000);
 
   it('exits 2 naming the file when one is tampered, and 2 for a missing file', async () => {

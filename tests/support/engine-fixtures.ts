@@ -22,6 +22,11 @@ export interface SyntheticBundleOptions {
   seed?: number;
   /** Include detections of the reflector landmarks (every 0.5 s). */
   withDetections?: boolean;
+  /**
+   * Landmark-rich site: 39 landmarks (reflectors every few metres along the walls, racks and
+   * pillars) detected at every step within 5 m, about five detections per step.
+   */
+  landmarkRich?: boolean;
   /** Onboard estimate and reference trajectory. */
   withPoses?: boolean;
 }
@@ -75,6 +80,39 @@ const LANDMARKS: Landmark[] = [
   [12, 9.2],
   [28, 10.8],
 ].map(([x, y], k) => ({ id: `HL-${k + 1}`, class: k % 4 === 3 ? 'column' : 'reflector', x, y }));
+
+/** 39 landmarks: 26 along the walls, 9 on the central rack and shelving, 4 columns on pillars. */
+const RICH_LANDMARKS: Landmark[] = [
+  ...[3, 7.5, 12, 16.5, 21, 25.5, 30, 34.5, 38].flatMap((x) => [
+    [x, 0.25],
+    [x, 19.75],
+  ]),
+  ...[4, 10, 16].flatMap((y) => [
+    [0.25, y],
+    [39.75, y],
+  ]),
+  [12, 9.35],
+  [16, 9.35],
+  [20, 9.35],
+  [24, 9.35],
+  [28, 9.35],
+  [14, 10.65],
+  [22, 10.65],
+  [26, 10.65],
+  [18, 1.45],
+  [18, 10.65],
+  [30, 1.45],
+  [8, 16.35],
+  [32, 16.35],
+  [37.5, 10.35],
+  [2.5, 10.35],
+].map(([x, y], k) => ({
+  id: `HR-${k + 1}`,
+  class: k >= 35 ? 'column' : k % 7 === 6 ? 'dock' : 'reflector',
+  x,
+  y,
+}));
+const RICH_DETECTION_RANGE = 7.25;
 
 /** True pose on the loop after `s` metres (map frame): heading along the tangent, counter-clockwise. */
 function loopPose(time: number): [number, number, number] {
@@ -179,8 +217,10 @@ export function makeSyntheticBundle(input: SyntheticBundleOptions): Bundle {
     seed: 11,
     withDetections: true,
     withPoses: true,
+    landmarkRich: false,
     ...input,
   };
+  const landmarks = options.landmarkRich ? RICH_LANDMARKS : LANDMARKS;
   const manifest = manifestFor(options);
   const scanConfig = manifest.scan!;
   const grid = buildWarehouseGrid();
@@ -230,16 +270,17 @@ export function makeSyntheticBundle(input: SyntheticBundleOptions): Bundle {
         ranges[k * scanConfig.beams + b + q] = noise[q] < 0.01 ? Number.NaN : hit + 0.02 * normals[q];
       }
     }
-    if (options.withDetections && k % Math.max(1, Math.round(options.rate / 2)) === 0) {
-      for (let l = 0; l < LANDMARKS.length; l++) {
-        const dx = LANDMARKS[l].x - truth.x[k];
-        const dy = LANDMARKS[l].y - truth.y[k];
+    const detectionEvery = options.landmarkRich ? 1 : Math.max(1, Math.round(options.rate / 2));
+    if (options.withDetections && k % detectionEvery === 0) {
+      for (let l = 0; l < landmarks.length; l++) {
+        const dx = landmarks[l].x - truth.x[k];
+        const dy = landmarks[l].y - truth.y[k];
         const range = Math.hypot(dx, dy);
-        if (range > 7.5) continue;
+        if (range > (options.landmarkRich ? RICH_DETECTION_RANGE : 7.5)) continue;
         fillNormals(options.seed, 93, k, l, 0, random);
         detections.push({
           t: t[k],
-          classIndex: LANDMARKS[l].class === 'column' ? 2 : 0,
+          classIndex: WAREHOUSE_DETECTOR.classes.indexOf(landmarks[l].class),
           range: range + 0.05 * noise[0],
           bearing: wrapAngle(Math.atan2(dy, dx) - truth.theta[k] + 0.03 * noise[1]),
         });
@@ -254,7 +295,7 @@ export function makeSyntheticBundle(input: SyntheticBundleOptions): Bundle {
       width: grid.width,
       height: grid.height,
       grid,
-      landmarks: LANDMARKS,
+      landmarks,
     },
     odometry,
     scans: { t: t.slice(), count: steps, beams: scanConfig.beams, ranges },

@@ -42,6 +42,8 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
         label: replay.label,
         overrides: replay.overrides,
         steps: result.steps,
+        // Engine version, digest layout and runtime behind `digest` (absent: layout 1, engine 1.x).
+        engine: result.engine ?? null,
         createdBy: replay.createdBy,
         createdAt: replay.createdAt,
         finishedAt: replay.finishedAt,

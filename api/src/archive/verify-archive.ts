@@ -10,7 +10,7 @@ import {
   type TArchiveVerification,
   ZArchiveManifest,
 } from '../../../shared/contracts/archives';
-import { runReplay } from '../../../shared/engine/filter';
+import { DIGEST_LAYOUT, ENGINE_VERSION, type EngineStamp, replayBundle } from '../../../shared/engine';
 import type { ReplaySettings } from '../../../shared/engine/settings';
 import { hashFile } from '../bundles/sha256-file';
 import { loadBundleForReplay } from '../replays/replay-bundle-file';
@@ -22,7 +22,24 @@ export interface VerifyOptions {
   skipReplays?: boolean;
 }
 
-type Check = (kind: TArchiveCheck['kind'], ok: boolean, file: string | null, message: string) => void;
+type Check = (
+  kind: TArchiveCheck['kind'],
+  ok: boolean,
+  file: string | null,
+  message: string,
+  olderDigestLayout?: number,
+) => void;
+
+/** The digest layout a recorded replay used: its stamp's, or 1 for replays from before stamps (engine 1.x). */
+function recordedLayout(engine: EngineStamp | null | undefined): number {
+  return typeof engine?.digestLayout === 'number' ? engine.digestLayout : 1;
+}
+
+function describeStamp(engine: EngineStamp | null | undefined): string {
+  return engine
+    ? `engine ${engine.engine}, digest layout ${engine.digestLayout}, ${engine.runtime}`
+    : 'engine 1.x, digest layout 1 (recorded before replays carried an engine stamp)';
+}
 
 function parseJson<T>(read: ReadArchive, file: string, check: Check): T | null {
   const bytes = read.contents.get(file);
@@ -77,7 +94,11 @@ async function checkReplays(read: ReadArchive, check: Check) {
   for (const digestPath of [...read.contents.keys()].filter((f) => layout.replayIdOfDigestPath(f)).sort()) {
     const id = layout.replayIdOfDigestPath(digestPath) as string;
     const settingsPath = layout.replayFilePath(id, 'settings.json');
-    const info = parseJson<{ bundlePath?: string }>(read, layout.replayFilePath(id, 'replay.json'), check);
+    const info = parseJson<{ bundlePath?: string; engine?: EngineStamp | null }>(
+      read,
+      layout.replayFilePath(id, 'replay.json'),
+      check,
+    );
     const settings = parseJson<ReplaySettings>(read, settingsPath, check);
     const original = info?.bundlePath ? read.extracted.get(info.bundlePath) : undefined;
     if (!info?.bundlePath || !settings || !original) {
@@ -96,20 +117,29 @@ async function checkReplays(read: ReadArchive, check: Check) {
         bundles.set(original, bundle);
       }
       const expected = (read.contents.get(digestPath) as Buffer).toString('utf8').trim();
-      const actual = runReplay(bundle, settings, { keyframeInterval: 0 }).digest;
+      const actual = replayBundle(bundle, {}, { settings, keyframeInterval: 0 }).digest;
+      const layoutThen = recordedLayout(info.engine);
       if (actual === expected)
         check(
           'replay',
           true,
           digestPath,
-          `replay ${id}: re-run from ${info.bundlePath} gives the recorded digest ${expected}`,
+          `replay ${id}: re-run from ${info.bundlePath} gives the recorded digest ${expected} (recorded by ${describeStamp(info.engine)}; re-run by engine ${ENGINE_VERSION}, digest layout ${DIGEST_LAYOUT})`,
+        );
+      else if (layoutThen !== DIGEST_LAYOUT)
+        check(
+          'replay',
+          false,
+          digestPath,
+          `replay ${id}: digest not comparable, not a sign of tampering: it was recorded by ${describeStamp(info.engine)}, and this verifier (engine ${ENGINE_VERSION}) computes digest layout ${DIGEST_LAYOUT}, whose numbers differ by design (see the engine's digest layout history). The replay's files are still covered by the manifest hashes and signature checked above; to re-confirm this digest, verify with the Driftcase release that recorded it, or re-run the replay and compare the new digest.`,
+          layoutThen,
         );
       else
         check(
           'replay',
           false,
           digestPath,
-          `replay ${id}: re-run gives digest ${actual}, ${digestPath} says ${expected}`,
+          `replay ${id}: re-run gives digest ${actual}, ${digestPath} says ${expected} (both digest layout ${DIGEST_LAYOUT}): the bundle, the settings or the digest were changed after export`,
         );
     } catch (error) {
       check('replay', false, digestPath, `replay ${id}: re-run failed (${(error as Error).message})`);
@@ -127,7 +157,12 @@ export async function verifyArchive(
   options: VerifyOptions = {},
 ): Promise<TArchiveVerification> {
   const checks: TArchiveCheck[] = [];
-  const check: Check = (kind, ok, file, message) => checks.push({ kind, ok, file, message });
+  const check: Check = (kind, ok, file, message, olderDigestLayout) =>
+    checks.push(
+      olderDigestLayout === undefined
+        ? { kind, ok, file, message }
+        : { kind, ok, file, message, olderDigestLayout },
+    );
   const { sha256: archiveSha256 } = await hashFile(zipPath);
   const tempDir = await fs.promises.mkdtemp(path.join(os.tmpdir(), 'driftcase-verify-'));
   try {
@@ -198,7 +233,8 @@ export async function verifyArchive(
   return { ok: checks.every((c) => c.ok), archiveSha256, checks };
 }
 
-/** One line per check, as the CLI prints them. */
+/** One line per check, as the CLI prints them: ok, FAIL, or OLD for a digest of an older layout. */
 export function formatCheckLine(check: TArchiveCheck): string {
-  return `${check.ok ? 'ok  ' : 'FAIL'} ${check.kind.padEnd(11)} ${check.message}`;
+  const mark = check.ok ? 'ok  ' : check.olderDigestLayout !== undefined ? 'OLD ' : 'FAIL';
+  return `${mark} ${check.kind.padEnd(11)} ${check.message}`;
 }

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { TReplayFlag } from '../../../shared/contracts/replays';
+import type { EngineStamp } from '../../../shared/engine/engine-version';
 import type { ReplayResult } from '../../../shared/engine/filter';
 import type { Keyframe } from '../../../shared/engine/particle-state';
 import type { ReplaySeries } from '../../../shared/engine/replay-series';
@@ -18,6 +19,8 @@ export interface ReplayResultFile {
   settings: ReplaySettings;
   steps: number;
   digest: string;
+  /** Engine version, digest layout and runtime that produced the digest; absent before engine 2.0.0 (layout 1). */
+  engine?: EngineStamp;
   elapsedMs: number;
   metrics: ReplayResult['metrics'] & { diverged_at: number | null };
   flags: TReplayFlag[];
@@ -48,7 +51,7 @@ export function seriesToColumns(series: ReplaySeries): Record<string, (number | 
 export function writeReplayFiles(
   dir: string,
   result: ReplayResult,
-  extra: { elapsedMs: number; flags: TReplayFlag[]; divergedAt: number | null },
+  extra: { elapsedMs: number; flags: TReplayFlag[]; divergedAt: number | null; engine: EngineStamp },
 ): ReplayResultFile {
   fs.mkdirSync(dir, { recursive: true });
   const keyframeIndex: ReplayResultFile['keyframes'] = [];
@@ -72,6 +75,7 @@ export function writeReplayFiles(
     settings: result.settings,
     steps: result.steps,
     digest: result.digest,
+    engine: extra.engine,
     elapsedMs: extra.elapsedMs,
     metrics: { ...result.metrics, diverged_at: extra.divergedAt },
     flags: extra.flags,

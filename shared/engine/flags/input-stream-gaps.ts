@@ -3,7 +3,9 @@
  * poses that moved further between rows than the robot can drive. Detections are not checked:
  * they arrive only while landmarks are in view, so their gaps are normal.
  */
+
 import type { Bundle } from '../../bundle/types';
+import { hypot } from '../numerics';
 import type { ReplayFlag } from './flag-types';
 import { findSustainedRuns, fixed, medianInPlace } from './intervals';
 
@@ -61,14 +63,14 @@ function detectOdometryJumps(bundle: Bundle): ReplayFlag[] {
   const excess = new Float64Array(t.length);
   for (let k = 1; k < t.length; k++) {
     const allowed = maxSpeed * (t[k] - t[k - 1]) * JUMP_FACTOR + JUMP_SLACK;
-    const moved = Math.hypot(x[k] - x[k - 1], y[k] - y[k - 1]);
+    const moved = hypot(x[k] - x[k - 1], y[k] - y[k - 1]);
     excess[k] = moved - allowed;
     if (excess[k] > 0) marked[k] = 1;
   }
   return findSustainedRuns(t, marked, 0, 0.5).map((run) => {
     let worst = run.first;
     for (let k = run.first; k <= run.last; k++) if (excess[k] > excess[worst]) worst = k;
-    const moved = Math.hypot(x[worst] - x[worst - 1], y[worst] - y[worst - 1]);
+    const moved = hypot(x[worst] - x[worst - 1], y[worst] - y[worst - 1]);
     const dt = t[worst] - t[worst - 1];
     return {
       kind: 'odometry_jump',

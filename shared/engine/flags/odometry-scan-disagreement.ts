@@ -8,6 +8,7 @@
  *   Only steps where most of the scan no longer fits at the mean pose are matched: when most of
  *   it still fits, a better fit elsewhere is more likely a changed map (map_out_of_date).
  */
+import { hypot } from '../numerics';
 import type { ReplayContext } from '../replay-context';
 import type { ReplaySeries } from '../replay-series';
 import type { EvidenceProfile } from './evidence-profile';
@@ -66,7 +67,7 @@ function sumCorrections(series: ReplaySeries, signals: Signals): void {
       first++;
     }
     signals.heading[k] = st;
-    signals.position[k] = Math.hypot(sx, sy);
+    signals.position[k] = hypot(sx, sy);
   }
 }
 
@@ -126,7 +127,7 @@ export function detectOdometryScanDisagreement(
       probes++;
       const offset = findScanOffset(context, series, k, work, PROBE_MIN_ENDPOINTS);
       if (!offset || offset.gainPerEndpoint < OFFSET_MIN_GAIN) continue;
-      const distance = Math.hypot(offset.dx, offset.dy);
+      const distance = hypot(offset.dx, offset.dy);
       if (distance < OFFSET_POSITION && Math.abs(offset.dtheta) < OFFSET_HEADING) continue;
       signals.offsetPosition[k] = distance;
       signals.offsetHeading[k] = offset.dtheta;

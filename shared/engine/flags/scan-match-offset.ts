@@ -3,7 +3,9 @@
  * for the pose under which a step's last scan fits the likelihood field best. The offset from
  * the mean pose is what the scans disagree with (the mean pose follows odometry between updates).
  */
+
 import { accumulateScanLogLikelihood, robotFrameEndpoints } from '../likelihood-field';
+import { cos, hypot, sin } from '../numerics';
 import type { ReplayContext } from '../replay-context';
 import type { ReplaySeries } from '../replay-series';
 
@@ -43,7 +45,8 @@ export interface ScanMatchWorkspace {
 }
 
 export function createScanMatchWorkspace(beams: number): ScanMatchWorkspace {
-  const candidates = (2 * COARSE_XY.half + 1) ** 2 * (2 * COARSE_THETA.half + 1);
+  const side = 2 * COARSE_XY.half + 1;
+  const candidates = side * side * (2 * COARSE_THETA.half + 1);
   const make = () => new Float64Array(candidates);
   return {
     endX: new Float64Array(beams),
@@ -78,8 +81,8 @@ function scoreGrid(
         work.x[m] = centre[0] + i * xy.step;
         work.y[m] = centre[1] + j * xy.step;
         work.theta[m] = theta;
-        work.cos[m] = Math.cos(theta);
-        work.sin[m] = Math.sin(theta);
+        work.cos[m] = cos(theta);
+        work.sin[m] = sin(theta);
         work.score[m] = 0;
         m++;
       }
@@ -102,7 +105,7 @@ function scoreGrid(
   let bestScore = Number.NEGATIVE_INFINITY;
   for (let c = 0; c < m; c++) {
     const away =
-      Math.hypot(work.x[c] - origin[0], work.y[c] - origin[1]) +
+      hypot(work.x[c] - origin[0], work.y[c] - origin[1]) +
       Math.abs(work.theta[c] - origin[2]) / HEADING_PRIOR_SCALE;
     const penalised = work.score[c] - OFFSET_PRIOR * count * away;
     if (penalised > bestScore) {
@@ -137,8 +140,8 @@ export function findScanOffset(
     field,
     new Float64Array([mean[0]]),
     new Float64Array([mean[1]]),
-    new Float64Array([Math.cos(mean[2])]),
-    new Float64Array([Math.sin(mean[2])]),
+    new Float64Array([cos(mean[2])]),
+    new Float64Array([sin(mean[2])]),
     0,
     1,
     work.endX,

@@ -2,10 +2,13 @@ import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
 import {
   accumulateDetectionLogLikelihood,
-  buildLandmarkModel,
+  bestAssociationTerms,
+  createDetectionScratch,
   detectionLikelihood,
-} from '../../../shared/engine/landmark-model';
-import { WAREHOUSE_DETECTOR } from '../../support/engine-fixtures';
+} from '../../../shared/engine/landmark-association';
+import { associationTerm, buildLandmarkModel } from '../../../shared/engine/landmark-model';
+import { cos, sin } from '../../../shared/engine/numerics';
+import { makeSyntheticBundle, WAREHOUSE_DETECTOR } from '../../support/engine-fixtures';
 
 const model = buildLandmarkModel(
   [
@@ -40,32 +43,170 @@ describe('landmark detection model', () => {
     expect(detectionLikelihood(model, 0, 0, 0, 2, 20, 0)).toBeCloseTo(CLUTTER, 15);
   });
 
-  it('gives every particle of a spread cloud the same log-likelihood as the single-pose model', () => {
-    // The per-range loop narrows landmarks to those a bounding box of the particles can see; that
-    // must not change any value. Particles spread over 10 m so landmarks enter and leave the gate.
+  it('associates through the spatial index exactly as a search over every landmark', () => {
+    // Reference: exhaustive maximum-likelihood association (every landmark, no index, no gate)
+    // with the same per-landmark term. The index and the gates may only skip terms too small to
+    // change (1 - clutter) best + clutter density, so that sum must be bit-identical.
+    // Particles spread over 10 m so landmarks enter and leave the range and bearing gates.
     const n = 2001;
     const x = new Float64Array(n);
     const y = new Float64Array(n);
     const theta = new Float64Array(n);
+    const cosTheta = new Float64Array(n);
+    const sinTheta = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       x[i] = -2 + (10 * ((i * 7919) % n)) / n;
       y[i] = -3 + (8 * ((i * 104729) % n)) / n;
       theta[i] = -Math.PI + (2 * Math.PI * ((i * 31) % n)) / n;
+      cosTheta[i] = cos(theta[i]);
+      sinTheta[i] = sin(theta[i]);
     }
+    const scratch = createDetectionScratch(model, n);
     for (const [reported, range, bearing] of [
       [0, 3.04, 0.02],
       [1, 4, 1.5],
       [2, 2.2, -2.9],
+      [0, 7.9, 3.1],
     ]) {
-      const out = new Float64Array(n);
-      accumulateDetectionLogLikelihood(model, x, y, theta, 0, n, reported, range, bearing, out);
+      bestAssociationTerms(
+        model,
+        { x, y, theta, cosTheta, sinTheta },
+        0,
+        n,
+        reported,
+        range,
+        bearing,
+        scratch.best,
+        scratch,
+      );
+      let explained = 0;
       for (let i = 0; i < n; i++) {
-        const single = Math.log(detectionLikelihood(model, x[i], y[i], theta[i], reported, range, bearing));
-        if (out[i] !== single) expect({ i, value: out[i] }).toEqual({ i, value: single });
+        const ux = cosTheta[i] * cos(bearing) - sinTheta[i] * sin(bearing);
+        const uy = sinTheta[i] * cos(bearing) + cosTheta[i] * sin(bearing);
+        let exhaustive = 0;
+        for (let l = 0; l < model.count; l++)
+          exhaustive = Math.max(exhaustive, associationTerm(model, l, x[i], y[i], ux, uy, range, reported));
+        const indexed = 0.95 * scratch.best[i] + CLUTTER;
+        if (indexed !== 0.95 * exhaustive + CLUTTER)
+          expect({ i, indexed }).toEqual({ i, indexed: 0.95 * exhaustive + CLUTTER });
+        if (scratch.best[i] > CLUTTER) explained++;
       }
       // The cloud covers poses that see a landmark (well above the clutter floor) and poses that do not.
-      expect(Math.max(...out)).toBeGreaterThan(Math.log(CLUTTER) + 5);
-      expect(Math.min(...out)).toBeCloseTo(Math.log(CLUTTER), 12);
+      if (range < 7) expect(explained).toBeGreaterThan(0);
+      expect(explained).toBeLessThan(n);
     }
+  });
+
+  it('associates compact clouds on a landmark-rich site exactly as the exhaustive search', () => {
+    // Clouds like a tracking filter's (0.3 m, 0.2 rad) around the true poses of the landmark-rich
+    // synthetic log, with its recorded detections: here the index's range and bearing windows
+    // leave out most landmarks, and the result must still equal the exhaustive search's.
+    const bundle = makeSyntheticBundle({ seconds: 20, landmarkRich: true });
+    const rich = buildLandmarkModel(bundle.map.landmarks, bundle.manifest.detector!);
+    const detections = bundle.detections!;
+    const reference = bundle.reference!;
+    const n = 64;
+    const cloud = { x: new Float64Array(n), y: new Float64Array(n), theta: new Float64Array(n) };
+    const cosTheta = new Float64Array(n);
+    const sinTheta = new Float64Array(n);
+    const scratch = createDetectionScratch(rich, n);
+    let compared = 0;
+    let explained = 0;
+    for (let d = 0; d < detections.t.length; d += 3) {
+      const k = Math.round(detections.t[d] * 10);
+      for (let i = 0; i < n; i++) {
+        cloud.x[i] = reference.x[k] + 0.3 * (((i * 37) % n) / n - 0.5);
+        cloud.y[i] = reference.y[k] + 0.3 * (((i * 11) % n) / n - 0.5);
+        cloud.theta[i] = reference.theta[k] + 0.2 * (((i * 23) % n) / n - 0.5);
+        cosTheta[i] = cos(cloud.theta[i]);
+        sinTheta[i] = sin(cloud.theta[i]);
+      }
+      // The recorded detection, and copies pushed 4, 7 and 9.5 sigma off in range and bearing,
+      // where the terms are tiny but still change the sum: the windows must not cut them off.
+      const offset = [0, 4, -7, 9.5][(d / 3) % 4];
+      const reported = detections.classIndex[d];
+      const range = detections.range[d] + offset * rich.rangeSigma;
+      const bearing = detections.bearing[d] - offset * rich.bearingSigma;
+      bestAssociationTerms(
+        rich,
+        { ...cloud, cosTheta, sinTheta },
+        0,
+        n,
+        reported,
+        range,
+        bearing,
+        scratch.best,
+        scratch,
+      );
+      const clutter = rich.clutter * rich.clutterDensity;
+      for (let i = 0; i < n; i++) {
+        const ux = cosTheta[i] * cos(bearing) - sinTheta[i] * sin(bearing);
+        const uy = sinTheta[i] * cos(bearing) + cosTheta[i] * sin(bearing);
+        let exhaustive = 0;
+        for (let l = 0; l < rich.count; l++)
+          exhaustive = Math.max(
+            exhaustive,
+            associationTerm(rich, l, cloud.x[i], cloud.y[i], ux, uy, range, reported),
+          );
+        const indexed = (1 - rich.clutter) * scratch.best[i] + clutter;
+        const expected = (1 - rich.clutter) * exhaustive + clutter;
+        if (indexed !== expected) expect({ d, i, indexed }).toEqual({ d, i, indexed: expected });
+        compared++;
+        if (scratch.best[i] > clutter) explained++;
+      }
+    }
+    expect(compared).toBeGreaterThan(10_000);
+    // Most cloud particles sit near the truth, so most detections are explained by a landmark.
+    expect(explained / compared).toBeGreaterThan(0.3);
+  });
+
+  it('adds one log per particle and step equal to the sum of the per-detection logs', () => {
+    const n = 3;
+    const x = Float64Array.of(0, 0.05, -0.1);
+    const y = Float64Array.of(0, 0.02, 0.1);
+    const theta = Float64Array.of(0, 0.01, -0.02);
+    const batch = {
+      classIndex: Int32Array.of(0, 1, 2),
+      range: Float64Array.of(3.04, 4, 12),
+      bearing: Float64Array.of(0.02, 1.55, 0),
+      first: 0,
+      end: 3,
+    };
+    const out = new Float64Array(n);
+    const scratch = createDetectionScratch(model, n);
+    accumulateDetectionLogLikelihood(
+      model,
+      { x, y, theta, cosTheta: theta.map(cos), sinTheta: theta.map(sin) },
+      0,
+      n,
+      batch,
+      out,
+      scratch,
+    );
+    for (let i = 0; i < n; i++) {
+      let sum = 0;
+      for (let d = 0; d < 3; d++)
+        sum += Math.log(
+          detectionLikelihood(
+            model,
+            x[i],
+            y[i],
+            theta[i],
+            batch.classIndex[d],
+            batch.range[d],
+            batch.bearing[d],
+          ),
+        );
+      expect(out[i]).toBeCloseTo(sum, 12);
+    }
+  });
+
+  it('skips only terms that cannot change the result: the gate is wide enough', () => {
+    // At the gate, (1 - clutter) N e^(-G^2/2) must be below half an ulp of the clutter term.
+    const term = 0.95 * model.gaussianNormaliser * Math.exp(-0.5 * model.gateSigmas * model.gateSigmas);
+    expect(CLUTTER + term).toBe(CLUTTER);
+    // ... and not absurdly wide (about 10 sigma for this detector).
+    expect(model.gateSigmas).toBeGreaterThan(8);
+    expect(model.gateSigmas).toBeLessThan(12);
   });
 });

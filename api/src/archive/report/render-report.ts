@@ -99,11 +99,14 @@ export function renderReport(input: ReportInput): string {
 <p class="caution" role="note">⚠ ${escapeHtml(input.safetyCaution)}</p>
 <section><h2>Case</h2><table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', escapeHtml(c.incidentTime))}${row('Severity', escapeHtml(c.severity))}${row('Status', escapeHtml(c.status))}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
 <section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}</section>
-<section><h2>Replays and flags</h2>${replays || '<p>No finished replays.</p>'}</section>
+<section><h2>Replays and flags</h2>${replays ? `${REPLAY_RERUN_NOTE}${replays}` : '<p>No finished replays.</p>'}</section>
 <section><h2>Findings</h2>${findingsSection(evidence)}</section>
 <section><h2>Fixes and verification</h2>${fixesSection(evidence)}</section>
 <section><h2>Custody</h2>${custodySection(evidence)}</section>
-<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip</code> checks every file against manifest.json, the signatures, the audit chain, and re-runs every replay.</p></footer>
+<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip</code> checks every file against manifest.json, the signatures, the audit chain, and re-runs every replay from the included original bundle.</p></footer>
 </body></html>
 `;
 }
+
+/** How to confirm the digests independently, on any machine or in a browser. */
+const REPLAY_RERUN_NOTE = `<p>Every digest below can be re-confirmed independently: offline, <code>npm run cli -- verify-archive FILE.zip</code> re-runs each replay from <code>bundles/&lt;sha256&gt;/original.zip</code> with <code>replays/&lt;id&gt;/settings.json</code> and compares the result with <code>replays/&lt;id&gt;/digest</code> (exit 0: all match). The replay engine computes its own elementary functions, so the same engine version gives the same digest on any JavaScript engine; in the Driftcase workspace, <em>Re-run in this browser</em> does the same for a replay without the server. A digest recorded by an older engine (a lower digest layout, shown under Engine) is reported as <code>OLD</code>, not comparable rather than tampered, and verify-archive exits 3.</p>`;

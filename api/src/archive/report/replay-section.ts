@@ -95,6 +95,7 @@ export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null
 <tr><th>Bundle SHA-256</th><td class="hash">${escapeHtml(entry.bundleSha256)}</td></tr>
 <tr><th>Settings</th><td>${settings.particles} particles, seed ${settings.seed}, resampling ${escapeHtml(settings.resampling.method)} below ESS ${formatNumber(settings.resampling.threshold, 2)} N; overrides ${escapeHtml(JSON.stringify(replay.overrides))}</td></tr>
 <tr><th>Digest</th><td class="hash">${escapeHtml(result.digest)}</td></tr>
+<tr><th>Engine</th><td>${result.engine ? `engine ${escapeHtml(result.engine.engine)}, digest layout ${result.engine.digestLayout}, ${escapeHtml(result.engine.runtime)}` : 'engine 1.x, digest layout 1 (no engine stamp recorded)'}</td></tr>
 <tr><th>RMSE</th><td>${formatNumber(result.metrics.rmse_reference, 3)} <span class="unit">m vs reference</span>; ${formatNumber(result.metrics.rmse_onboard, 3)} <span class="unit">m vs onboard</span></td></tr>
 <tr><th>Diverged at</th><td>${result.metrics.diverged_at === null ? 'never' : `${formatNumber(result.metrics.diverged_at, 1)} <span class="unit">s</span>`}</td></tr>
 </tbody></table>

@@ -1,14 +1,16 @@
 import { stat, writeFile } from 'node:fs/promises';
 import { formatIssue } from '@shared/bundle/format-issue';
-import { runReplay } from '@shared/engine/filter';
-import { buildReplayContext } from '@shared/engine/replay-context';
-import { parseReplayOverrides, resolveReplaySettings, type TReplayOverrides } from '@shared/engine/settings';
-import { inspectBundle } from '../../bundles/inspect-bundle';
+import { ReplayInputError, replayFromFiles } from '@shared/engine';
+import { parseReplayOverrides, type TReplayOverrides } from '@shared/engine/settings';
+import { readBundleSourceFiles } from '../../bundles/read-bundle-files';
 import { analyseReplay } from '../../replays/analyse-replay';
+import { nodeEngineStamp } from '../../replays/runtime';
+import { createThreadSplit, defaultReplayThreads } from '../../replays/split-threads';
 
 const USAGE =
   'Usage: npm run cli -- replay PATH [--particles N] [--seed S] [--resampling METHOD] [--threshold F]\n' +
-  '                                  [--beams K] [--recovery] [--kld] [--json FILE]\n' +
+  '                                  [--beams K] [--recovery] [--kld] [--threads N] [--json FILE]\n' +
+  '  --threads N: split the particles over N threads (default: all cores); the digest is the same\n' +
   '  METHOD: multinomial | stratified | systematic | residual\n';
 
 /** Command-line option → override field, and how its value is read. */
@@ -29,8 +31,13 @@ const OPTION_FOR_FIELD = Object.fromEntries([
 interface ParsedArguments {
   path: string;
   jsonFile?: string;
+  /** Threads to split the particles over; undefined = all cores. */
+  threads?: number;
   overrides: TReplayOverrides;
 }
+
+/** Upper bound on --threads: more than this only adds contention. */
+const MAX_THREADS = 64;
 
 /** Parses argv into a path, an optional JSON output file and validated overrides; errors name the option. */
 export function parseReplayArguments(
@@ -40,10 +47,11 @@ export function parseReplayArguments(
   const errors: string[] = [];
   const paths: string[] = [];
   let jsonFile: string | undefined;
+  let threads: number | undefined;
   for (let i = 0; i < args.length; i++) {
     const arg = args[i];
     if (arg in FLAG_OPTIONS) raw[FLAG_OPTIONS[arg]] = true;
-    else if (arg === '--json' || arg in VALUE_OPTIONS) {
+    else if (arg === '--json' || arg === '--threads' || arg in VALUE_OPTIONS) {
       const value = args[i + 1];
       i++;
       if (value === undefined || value.startsWith('--')) {
@@ -52,6 +60,13 @@ export function parseReplayArguments(
       }
       if (arg === '--json') {
         jsonFile = value;
+        continue;
+      }
+      if (arg === '--threads') {
+        const count = Number(value);
+        if (!Number.isInteger(count) || count < 1 || count > MAX_THREADS)
+          errors.push(`--threads: expected a whole number from 1 to ${MAX_THREADS}, got "${value}"`);
+        else threads = count;
         continue;
       }
       const { field, kind } = VALUE_OPTIONS[arg];
@@ -78,7 +93,7 @@ export function parseReplayArguments(
     for (const issue of parsed.issues)
       errors.push(`${OPTION_FOR_FIELD[issue.field] ?? issue.field}: ${issue.message}`);
   if (errors.length > 0 || !parsed.ok) return { ok: false, errors };
-  return { ok: true, value: { path: paths[0], jsonFile, overrides: parsed.overrides } };
+  return { ok: true, value: { path: paths[0], jsonFile, threads, overrides: parsed.overrides } };
 }
 
 /** Plain array with null for NaN and infinities (JSON has neither). */
@@ -97,32 +112,43 @@ export async function run(args: string[]): Promise<number> {
     return 2;
   }
   const { path, jsonFile, overrides } = parsed.value;
+  const threads = parsed.value.threads ?? defaultReplayThreads();
   try {
     const info = await stat(path).catch(() => undefined);
     if (!info) {
       process.stderr.write(`${path}: no such file or folder\n`);
       return 2;
     }
-    const inspection = await inspectBundle({ kind: info.isDirectory() ? 'folder' : 'zip', path });
-    if (!inspection.ok || !inspection.bundle) {
-      for (const issue of inspection.issues) process.stderr.write(`${formatIssue(issue)}\n`);
+    const source = { kind: info.isDirectory() ? 'folder' : 'zip', path } as const;
+    const read = await readBundleSourceFiles(source);
+    if (!read.ok) {
+      for (const issue of read.issues) process.stderr.write(`${formatIssue(issue)}\n`);
       process.stderr.write(
         `${path}: invalid bundle, not replayed (run "npm run cli -- check ${path}" for the report)\n`,
       );
       return 2;
     }
-    const bundle = inspection.bundle;
-    const resolved = resolveReplaySettings(bundle.manifest, overrides);
-    if (!resolved.ok) {
-      for (const issue of resolved.issues)
-        process.stderr.write(`${OPTION_FOR_FIELD[issue.field] ?? issue.field}: ${issue.message}\n`);
-      return 2;
-    }
-    const settings = resolved.settings;
-    const context = buildReplayContext(bundle, settings);
+    const split = threads > 1 ? createThreadSplit(threads, source) : undefined;
     const started = performance.now();
-    const result = runReplay(bundle, settings, { context });
+    let result: ReturnType<typeof replayFromFiles>;
+    try {
+      result = replayFromFiles(read.files, overrides, { adopt: split?.adopt });
+    } catch (error) {
+      if (!(error instanceof ReplayInputError)) throw error;
+      for (const problem of error.problems) {
+        const [field, ...rest] = problem.split(': ');
+        process.stderr.write(
+          `${OPTION_FOR_FIELD[field] ? [OPTION_FOR_FIELD[field], ...rest].join(': ') : problem}\n`,
+        );
+      }
+      process.stderr.write(`${path}: not replayed\n`);
+      return 2;
+    } finally {
+      await split?.close();
+    }
     const elapsedMs = performance.now() - started;
+    const { bundle, context, settings } = result;
+    const engine = nodeEngineStamp();
     // The same analysis as API replays, so both report the same flags.
     const { flags, divergedAt } = analyseReplay(bundle, result, context);
     const { series, metrics } = result;
@@ -130,8 +156,8 @@ export async function run(args: string[]): Promise<number> {
       [
         `Replay of ${path}`,
         `Steps: ${result.steps} (${series.t[0]?.toFixed(1) ?? 0} s to ${series.t[result.steps - 1]?.toFixed(1) ?? 0} s), particles: ${settings.particles}, seed: ${settings.seed}, resampling: ${settings.resampling.method} below ESS ${settings.resampling.threshold} N`,
-        `Digest: ${result.digest}`,
-        `Elapsed: ${elapsedMs.toFixed(0)} ms`,
+        `Digest: ${result.digest} (engine ${engine.engine}, digest layout ${engine.digestLayout}, ${engine.runtime})`,
+        `Elapsed: ${elapsedMs.toFixed(0)} ms on ${threads} thread${threads === 1 ? '' : 's'}`,
         `RMSE vs reference: ${formatMetres(metrics.rmse_reference)}; vs onboard: ${formatMetres(metrics.rmse_onboard)}`,
         `Flags: ${flags.length}${flags.length ? ` (${flags.map((flag) => `${flag.kind} ${flag.start.toFixed(1)}-${flag.end.toFixed(1)} s ${flag.severity}`).join('; ')})` : ''}`,
         '',
@@ -139,10 +165,12 @@ export async function run(args: string[]): Promise<number> {
     );
     if (jsonFile) {
       const output = {
-        files: inspection.files.map(({ name, size, sha256 }) => ({ name, size, sha256 })),
+        files: read.inspected.map(({ name, size, sha256 }) => ({ name, size, sha256 })),
         settings,
         steps: result.steps,
         digest: result.digest,
+        engine,
+        threads,
         elapsed_ms: Math.round(elapsedMs),
         metrics: { ...metrics, diverged_at: divergedAt },
         series: {

@@ -6,7 +6,9 @@ const OPTIONS = new Set(['--json', '--skip-replays']);
 
 /**
  * `verify-archive FILE.zip`: checks an evidence archive offline (no database). Prints one line per
- * check; exit 0 when every check holds, 2 when any fails or the usage is wrong, 1 on internal failure.
+ * check; exit 0 when every check holds, 3 when everything holds except replay digests recorded
+ * under an older digest layout (not comparable, not tampering), 2 when any check fails or the
+ * usage is wrong, 1 on internal failure.
  */
 export async function run(args: string[]): Promise<number> {
   const unknown = args.filter((arg) => arg.startsWith('-') && !OPTIONS.has(arg));
@@ -28,14 +30,18 @@ export async function run(args: string[]): Promise<number> {
     else {
       process.stdout.write(`Archive ${file}\nSHA-256 ${result.archiveSha256}\n`);
       for (const check of result.checks) process.stdout.write(`${formatCheckLine(check)}\n`);
-      const failed = result.checks.filter((c) => !c.ok).length;
+      const failed = result.checks.filter((c) => !c.ok && c.olderDigestLayout === undefined).length;
+      const older = result.checks.filter((c) => c.olderDigestLayout !== undefined).length;
       process.stdout.write(
         result.ok
           ? `ALL ${result.checks.length} CHECKS PASSED\n`
-          : `${failed} OF ${result.checks.length} CHECKS FAILED\n`,
+          : failed > 0
+            ? `${failed} OF ${result.checks.length} CHECKS FAILED${older ? ` (and ${older} replay digest${older === 1 ? '' : 's'} from an older engine not comparable)` : ''}\n`
+            : `ALL ${result.checks.length - older} OTHER CHECKS PASSED; ${older} REPLAY DIGEST${older === 1 ? '' : 'S'} FROM AN OLDER ENGINE COULD NOT BE RE-CONFIRMED (not tampering; see the OLD lines)\n`,
       );
     }
-    return result.ok ? 0 : 2;
+    if (result.ok) return 0;
+    return result.checks.every((c) => c.ok || c.olderDigestLayout !== undefined) ? 3 : 2;
   } catch (error) {
     process.stderr.write(`Internal failure while verifying ${file}: ${(error as Error).message}\n`);
     return 1;

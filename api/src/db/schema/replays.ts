@@ -21,6 +21,8 @@ export const replays = pgTable(
     /** The effective settings the engine ran with. */
     settings: jsonb('settings'),
     digest: text('digest'),
+    /** Engine version, digest layout and runtime that produced the digest; null before engine 2.0.0. */
+    engine: jsonb('engine'),
     steps: integer('steps'),
     elapsedMs: real('elapsed_ms'),
     metrics: jsonb('metrics'),

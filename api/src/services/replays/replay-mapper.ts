@@ -14,6 +14,7 @@ export function toReplay(
     overrides: row.overrides as TReplay['overrides'],
     settings: (row.settings as TReplay['settings']) ?? null,
     digest: row.digest,
+    engine: (row.engine as TReplay['engine']) ?? null,
     steps: row.steps,
     elapsedMs: row.elapsedMs,
     metrics: (row.metrics as TReplay['metrics']) ?? null,

@@ -11,7 +11,7 @@ import {
   type TStartReplayRequest,
   ZStartReplayRequest,
 } from '../../../../shared/contracts/replays';
-import { resolveReplaySettings } from '../../../../shared/engine/settings';
+import { type ReplaySettings, resolveReplaySettings } from '../../../../shared/engine/settings';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
@@ -103,7 +103,13 @@ export function createReplaysService({
     notices.emit(id, { type: 'finished', replay: await getReplay(id) } satisfies ReplayNotice);
   }
 
-  async function execute(id: string, bundleId: string, zipPath: string, overrides: TReplay['overrides']) {
+  async function execute(
+    id: string,
+    bundleId: string,
+    zipPath: string,
+    overrides: TReplay['overrides'],
+    settings: ReplaySettings,
+  ) {
     const state = live.get(id)!;
     const outDir = replayDir(derivedDir, id);
     const onEvent = (event: ReplayEvent) => {
@@ -122,7 +128,7 @@ export function createReplaysService({
     };
     try {
       const result = await pool.run(
-        { bundlePath: zipPath, overrides, outDir, maxUnpackedBytes },
+        { bundlePath: zipPath, overrides, settings, outDir, maxUnpackedBytes },
         state.controller.signal,
         onEvent,
       );
@@ -130,6 +136,7 @@ export function createReplaysService({
         status: 'done',
         settings: result.settings,
         digest: result.digest,
+        engine: result.engine ?? null,
         steps: result.steps,
         elapsedMs: result.elapsedMs,
         metrics: result.metrics,
@@ -187,7 +194,7 @@ export function createReplaysService({
       });
     });
     live.set(id, { progress: null, controller: new AbortController() });
-    void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides);
+    void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides, resolved.settings);
     return getReplay(id);
   }
 

@@ -18,6 +18,7 @@ const replay = (patch: Partial<TReplay>): TReplay => ({
   overrides: {},
   settings: null,
   digest: 'd',
+  engine: null,
   steps: 1,
   elapsedMs: 1,
   metrics: null,

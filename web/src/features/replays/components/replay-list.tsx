@@ -6,6 +6,7 @@ import { Ban, CircleAlert, CircleCheck, Clock, History, LoaderCircle } from 'luc
 import { useCancelReplay } from '../api/cancel-replay';
 import { useReplayProgress } from '../api/replay-progress';
 import { summarizeOverrides } from './replay-form-values';
+import { RerunInBrowser } from './rerun-in-browser';
 
 const STATUS = {
   queued: { icon: Clock, label: 'Queued', tone: 'text-ink-muted' },
@@ -71,6 +72,7 @@ function ReplayRow({
       </p>
       {replay.error && <p className="text-xs text-state-bad">{replay.error}</p>}
       {isLive && <ReplayProgressBar replay={replay} />}
+      {replay.status === 'done' && replay.digest && <RerunInBrowser replay={replay} />}
       <div className="mt-1 flex gap-2">
         {replay.status === 'done' && !isCurrent && (
           <Button size="sm" variant="secondary" onClick={onChoose}>
