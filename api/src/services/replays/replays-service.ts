@@ -20,6 +20,7 @@ import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
+import { createReplayRebuilder } from './rebuild-replay-files';
 import { toReplay } from './replay-mapper';
 import { createStepCache } from './step-cache';
 
@@ -59,6 +60,7 @@ export function createReplaysService({
   const notices = new EventEmitter();
   notices.setMaxListeners(100);
   const steps = createStepCache(loadBundle);
+  const rebuilder = createReplayRebuilder({ derivedDir, pool, maxUnpackedBytes });
 
   const selectReplays = () =>
     db
@@ -231,25 +233,40 @@ export function createReplaysService({
     return replay;
   }
 
+  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
+  async function requireResultFiles(id: string): Promise<{ replay: TReplay; dir: string }> {
+    const replay = await requireDone(id);
+    const [bundle] = await db
+      .select({ sha256: bundles.sha256 })
+      .from(bundles)
+      .where(eq(bundles.id, replay.bundleId));
+    if (!bundle) throw new AppError('not_found', `No bundle with id ${replay.bundleId}.`);
+    const dir = await rebuilder.ensureFiles({
+      id,
+      bundlePath: evidence.pathFor(bundle.sha256),
+      overrides: replay.overrides,
+      digest: replay.digest,
+    });
+    return { replay, dir };
+  }
+
   async function seriesFile(id: string): Promise<string> {
-    await requireDone(id);
-    return path.join(replayDir(derivedDir, id), 'series.json');
+    return path.join((await requireResultFiles(id)).dir, 'series.json');
   }
 
   async function stepAt(id: string, step: number) {
-    const replay = await requireDone(id);
+    const { replay, dir } = await requireResultFiles(id);
     if (step >= (replay.steps ?? 0)) {
       throw new AppError(
         'not_found',
         `Replay ${id} has steps 0 to ${(replay.steps ?? 1) - 1}; step ${step} does not exist.`,
       );
     }
-    return steps.stepAt(id, replay.bundleId, replayDir(derivedDir, id), step);
+    return steps.stepAt(id, replay.bundleId, dir, step);
   }
 
   async function disagreementFile(id: string): Promise<string> {
-    await requireDone(id);
-    return path.join(replayDir(derivedDir, id), 'disagreement.bin');
+    return path.join((await requireResultFiles(id)).dir, 'disagreement.bin');
   }
 
   return {
