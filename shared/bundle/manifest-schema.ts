@@ -31,6 +31,14 @@ const ZRobot = z.strictObject({
   max_speed: positive.describe('m/s'),
   max_decel: positive.describe('m/s^2'),
   reaction_time: nonNegative.describe('s'),
+  protective_device: z
+    .strictObject({
+      name: z.string().min(1),
+      detection_capability: positive.describe('mm, d: smallest object the device is sure to detect'),
+      response_time: nonNegative.describe('s, detection to output off'),
+    })
+    .describe('A fixed protective device, for the ISO 13855 minimum distance')
+    .optional(),
 });
 
 export const ZScanConfig = z.strictObject({
