@@ -120,13 +120,15 @@ describe('footprint-to-points clearance and free travel', () => {
               by = footprint.radius * Math.sin(2 * Math.PI * u);
             } else {
               const perimeter = 2 * (footprint.length + footprint.width);
-              let along = u * perimeter;
+              const along = u * perimeter;
               const hl = footprint.length / 2;
               const hw = footprint.width / 2;
+              const afterFirst = along - footprint.length;
+              const afterSecond = afterFirst - footprint.width;
               if (along < footprint.length) [bx, by] = [-hl + along, -hw];
-              else if ((along -= footprint.length) < footprint.width) [bx, by] = [hl, -hw + along];
-              else if ((along -= footprint.width) < footprint.length) [bx, by] = [hl - along, hw];
-              else [bx, by] = [-hl, hw - (along - footprint.length)];
+              else if (afterFirst < footprint.width) [bx, by] = [hl, -hw + afterFirst];
+              else if (afterSecond < footprint.length) [bx, by] = [hl - afterSecond, hw];
+              else [bx, by] = [-hl, hw - (afterSecond - footprint.length)];
             }
             brute = Math.min(brute, Math.hypot(px - bx, py - by));
           }
