@@ -12,6 +12,11 @@ const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandMod
     summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)',
     load: () => import('./commands/check'),
   },
+  import: {
+    summary:
+      'import SOURCE [options] --out BUNDLE.zip  read a robot recording (.mcap, .bag, .db3, rosbag2 folder) into a bundle',
+    load: () => import('./commands/import'),
+  },
   replay: {
     summary: 'replay PATH [options]          re-run the particle filter over a bundle',
     load: () => import('./commands/replay'),
