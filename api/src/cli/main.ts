@@ -3,6 +3,8 @@
  * Exit codes: 0 success, 2 invalid input (bad bundle, bad option, failed verification), 1 internal failure.
  * Each command lives in its own module under ./commands and is loaded only when asked for.
  */
+import { installPlainWords } from '../../../shared/contracts/plain-words';
+
 type CommandModule = { run(args: string[]): Promise<number> };
 
 const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
@@ -26,6 +28,7 @@ function printUsage(): void {
 }
 
 async function main(argv: string[]): Promise<number> {
+  installPlainWords(); // the same sentences as the API and the web app
   const [name, ...rest] = argv;
   if (!name || name === '--help' || name === '-h') {
     printUsage();
