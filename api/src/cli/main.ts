@@ -5,6 +5,8 @@
  * to a trusted key, or replay digests from an older engine).
  * Each command lives in its own module under ./commands and is loaded only when asked for.
  */
+import { installPlainWords } from '../../../shared/contracts/plain-words';
+
 type CommandModule = { run(args: string[]): Promise<number> };
 
 const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
@@ -34,6 +36,7 @@ function printUsage(): void {
 }
 
 async function main(argv: string[]): Promise<number> {
+  installPlainWords(); // the same sentences as the API and the web app
   const [name, ...rest] = argv;
   if (!name || name === '--help' || name === '-h') {
     printUsage();
