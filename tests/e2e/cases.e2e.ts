@@ -34,7 +34,7 @@ describe('cases', () => {
 
     await page.getByRole('heading', { name: title }).waitFor();
     await saveScreenshot(page, 'case-detail');
-    const facts = page.locator('#case-facts');
+    const facts = page.getByRole('region', { name: 'Incident' });
     expect(await facts.innerText()).toContain('14 Mar 2026, 09:12 CET');
     expect(await facts.innerText()).toContain('14 Mar 2026, 08:12:00 UTC');
     expect(await facts.locator('time').first().getAttribute('datetime')).toBe('2026-03-14T08:12:00.000Z');
