@@ -21,6 +21,16 @@ export interface RobotInfo {
   max_decel: number;
   /** s */
   reaction_time: number;
+  /** A fixed protective device (e.g. a safety laser scanner field), for the ISO 13855 minimum distance. */
+  protective_device?: ProtectiveDevice;
+}
+
+export interface ProtectiveDevice {
+  name: string;
+  /** mm, d: the smallest object the device is sure to detect */
+  detection_capability: number;
+  /** s: from detection to the device's output switching off */
+  response_time: number;
 }
 
 export interface ScanConfig {

@@ -13,13 +13,16 @@ import {
 import { DIGEST_LAYOUT, ENGINE_VERSION, type EngineStamp, replayBundle } from '../../../shared/engine';
 import type { ReplaySettings } from '../../../shared/engine/settings';
 import { hashFile } from '../bundles/sha256-file';
+import { DEFAULT_ZIP_LIMITS, type ZipLimits } from '../bundles/zip-limits';
 import { loadBundleForReplay } from '../replays/replay-bundle-file';
 import { verifyDetached } from '../services/signing/detached-jws';
-import { type ReadArchive, readArchiveEntries } from './read-archive-entries';
+import { ArchiveRefusedError, type ReadArchive, readArchiveEntries } from './read-archive-entries';
 
 export interface VerifyOptions {
   /** Skip re-running replays (fast structural check only); the report says so. */
   skipReplays?: boolean;
+  /** Unpacking limits; the bundle reader's by default (the server passes MAX_UNPACKED_BYTES). */
+  zipLimits?: Partial<ZipLimits>;
 }
 
 type Check = (
@@ -168,8 +171,13 @@ export async function verifyArchive(
   try {
     let read: ReadArchive;
     try {
-      read = await readArchiveEntries(zipPath, tempDir);
+      read = await readArchiveEntries(zipPath, tempDir, { ...DEFAULT_ZIP_LIMITS, ...options.zipLimits });
     } catch (error) {
+      if (error instanceof ArchiveRefusedError) {
+        for (const problem of error.problems)
+          check('file', false, problem.file, `${problem.file}: ${problem.message}`);
+        return { ok: false, archiveSha256, checks };
+      }
       check('file', false, null, `the file is not a readable zip archive (${(error as Error).message})`);
       return { ok: false, archiveSha256, checks };
     }

@@ -57,6 +57,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const replays = createReplaysService({
     ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },
     pool: replayWorkers,
+    maxRunningPerUser: config.maxRunningReplaysPerUser,
     loadBundle: bundles.parsedBundle,
   });
 

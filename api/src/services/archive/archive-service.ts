@@ -137,7 +137,7 @@ export function createArchiveService(deps: {
    */
   async function verifyUploadedArchive(file: string, actor: ArchiveExporter): Promise<TArchiveVerification> {
     try {
-      const verification = await verifyArchive(file);
+      const verification = await verifyArchive(file, { zipLimits: { maxTotalBytes: deps.maxUnpackedBytes } });
       await deps.audit.appendAlone({
         actor,
         action: 'archive.verify',
