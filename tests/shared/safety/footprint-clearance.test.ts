@@ -119,14 +119,15 @@ describe('footprint-to-points clearance and free travel', () => {
               bx = footprint.radius * Math.cos(2 * Math.PI * u);
               by = footprint.radius * Math.sin(2 * Math.PI * u);
             } else {
-              const perimeter = 2 * (footprint.length + footprint.width);
-              let along = u * perimeter;
-              const hl = footprint.length / 2;
-              const hw = footprint.width / 2;
-              if (along < footprint.length) [bx, by] = [-hl + along, -hw];
-              else if ((along -= footprint.length) < footprint.width) [bx, by] = [hl, -hw + along];
-              else if ((along -= footprint.width) < footprint.length) [bx, by] = [hl - along, hw];
-              else [bx, by] = [-hl, hw - (along - footprint.length)];
+              const L = footprint.length;
+              const W = footprint.width;
+              const along = u * 2 * (L + W);
+              const hl = L / 2;
+              const hw = W / 2;
+              if (along < L) [bx, by] = [-hl + along, -hw];
+              else if (along < L + W) [bx, by] = [hl, -hw + (along - L)];
+              else if (along < 2 * L + W) [bx, by] = [hl - (along - L - W), hw];
+              else [bx, by] = [-hl, hw - (along - 2 * L - W)];
             }
             brute = Math.min(brute, Math.hypot(px - bx, py - by));
           }
