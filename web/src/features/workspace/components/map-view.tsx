@@ -13,6 +13,7 @@ import {
   drawParticles,
   drawPose,
   drawScanEndpoints,
+  type Frame,
   gridImage,
   SERIES_COLOURS,
 } from '../lib/map-drawing';
@@ -35,6 +36,8 @@ export interface MapViewProps {
   initialView?: MapViewState;
   /** Told whenever the view changes, so the moment can be pinned with it. */
   onViewChange?: (view: MapViewState) => void;
+  /** Drawn last on every frame (e.g. the separation and stopping overlay). */
+  drawOverlay?: (frame: Frame) => void;
 }
 
 /** Canvas view of the map with the replay's belief, the onboard and reference poses at the cursor. */
@@ -48,6 +51,7 @@ export function MapView({
   height = 420,
   initialView,
   onViewChange,
+  drawOverlay,
 }: MapViewProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const canvasRef = useRef<HTMLCanvasElement>(null);
@@ -158,6 +162,7 @@ export function MapView({
       }
       if (reference) drawPose(f, reference.x, reference.y, reference.theta, SERIES_COLOURS.reference, 4);
       if (onboard) drawPose(f, onboard.x, onboard.y, onboard.theta, SERIES_COLOURS.onboard, 4);
+      drawOverlay?.(f);
       canvas.dataset.drawnStep = String(particles?.step ?? -1);
       setDrawnCount(count);
       // Frame timestamps for the scrub benchmark (performance timeline).
@@ -169,7 +174,7 @@ export function MapView({
         drawRef.current?.();
       });
     }
-  }, [view, width, height, background, map, particles, onboard, reference]);
+  }, [view, width, height, background, map, particles, onboard, reference, drawOverlay]);
 
   const bar = view ? scaleBarLength(view.pxPerMetre) : null;
   const hovered = hover && particles && hover.index >= 0 ? hover : null;

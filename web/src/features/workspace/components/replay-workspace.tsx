@@ -1,12 +1,16 @@
 import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
 import { type ReactNode, useCallback, useMemo, useState } from 'react';
+import { useReplaySafety } from '../api/get-replay-safety';
 import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
+import { useSafetyOverlay } from '../hooks/use-safety-overlay';
+import { useSafetyTrackSpecs } from '../hooks/use-safety-track-specs';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
+import { SafetyPanel } from './safety-panel';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
 import { Timeline } from './timeline';
@@ -49,6 +53,9 @@ export function ReplayWorkspace({
   const current = step ?? initialStep ?? 0;
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
+  const safety = useReplaySafety(replay.id);
+  const safetyTracks = useSafetyTrackSpecs(safety.data);
+  const drawOverlay = useSafetyOverlay(safety.data, data.map?.footprint, data.tracks, data.series, current);
   const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
   const moments = useMemo(
     () => [...replay.flags.map((f) => f.start), ...(data.tracks?.events.map((e) => e.t) ?? [])],
@@ -84,6 +91,7 @@ export function ReplayWorkspace({
           time={time}
           initialView={initialView}
           onViewChange={setMapView}
+          drawOverlay={drawOverlay}
         />
         {particles.isError && (
           <p className="text-sm text-state-bad">Particles at this step: {particles.error.message}</p>
@@ -92,7 +100,9 @@ export function ReplayWorkspace({
           <Timeline
             series={data.series}
             tracks={data.tracks}
-            clearance={data.clearance}
+            // The analysis's clearance (map and scans) replaces the older map-only track.
+            clearance={safety.data ? undefined : data.clearance}
+            extraTracks={safetyTracks}
             flags={replay.flags}
             step={current}
             onSeek={setStep}
@@ -109,6 +119,13 @@ export function ReplayWorkspace({
               id: 'flags',
               label: `Flags (${replay.flags.length})`,
               content: <FlagsPanel flags={replay.flags} onOpen={seekTime} />,
+            },
+            {
+              id: 'safety',
+              label: 'Separation and stopping',
+              content: (
+                <SafetyPanel safety={safety.isError ? null : safety.data} step={current} onOpen={seekTime} />
+              ),
             },
             ...(extraTabs?.(moment, seekTime) ?? []),
           ]}

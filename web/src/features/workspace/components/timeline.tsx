@@ -3,7 +3,7 @@ import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/repla
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
-import { useTrackSpecs } from '../hooks/use-track-specs';
+import { type TrackSpec, useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { TimelineMarkers } from './timeline-markers';
@@ -23,6 +23,8 @@ export interface TimelineProps {
   onSeek: (step: number) => void;
   /** Accessible name, to tell two timelines apart on the comparison page. */
   label?: string;
+  /** Tracks added below the replay's own (e.g. the separation and stopping analysis). */
+  extraTracks?: TrackSpec[];
 }
 
 const formatValue = (v: number) =>
@@ -37,6 +39,7 @@ export function Timeline({
   step,
   onSeek,
   label = 'Replay timeline',
+  extraTracks,
 }: TimelineProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const axisRef = useRef<SVGGElement>(null);
@@ -46,7 +49,11 @@ export function Timeline({
   const [domain, setDomain] = useState<TimeDomain>(full);
   const [hovered, setHovered] = useState<TReplayFlag | null>(null);
   useEffect(() => setDomain(full), [full]);
-  const specs = useTrackSpecs(series, tracks, clearance);
+  const ownSpecs = useTrackSpecs(series, tracks, clearance);
+  const specs = useMemo(
+    () => (extraTracks?.length ? [...ownSpecs, ...extraTracks] : ownSpecs),
+    [ownSpecs, extraTracks],
+  );
   const plotWidth = Math.max(50, width - LEFT - RIGHT);
   const scale = useMemo(() => createTimeScale(domain, LEFT, LEFT + plotWidth), [domain, plotWidth]);
   const tracksTop = BAND_HEIGHT + 24;

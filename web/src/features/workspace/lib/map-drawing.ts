@@ -49,7 +49,7 @@ export function gridImage(rows: string[], width: number, heat?: Uint32Array): Im
 }
 
 type Context = CanvasRenderingContext2D;
-interface Frame {
+export interface Frame {
   ctx: Context;
   view: MapViewport;
   width: number;
