@@ -36,6 +36,7 @@ const ZEnvironment = z.object({
     .int()
     .min(300)
     .default(12 * 3600),
+  MAX_RUNNING_REPLAYS_PER_USER: z.coerce.number().int().min(1).default(3),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   PUBLIC_URL: z.string().url().optional(),
   NODE_ENV: z.string().default('production'),
@@ -54,6 +55,8 @@ export interface AppConfig {
   maxUnpackedBytes: number;
   sessionTtlSeconds: number;
   sessionMaxAgeSeconds: number;
+  /** Replays one user may have queued or running at once; more are refused with 429. */
+  maxRunningReplaysPerUser: number;
   logLevel: string;
   publicUrl: string;
   /** Cookies get `Secure` only behind HTTPS, so local http use keeps working. */
@@ -81,6 +84,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     maxUnpackedBytes: e.MAX_UNPACKED_BYTES,
     sessionTtlSeconds: e.SESSION_TTL_SECONDS,
     sessionMaxAgeSeconds: e.SESSION_MAX_AGE_SECONDS,
+    maxRunningReplaysPerUser: e.MAX_RUNNING_REPLAYS_PER_USER,
     logLevel: e.LOG_LEVEL,
     publicUrl,
     secureCookies: publicUrl.startsWith('https://'),

@@ -119,15 +119,16 @@ describe('footprint-to-points clearance and free travel', () => {
               bx = footprint.radius * Math.cos(2 * Math.PI * u);
               by = footprint.radius * Math.sin(2 * Math.PI * u);
             } else {
-              const L = footprint.length;
-              const W = footprint.width;
-              const along = u * 2 * (L + W);
-              const hl = L / 2;
-              const hw = W / 2;
-              if (along < L) [bx, by] = [-hl + along, -hw];
-              else if (along < L + W) [bx, by] = [hl, -hw + (along - L)];
-              else if (along < 2 * L + W) [bx, by] = [hl - (along - L - W), hw];
-              else [bx, by] = [-hl, hw - (along - 2 * L - W)];
+              const perimeter = 2 * (footprint.length + footprint.width);
+              const along = u * perimeter;
+              const hl = footprint.length / 2;
+              const hw = footprint.width / 2;
+              const afterFirst = along - footprint.length;
+              const afterSecond = afterFirst - footprint.width;
+              if (along < footprint.length) [bx, by] = [-hl + along, -hw];
+              else if (afterFirst < footprint.width) [bx, by] = [hl, -hw + afterFirst];
+              else if (afterSecond < footprint.length) [bx, by] = [hl - afterSecond, hw];
+              else [bx, by] = [-hl, hw - (afterSecond - footprint.length)];
             }
             brute = Math.min(brute, Math.hypot(px - bx, py - by));
           }

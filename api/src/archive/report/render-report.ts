@@ -12,6 +12,8 @@ export interface ReportInput {
   bundles: ReadonlyMap<string, Bundle | null>;
   productVersion: string;
   safetyCaution: string;
+  /** RFC 7638 thumbprint of the key that signs this archive's manifest. */
+  signingKeyThumbprint: string;
 }
 
 const row = (label: string, value: string) => `<tr><th>${escapeHtml(label)}</th><td>${value}</td></tr>`;
@@ -103,7 +105,8 @@ export function renderReport(input: ReportInput): string {
 <section><h2>Findings</h2>${findingsSection(evidence)}</section>
 <section><h2>Fixes and verification</h2>${fixesSection(evidence)}</section>
 <section><h2>Custody</h2>${custodySection(evidence)}</section>
-<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip</code> checks every file against manifest.json, the signatures, the audit chain, and re-runs every replay from the included original bundle.</p></footer>
+<section><h2>Signing key</h2><p>This archive is signed with the key whose RFC 7638 thumbprint is <code class="thumbprint">${escapeHtml(input.signingKeyThumbprint)}</code>. Compare it with the thumbprint your site publishes outside Driftcase: a key found only inside the archive proves nothing, since whoever edits an archive can replace it.</p></section>
+<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip --trusted-thumbprint ${escapeHtml(input.signingKeyThumbprint)}</code> checks every file against manifest.json, the signatures against that trusted key, the audit chain and its checkpoints, and re-runs every replay from the included original bundle.</p></footer>
 </body></html>
 `;
 }
