@@ -19,7 +19,14 @@ export const bundleValidationPath = (sha256: string) => `bundles/${sha256}/valid
 
 export const replayFilePath = (
   replayId: string,
-  file: 'replay.json' | 'settings.json' | 'digest' | 'series.csv' | 'flags.json' | 'metrics.json',
+  file:
+    | 'replay.json'
+    | 'settings.json'
+    | 'digest'
+    | 'series.csv'
+    | 'flags.json'
+    | 'metrics.json'
+    | 'safety.json',
 ) => `replays/${replayId}/${file}`;
 
 export const findingsVersionPath = (version: number, file: 'version.json' | 'canonical.json') =>

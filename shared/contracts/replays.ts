@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ZReplayOverrides } from '../engine/settings';
+import type { SafetyReport } from '../safety/safety-report';
 import { safeText } from './safe-text';
 
 export { ZReplayOverrides };
@@ -55,6 +56,11 @@ export const ZReplay = z.object({
   elapsedMs: z.number().nullable(),
   metrics: ZReplayMetrics.nullable(),
   flags: z.array(ZReplayFlag),
+  /**
+   * Separation and stopping analysis (docs/safety-analysis.md): on `GET /api/replays/:id` of a
+   * finished replay; null when the replay has none; absent from lists.
+   */
+  safety: z.custom<SafetyReport>().nullable().optional(),
   error: z.string().nullable(),
   progress: z.object({ step: z.number(), steps: z.number() }).nullable(),
   createdBy: z.object({ id: z.string(), name: z.string() }),

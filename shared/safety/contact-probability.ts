@@ -9,7 +9,11 @@ import type { ParticleState } from '../engine/particle-state';
 import { footprintHitsGrid, type ObstacleField } from './grid-clearance';
 
 /** Weighted share (0..1) of the particle set whose footprint touches an occupied cell. */
-export function gridContactShare(field: ObstacleField, footprint: Footprint, state: ParticleState): number {
+export function gridContactShare(
+  field: ObstacleField,
+  footprint: Footprint,
+  state: Readonly<ParticleState>,
+): number {
   let hit = 0;
   let total = 0;
   for (let p = 0; p < state.count; p++) {
@@ -32,7 +36,7 @@ export function createContactCollector(
   const share = new Float64Array(steps).fill(Number.NaN);
   return {
     share,
-    observe(state: ParticleState, step: number): void {
+    observe(state: Readonly<ParticleState>, step: number): void {
       if (field && step >= 0 && step < steps) share[step] = gridContactShare(field, footprint, state);
     },
   };

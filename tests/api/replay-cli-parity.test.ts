@@ -42,6 +42,18 @@ describe('one engine, one digest', () => {
     expect(replay.status).toBe('done');
     expect(replay.digest).toBe(first.digest);
     expect(replay.flags.map((f) => f.kind)).toEqual(first.flags.map((f: { kind: string }) => f.kind));
+    // The separation and stopping analysis: the same numbers from the CLI and from the API.
+    const single = await request(bed.t.app).get(`/api/replays/${replay.id}`).set(auth).expect(200);
+    const safety = single.body.safety;
+    expect(safety).toEqual(first.safety);
+    expect(Object.keys(safety.min_clearance).sort()).toEqual(['basis', 't', 'to', 'value']);
+    expect(safety.series.stopping_margin).toHaveLength(replay.steps as number);
+    expect(safety.caution).toMatch(/licensed safety professionals/);
+    // The slip's protective stop (sample-logs/wheel-slip/events.csv, 23.0 s) ended short of contact.
+    const stop = safety.events.find((e: { kind: string }) => e.kind === 'protective_stop');
+    expect(stop).toMatchObject({ t: 23, suggested_class: 'near_miss' });
+    for (const key of ['speed', 'clearance', 'stopping_distance', 'margin', 'margin_negative_since'])
+      expect(stop).toHaveProperty(key);
     // The wheel slip (18 s to 22 s, sample-logs/catalog.json) is flagged by the API replay too.
     expect(
       replay.flags.some((f) => f.kind === 'odometry_disagrees_with_scans' && f.start <= 21 && f.end >= 18),

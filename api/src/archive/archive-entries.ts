@@ -30,7 +30,7 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
     const { tables: _derivedTables, ...validation } = record;
     entries.push(json(layout.bundleValidationPath(record.sha256), validation));
   }
-  for (const { replay, bundleSha256, result, series } of evidence.replays) {
+  for (const { replay, bundleSha256, result, series, safety } of evidence.replays) {
     const file = (name: Parameters<typeof layout.replayFilePath>[1]) =>
       layout.replayFilePath(replay.id, name);
     entries.push(
@@ -54,6 +54,8 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
       json(file('flags.json'), result.flags),
       json(file('metrics.json'), { ...result.metrics, neesBound: result.neesBound }),
     );
+    // The separation and stopping analysis, caution included, exactly as the API served it.
+    if (safety) entries.push(json(file('safety.json'), safety));
   }
   for (const version of evidence.findings) {
     const { canonical, reviews, ...rest } = version;

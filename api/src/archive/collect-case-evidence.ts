@@ -7,8 +7,9 @@ import type { TFindingsVersion } from '../../../shared/contracts/findings';
 import type { TFix } from '../../../shared/contracts/fixes';
 import type { TJwkSet } from '../../../shared/contracts/keys';
 import type { TReplay } from '../../../shared/contracts/replays';
+import type { SafetyReport } from '../../../shared/safety/safety-report';
 import type { ReplayResultFile } from '../replays/replay-files';
-import { readReplayResultFile, replayDir } from '../replays/replay-files';
+import { readReplayResultFile, readSafety, replayDir } from '../replays/replay-files';
 
 /**
  * Bookmarks and saved queries of a case, when the workspace services exist. Kept as an optional
@@ -30,6 +31,8 @@ export interface CaseEvidence {
     bundleSha256: string;
     result: ReplayResultFile;
     series: Record<string, (number | null)[]>;
+    /** Separation and stopping analysis; null for replays made before it existed. */
+    safety: SafetyReport | null;
   }[];
   findings: TFindingsVersion[];
   fixes: TFix[];
@@ -70,7 +73,13 @@ export async function collectCaseEvidence(
       // A result folder lost from derived data is skipped; the replay can be run again.
       if (!fs.existsSync(path.join(dir, 'result.json'))) continue;
       const series = JSON.parse(fs.readFileSync(path.join(dir, 'series.json'), 'utf8'));
-      replays.push({ replay, bundleSha256: record.sha256, result: readReplayResultFile(dir), series });
+      replays.push({
+        replay,
+        bundleSha256: record.sha256,
+        result: readReplayResultFile(dir),
+        series,
+        safety: readSafety(dir),
+      });
     }
   }
   const versions = await sources.listFindingsVersions(caseId);

@@ -6,13 +6,15 @@ import type { ReplayResult } from '../../../shared/engine/filter';
 import type { Keyframe } from '../../../shared/engine/particle-state';
 import type { ReplaySeries } from '../../../shared/engine/replay-series';
 import type { ReplaySettings } from '../../../shared/engine/settings';
+import type { SafetyReport } from '../../../shared/safety/safety-report';
 
 /**
  * On-disk layout of one finished replay under `DATA_DIR/derived/replays/<id>/`:
  * - `result.json`: settings, digest, metrics, flags, keyframe index;
  * - `series.json`: one array per diagnostic (null for NaN), as served to the timeline;
  * - `keyframes.bin`: for each keyframe, float64 x[count], y[count], theta[count], logWeight[count];
- * - `disagreement.bin`: uint32 per map cell (row 0 northmost).
+ * - `disagreement.bin`: uint32 per map cell (row 0 northmost);
+ * - `safety.json`: the separation and stopping analysis (shared/safety), absent for older replays.
  * Files are written to a temporary name and renamed, so a crash never leaves a half result.
  */
 export interface ReplayResultFile {
@@ -51,7 +53,13 @@ export function seriesToColumns(series: ReplaySeries): Record<string, (number | 
 export function writeReplayFiles(
   dir: string,
   result: ReplayResult,
-  extra: { elapsedMs: number; flags: TReplayFlag[]; divergedAt: number | null; engine: EngineStamp },
+  extra: {
+    elapsedMs: number;
+    flags: TReplayFlag[];
+    divergedAt: number | null;
+    engine: EngineStamp;
+    safety?: SafetyReport;
+  },
 ): ReplayResultFile {
   fs.mkdirSync(dir, { recursive: true });
   const keyframeIndex: ReplayResultFile['keyframes'] = [];
@@ -86,6 +94,7 @@ export function writeReplayFiles(
   writeAtomically(path.join(dir, 'keyframes.bin'), new Uint8Array(packed.buffer));
   writeAtomically(path.join(dir, 'disagreement.bin'), new Uint8Array(result.disagreementCounts.buffer));
   writeAtomically(path.join(dir, 'series.json'), JSON.stringify(seriesToColumns(result.series)));
+  if (extra.safety) writeAtomically(path.join(dir, 'safety.json'), JSON.stringify(extra.safety));
   // Written last: its presence marks a complete result.
   writeAtomically(path.join(dir, 'result.json'), JSON.stringify(file));
   return file;
@@ -117,4 +126,13 @@ export function readKeyframes(dir: string, index: ReplayResultFile['keyframes'])
 export function readDisagreement(dir: string): Uint32Array {
   const bytes = fs.readFileSync(path.join(dir, 'disagreement.bin'));
   return new Uint32Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
+}
+
+/** The replay's separation and stopping analysis, or null when it has none (made before it existed). */
+export function readSafety(dir: string): SafetyReport | null {
+  try {
+    return JSON.parse(fs.readFileSync(path.join(dir, 'safety.json'), 'utf8')) as SafetyReport;
+  } catch {
+    return null;
+  }
 }

@@ -4,6 +4,7 @@ import { replayBundle } from '../../../shared/engine';
 import { adoptSplit, finishSplit, type SplitBuffers } from '../../../shared/engine/particle-split';
 import { buildReplayContext } from '../../../shared/engine/replay-context';
 import type { TReplayOverrides } from '../../../shared/engine/settings';
+import { createSafetyObserver } from '../../../shared/safety/safety-observer';
 import { analyseReplay } from './analyse-replay';
 import { loadBundleForReplay, settingsFor } from './replay-bundle-file';
 import { type ReplayResultFile, writeReplayFiles } from './replay-files';
@@ -55,6 +56,7 @@ async function runReplayTask(task: ReplayTask): Promise<ReplayResultFile> {
     const split = task.split;
     // The shared arrays were sized from the service's settings; use them only if they fit these.
     const canSplit = split !== undefined && split.arrays[0].byteLength >= 8 * context.capacity;
+    const safety = createSafetyObserver(bundle);
     const result = replayBundle(
       bundle,
       {},
@@ -63,6 +65,7 @@ async function runReplayTask(task: ReplayTask): Promise<ReplayResultFile> {
         context,
         adopt: canSplit ? adoptSplit(context, split) : undefined,
         keyframeInterval: KEYFRAME_INTERVAL,
+        onStepState: safety.onStepState,
         onStep: ({ step, steps }) => {
           if (step >= nextReport || step === steps - 1) {
             task.port.postMessage({ type: 'progress', step: step + 1, steps });
@@ -78,7 +81,12 @@ async function runReplayTask(task: ReplayTask): Promise<ReplayResultFile> {
       result,
       context,
     );
-    return writeReplayFiles(task.outDir, result, { elapsedMs, ...analysis, engine: nodeEngineStamp() });
+    return writeReplayFiles(task.outDir, result, {
+      elapsedMs,
+      ...analysis,
+      safety: safety.finish(result.series),
+      engine: nodeEngineStamp(),
+    });
   } finally {
     if (task.split) finishSplit(task.split);
     task.port.close();

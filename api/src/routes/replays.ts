@@ -46,7 +46,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        res.json(await replays.getReplay(id));
+        res.json(await replays.getReplayWithSafety(id));
       },
     },
     {

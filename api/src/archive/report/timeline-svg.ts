@@ -8,6 +8,8 @@ export interface TimelineInput {
   yLabel: string;
   flags: readonly { start: number; end: number; kind: string }[];
   events: readonly { t: number; kind: string }[];
+  /** Upper end of the value axis at most this (values above are drawn at the top). */
+  yCap?: number;
 }
 
 const WIDTH = 720;
@@ -31,11 +33,13 @@ export function renderTimelineSvg(input: TimelineInput): string {
   const all = input.lines.flatMap((line) =>
     line.values.filter((v): v is number => v !== null && Number.isFinite(v)),
   );
-  const yMax = Math.max(1e-9, ...all) * 1.05;
+  const yMax = Math.min(input.yCap ?? Number.POSITIVE_INFINITY, Math.max(1e-9, ...all) * 1.05);
+  // Values below zero (a negative stopping margin) get room under a zero line.
+  const yMin = Math.min(0, ...all) * 1.05;
   const plotW = WIDTH - PAD.left - PAD.right;
   const plotH = HEIGHT - PAD.top - PAD.bottom;
   const x = (t: number) => PAD.left + ((t - t0) / (t1 - t0)) * plotW;
-  const y = (v: number) => PAD.top + plotH - (v / yMax) * plotH;
+  const y = (v: number) => PAD.top + plotH - ((Math.min(v, yMax) - yMin) / (yMax - yMin)) * plotH;
   const parts: string[] = [];
   for (const flag of input.flags) {
     const x0 = x(Math.max(t0, flag.start));
@@ -71,7 +75,13 @@ export function renderTimelineSvg(input: TimelineInput): string {
     `<line x1="${PAD.left}" y1="${PAD.top + plotH}" x2="${WIDTH - PAD.right}" y2="${PAD.top + plotH}" stroke="#52606d"/>`,
     `<line x1="${PAD.left}" y1="${PAD.top}" x2="${PAD.left}" y2="${PAD.top + plotH}" stroke="#52606d"/>`,
     `<text x="${PAD.left - 6}" y="${PAD.top + 4}" text-anchor="end" font-size="11">${formatNumber(yMax, 2)}</text>`,
-    `<text x="${PAD.left - 6}" y="${PAD.top + plotH}" text-anchor="end" font-size="11">0</text>`,
+    `<text x="${PAD.left - 6}" y="${PAD.top + plotH}" text-anchor="end" font-size="11">${yMin < 0 ? formatNumber(yMin, 2) : '0'}</text>`,
+    ...(yMin < 0
+      ? [
+          `<line x1="${PAD.left}" y1="${y(0).toFixed(1)}" x2="${WIDTH - PAD.right}" y2="${y(0).toFixed(1)}" stroke="#52606d" stroke-dasharray="3 3"/>`,
+          `<text x="${PAD.left - 6}" y="${(y(0) + 4).toFixed(1)}" text-anchor="end" font-size="11">0</text>`,
+        ]
+      : []),
     `<text x="${PAD.left}" y="${HEIGHT - 8}" font-size="11">${formatNumber(t0, 1)} s</text>`,
     `<text x="${WIDTH - PAD.right}" y="${HEIGHT - 8}" text-anchor="end" font-size="11">${formatNumber(t1, 1)} s</text>`,
     `<text x="${PAD.left}" y="14" font-size="12" font-weight="700">${escapeHtml(input.title)} <tspan font-weight="400" fill="#52606d">(${escapeHtml(input.yLabel)})</tspan></text>`,

@@ -1,7 +1,8 @@
 import { stat, writeFile } from 'node:fs/promises';
 import { formatIssue } from '@shared/bundle/format-issue';
-import { ReplayInputError, replayFromFiles } from '@shared/engine';
+import { ReplayInputError, readBundleFiles, replayBundle } from '@shared/engine';
 import { parseReplayOverrides, type TReplayOverrides } from '@shared/engine/settings';
+import { createSafetyObserver } from '@shared/safety/safety-observer';
 import { readBundleSourceFiles } from '../../bundles/read-bundle-files';
 import { analyseReplay } from '../../replays/analyse-replay';
 import { nodeEngineStamp } from '../../replays/runtime';
@@ -130,9 +131,15 @@ export async function run(args: string[]): Promise<number> {
     }
     const split = threads > 1 ? createThreadSplit(threads, source) : undefined;
     const started = performance.now();
-    let result: ReturnType<typeof replayFromFiles>;
+    let result: ReturnType<typeof replayBundle>;
+    let safetyObserver: ReturnType<typeof createSafetyObserver> | undefined;
     try {
-      result = replayFromFiles(read.files, overrides, { adopt: split?.adopt });
+      const bundle = readBundleFiles(read.files);
+      safetyObserver = createSafetyObserver(bundle);
+      result = replayBundle(bundle, overrides, {
+        adopt: split?.adopt,
+        onStepState: safetyObserver.onStepState,
+      });
     } catch (error) {
       if (!(error instanceof ReplayInputError)) throw error;
       for (const problem of error.problems) {
@@ -152,6 +159,8 @@ export async function run(args: string[]): Promise<number> {
     // The same analysis as API replays, so both report the same flags.
     const { flags, divergedAt } = analyseReplay(bundle, result, context);
     const { series, metrics } = result;
+    const safety = safetyObserver ? safetyObserver.finish(series) : null;
+    const minimum = safety?.min_clearance;
     process.stdout.write(
       [
         `Replay of ${path}`,
@@ -159,6 +168,8 @@ export async function run(args: string[]): Promise<number> {
         `Digest: ${result.digest} (engine ${engine.engine}, digest layout ${engine.digestLayout}, ${engine.runtime})`,
         `Elapsed: ${elapsedMs.toFixed(0)} ms on ${threads} thread${threads === 1 ? '' : 's'}`,
         `RMSE vs reference: ${formatMetres(metrics.rmse_reference)}; vs onboard: ${formatMetres(metrics.rmse_onboard)}`,
+        `Minimum clearance: ${minimum ? `${minimum.value.toFixed(3)} m at ${minimum.t.toFixed(1)} s to the ${minimum.to} (${minimum.basis} pose)` : 'n/a'}; safety events: ${safety?.events.map((e) => `${e.kind} ${e.t.toFixed(1)} s suggested ${e.suggested_class}`).join('; ') || 'none'}`,
+        'Caution: engineering estimates from recorded data; formal safety determinations defer to local regulations and licensed safety professionals.',
         `Flags: ${flags.length}${flags.length ? ` (${flags.map((flag) => `${flag.kind} ${flag.start.toFixed(1)}-${flag.end.toFixed(1)} s ${flag.severity}`).join('; ')})` : ''}`,
         '',
       ].join('\n'),
@@ -185,6 +196,7 @@ export async function run(args: string[]): Promise<number> {
           error_onboard: toJsonArray(series.error_onboard),
         },
         flags,
+        safety,
       };
       await writeFile(jsonFile, `${JSON.stringify(output)}\n`);
       process.stdout.write(`Wrote ${jsonFile}\n`);

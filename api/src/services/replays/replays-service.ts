@@ -15,7 +15,7 @@ import { type ReplaySettings, resolveReplaySettings } from '../../../../shared/e
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
-import { replayDir } from '../../replays/replay-files';
+import { readSafety, replayDir } from '../../replays/replay-files';
 import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
@@ -82,6 +82,12 @@ export function createReplaysService({
     const [found] = await selectReplays().where(eq(replays.id, id));
     if (!found) throw new AppError('not_found', `No replay with id ${id}.`);
     return toReplay(found.row, { ...found, progress: live.get(id)?.progress ?? null });
+  }
+
+  /** One replay with its separation and stopping analysis (read from the result files). */
+  async function getReplayWithSafety(id: string): Promise<TReplay> {
+    const replay = await getReplay(id);
+    return { ...replay, safety: replay.status === 'done' ? readSafety(replayDir(derivedDir, id)) : null };
   }
 
   async function listBundleReplays(bundleId: string): Promise<TReplay[]> {
@@ -306,6 +312,7 @@ export function createReplaysService({
   return {
     startReplay,
     getReplay,
+    getReplayWithSafety,
     listBundleReplays,
     cancelReplay,
     subscribe,

@@ -13,6 +13,7 @@ import {
   drawParticles,
   drawPose,
   drawScanEndpoints,
+  type Frame,
   gridImage,
   SERIES_COLOURS,
 } from '../lib/map-drawing';
@@ -39,6 +40,8 @@ export interface MapViewProps {
   initialView?: MapViewState;
   /** Told whenever the view changes, so the moment can be pinned with it. */
   onViewChange?: (view: MapViewState) => void;
+  /** Drawn last on every frame (e.g. the separation and stopping overlay). */
+  drawOverlay?: (frame: Frame) => void;
 }
 
 /** Canvas view of the map with the replay's belief, the onboard and reference poses at the cursor. */
@@ -54,6 +57,7 @@ export const MapView = memo(function MapView({
   height = 420,
   initialView,
   onViewChange,
+  drawOverlay,
 }: MapViewProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const canvasRef = useRef<HTMLCanvasElement>(null);
@@ -178,6 +182,7 @@ export const MapView = memo(function MapView({
       }
       if (reference) drawPose(f, reference.x, reference.y, reference.theta, SERIES_COLOURS.reference, 4);
       if (onboard) drawPose(f, onboard.x, onboard.y, onboard.theta, SERIES_COLOURS.onboard, 4);
+      drawOverlay?.(f);
       canvas.dataset.drawnStep = String(particles?.step ?? -1);
       setDrawnCount(count);
       // Frame timestamps for the scrub benchmark (performance timeline).
@@ -189,7 +194,7 @@ export const MapView = memo(function MapView({
         drawRef.current?.();
       });
     }
-  }, [view, width, height, background, map, particles, onboard, reference]);
+  }, [view, width, height, background, map, particles, onboard, reference, drawOverlay]);
 
   const bar = view ? scaleBarLength(view.pxPerMetre) : null;
   const drawnStep = particles?.step ?? null;

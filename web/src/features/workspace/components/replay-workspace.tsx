@@ -1,13 +1,17 @@
 import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
 import { type ReactNode, useCallback, useDeferredValue, useMemo, useState } from 'react';
+import { useReplaySafety } from '../api/get-replay-safety';
 import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
+import { useSafetyOverlay } from '../hooks/use-safety-overlay';
+import { useSafetyTrackSpecs } from '../hooks/use-safety-track-specs';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
 import { MomentLink } from './moment-link';
+import { SafetyPanel } from './safety-panel';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
 import { Timeline } from './timeline';
@@ -61,6 +65,9 @@ export function ReplayWorkspace({
   const shownStep = useDeferredValue(current);
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
+  const safety = useReplaySafety(replay.id);
+  const safetyTracks = useSafetyTrackSpecs(safety.data);
+  const drawOverlay = useSafetyOverlay(safety.data, data.map?.footprint, data.tracks, data.series, current);
   const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
   const moments = useMemo(
     () => [
@@ -106,6 +113,7 @@ export function ReplayWorkspace({
           targetStep={shownStep}
           initialView={initialView}
           onViewChange={setMapView}
+          drawOverlay={drawOverlay}
         />
         {particles.error && (
           <p className="text-sm text-state-bad">
@@ -116,7 +124,9 @@ export function ReplayWorkspace({
           <Timeline
             series={data.series}
             tracks={data.tracks}
-            clearance={data.clearance}
+            // The analysis's clearance (map and scans) replaces the older map-only track.
+            clearance={safety.data ? undefined : data.clearance}
+            extraTracks={safetyTracks}
             flags={replay.flags}
             step={shownStep}
             onSeek={setStep}
@@ -133,6 +143,13 @@ export function ReplayWorkspace({
               id: 'flags',
               label: `Flags (${replay.flags.length})`,
               content: <FlagsPanel flags={replay.flags} onOpen={seekTime} />,
+            },
+            {
+              id: 'safety',
+              label: 'Separation and stopping',
+              content: (
+                <SafetyPanel safety={safety.isError ? null : safety.data} step={current} onOpen={seekTime} />
+              ),
             },
             ...(extraTabs?.(shownMoment, seekTime) ?? []),
           ]}

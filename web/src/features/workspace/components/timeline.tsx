@@ -4,7 +4,7 @@ import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
-import { useTrackSpecs } from '../hooks/use-track-specs';
+import { type TrackSpec, useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { TimelineMarkers } from './timeline-markers';
@@ -24,6 +24,8 @@ export interface TimelineProps {
   onSeek: (step: number) => void;
   /** Accessible name, to tell two timelines apart on the comparison page. */
   label?: string;
+  /** Tracks added below the replay's own (e.g. the separation and stopping analysis). */
+  extraTracks?: TrackSpec[];
 }
 
 const formatValue = (v: number) =>
@@ -39,6 +41,7 @@ export const Timeline = memo(function Timeline({
   step,
   onSeek,
   label = 'Replay timeline',
+  extraTracks,
 }: TimelineProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const axisRef = useRef<SVGGElement>(null);
@@ -48,7 +51,11 @@ export const Timeline = memo(function Timeline({
   const [domain, setDomain] = useState<TimeDomain>(full);
   const [hovered, setHovered] = useState<TReplayFlag | null>(null);
   useEffect(() => setDomain(full), [full]);
-  const specs = useTrackSpecs(series, tracks, clearance);
+  const ownSpecs = useTrackSpecs(series, tracks, clearance);
+  const specs = useMemo(
+    () => (extraTracks?.length ? [...ownSpecs, ...extraTracks] : ownSpecs),
+    [ownSpecs, extraTracks],
+  );
   const plotWidth = Math.max(50, width - LEFT - RIGHT);
   const scale = useMemo(() => createTimeScale(domain, LEFT, LEFT + plotWidth), [domain, plotWidth]);
   const tracksTop = BAND_HEIGHT + 24;

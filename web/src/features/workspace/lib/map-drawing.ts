@@ -42,7 +42,7 @@ export function heatStrength(count: number, max: number): number {
 }
 
 type Context = CanvasRenderingContext2D;
-interface Frame {
+export interface Frame {
   ctx: Context;
   view: MapViewport;
   width: number;
