@@ -66,4 +66,11 @@ export const HOUR_LOOP_2 = longRun('hour-loop-2', 7404, 3600, [
   { from: [26.0, 17.8], to: [8.0, 17.8], speed: 1.2, size: PERSON },
 ]);
 
-export const LONG_SCENARIOS: readonly ScenarioSpec[] = [TUNING_LOOP, HOUR_LOOP, HOUR_LOOP_2];
+/** Third check, ten minutes, made after hour-loop-2 had been looked at (docs/flags.md). */
+export const CHECK_LOOP_3 = longRun('check-loop-3', 7505, 600, [
+  { from: [19.0, AISLE_3 - 1.0], size: PERSON },
+  { from: [26.0, AISLE_1 + 1.0], size: PERSON },
+  { from: [WEST_LANE - 2.0, 15.0], to: [WEST_LANE - 2.0, 3.5], speed: 1.0, size: PERSON },
+]);
+
+export const LONG_SCENARIOS: readonly ScenarioSpec[] = [TUNING_LOOP, HOUR_LOOP, HOUR_LOOP_2, CHECK_LOOP_3];

@@ -18,8 +18,18 @@ export const COLLAPSE_MIN_STEPS = 3;
 /** Critical: at least this many low steps and minimum ESS below 1 % of N. */
 export const COLLAPSE_CRITICAL_STEPS = 6;
 
-/** Share of an episode's steps whose scan must stay explained (scan-fit.ts) for the episode to be context only. */
+/** Share of an episode's steps, or of the steps in the RECOVERY_WINDOW after it, whose scan must be explained (scan-fit.ts) for the episode to be context only. */
 export const COLLAPSE_EXPLAINED_STEPS = 0.8;
+/** s after an episode in which the scans fitting again shows the set recovered by itself. */
+export const COLLAPSE_RECOVERY_WINDOW = 1;
+
+/** Share of explained steps in [first, last]; NaN when the range is empty. */
+function explainedShare(counts: FreeSpaceEndpointCounts | undefined, first: number, last: number): number {
+  if (last < first) return Number.NaN;
+  let explained = 0;
+  for (let k = first; k <= last; k++) if (isScanExplained(counts, k)) explained++;
+  return explained / (last - first + 1);
+}
 
 /**
  * Flags episodes of repeated belief collapse. `particles` is N before resampling (manifest count
@@ -48,12 +58,14 @@ export function detectBeliefCollapse(
     const { min } = rangeOver(ratio, run);
     const minEss = rangeOver(series.ess, run).min;
     const critical = lowSteps >= COLLAPSE_CRITICAL_STEPS && min < COLLAPSE_ESS_FRACTION / 2;
-    let explained = 0;
-    for (let k = run.first; k <= run.last; k++) if (isScanExplained(counts, k)) explained++;
-    const explainedShare = explained / (run.last - run.first + 1);
-    const isContext = counts !== undefined && explainedShare >= COLLAPSE_EXPLAINED_STEPS;
+    let after = run.last;
+    while (after + 1 < steps && series.t[after + 1] <= series.t[run.last] + COLLAPSE_RECOVERY_WINDOW) after++;
+    const during = explainedShare(counts, run.first, run.last);
+    const recovered = explainedShare(counts, run.last + 1, after);
+    const isContext =
+      counts !== undefined && (during >= COLLAPSE_EXPLAINED_STEPS || recovered >= COLLAPSE_EXPLAINED_STEPS);
     const context = isContext
-      ? ` The scans kept fitting the map at the mean pose (${fixed(explainedShare * 100, 0)} % of steps with at least ${fixed(EXPLAINED_SCAN_SHARE * 100, 0)} % of endpoints explained), so the robot was not lost: more particles or larger motion noise would keep the set healthy here.`
+      ? ` The scans fit the map at the mean pose on ${fixed(during * 100, 0)} % of its steps and ${Number.isFinite(recovered) ? fixed(recovered * 100, 0) : '-'} % of the ${COLLAPSE_RECOVERY_WINDOW} s after it (at least ${fixed(EXPLAINED_SCAN_SHARE * 100, 0)} % of endpoints explained), so the robot was not lost: more particles or larger motion noise would keep the set healthy here.`
       : '';
     flags.push({
       kind: 'belief_collapsed',
