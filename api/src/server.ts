@@ -2,6 +2,7 @@ import path from 'node:path';
 import { pino } from 'pino';
 import { createApp } from './app';
 import { loadConfig, PROJECT_ROOT } from './config';
+import { assertAuditTriggers } from './db/check-audit-triggers';
 import { openDatabase } from './db/client';
 import { seedDemoData } from './seed/seed-demo';
 import { startFakeSmtpServer } from './services/mail/fake-smtp-server';
@@ -16,12 +17,26 @@ async function main() {
       : { kind: 'pglite-dir', dataDir: path.join(config.dataDir, 'pglite') },
   );
   logger.info({ kind: database.kind, dataDir: config.dataDir }, 'database ready');
+  // A dropped or disabled trigger would let rows of the audit trail change without a trace here.
+  await assertAuditTriggers(database.db).catch(async (error: unknown) => {
+    await database.close();
+    throw error;
+  });
   await ensureWebBuild(logger);
 
   // Without SMTP_URL, mail goes to a local fake server whose messages the Outbox page shows.
   const fakeSmtp = config.smtpUrl
     ? undefined
-    : await startFakeSmtpServer({ db: database.db, port: config.smtpFakePort });
+    : await startFakeSmtpServer({
+        db: database.db,
+        port: config.smtpFakePort,
+        onError: (error) => logger.warn({ err: error.message }, 'local fake SMTP server: connection error'),
+      });
+  if (fakeSmtp?.takenPort !== undefined) {
+    logger.warn(
+      `SMTP_FAKE_PORT ${fakeSmtp.takenPort} is taken (another server on this machine?); the local fake SMTP server uses port ${fakeSmtp.port} instead`,
+    );
+  }
   if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server keeps all mail for the Outbox');
   const app = createApp({
     db: database.db,
