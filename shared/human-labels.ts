@@ -96,6 +96,7 @@ export const FLAG_KIND_LABELS: Record<string, string> = {
   belief_split: 'Belief split in two',
   input_gap: 'Gap in the inputs',
   map_out_of_date: 'Map out of date',
+  moving_obstacle: 'Something moving past',
   odometry_disagrees_with_scans: 'Odometry disagrees with scans',
   odometry_jump: 'Odometry jump',
   replay_lost_reference: 'Replay lost the reference',

@@ -27,6 +27,11 @@ export const ZReplayFlag = z.object({
   end: z.number(),
   severity: z.enum(['info', 'warning', 'critical']),
   evidence: z.string(),
+  /** A flag gathered from several intervals (one unmapped object seen on many passes): each interval. */
+  sightings: z.array(z.object({ start: z.number(), end: z.number() })).optional(),
+  /** Map-frame place (m) of what the flag is about, and its size across (m), when known. */
+  location: z.object({ x: z.number(), y: z.number() }).optional(),
+  size: z.number().optional(),
 });
 export type TReplayFlag = z.infer<typeof ZReplayFlag>;
 

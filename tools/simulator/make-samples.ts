@@ -2,6 +2,7 @@ import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { DETECTOR, formatBundle, SCAN_GEOMETRY } from './format-bundle';
+import { LONG_SCENARIOS } from './long-scenarios';
 import { runScenario, type SimulationRecord } from './run-scenario';
 import { HEALTHY_SHIFT, PICKING_LOOP, SAMPLE_SCENARIOS } from './sample-scenarios';
 import type { ScenarioSpec } from './scenario-types';
@@ -68,7 +69,21 @@ export function makeLargeBundle(
   return folder;
 }
 
+/** Writes one of LONG_SCENARIOS (by name) under `dir` (by default sample-logs/large/, ignored by git). */
+export function makeLongBundle(name: string, dir: string = join(SAMPLE_LOGS_DIR, 'large')): string {
+  const spec = LONG_SCENARIOS.find((scenario) => scenario.name === name);
+  if (!spec)
+    throw new Error(`no long scenario "${name}"; known: ${LONG_SCENARIOS.map((s) => s.name).join(', ')}`);
+  const folder = join(dir, spec.name);
+  writeBundle(simulateSample(spec), folder);
+  return folder;
+}
+
 function main(args: string[]): number {
+  if (args.includes('--long')) {
+    console.log(`wrote ${makeLongBundle(args[args.indexOf('--long') + 1] ?? '')}`);
+    return 0;
+  }
   if (args.includes('--large')) {
     const minutesArg = args[args.indexOf('--large') + 1];
     const minutes = minutesArg && /^\d+$/.test(minutesArg) ? Number(minutesArg) : 10;

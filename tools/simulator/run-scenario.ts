@@ -3,6 +3,7 @@ import { simulateDetections } from './landmark-detector';
 import { castScan, HEALTHY_LASER, type ScanGeometry, simulateScan } from './laser-scanner';
 import { corruptIncrement, decomposeIncrement, incrementToPose } from './odometry-noise';
 import { type OnboardCovariance, OnboardLocalizer } from './onboard-localizer';
+import { clearPeople, stampPeople } from './people';
 import { composePose, integrateTwist, normalizeAngle, type Pose } from './pose-math';
 import { createStream } from './random-source';
 import { castRay } from './ray-cast';
@@ -139,6 +140,7 @@ export function runScenario(spec: ScenarioSpec, settings: RunSettings): Simulati
     record.truth.push({ t, ...truth });
     record.odometry.push({ t, ...odometry });
     record.onboard.push({ t, ...onboard.belief, cov: onboard.covariance });
+    const beforePeople = spec.people ? stampPeople(trueWorld.grid, spec.people, t) : undefined;
     const trueRanges = castScan(trueWorld.grid, truth, settings.scan);
     const laserNoise = isActive(spec.degradedLaser, t) ? spec.degradedLaser!.noise : HEALTHY_LASER;
     record.scans.push({ t, ranges: simulateScan(trueRanges, settings.scan, laserNoise, random.laser) });
@@ -158,7 +160,9 @@ export function runScenario(spec: ScenarioSpec, settings: RunSettings): Simulati
         random.detector,
       );
       record.detections.push({ t, detections: found });
-    } else {
+    }
+    if (beforePeople) clearPeople(trueWorld.grid, beforePeople);
+    if (k % 2 !== 0) {
       record.reference.push({
         t,
         x: truth.x + REFERENCE_SIGMA_XY * random.reference.standardNormal(),
@@ -205,7 +209,11 @@ export function runScenario(spec: ScenarioSpec, settings: RunSettings): Simulati
       truth = composePose(truth, { x: 0, y: spec.push.lateral * share, theta: spec.push.rotation * share });
     }
 
-    const measured = corruptIncrement(decomposeIncrement(wheelMotion), TRUE_ODOMETRY_ALPHA, random.odometry);
+    const measured = corruptIncrement(
+      decomposeIncrement(wheelMotion),
+      spec.odometryAlpha ?? TRUE_ODOMETRY_ALPHA,
+      random.odometry,
+    );
     if (isActive(spec.slip, t)) measured.rot2 += spec.slip!.yawRate * STEP_SECONDS;
     const odometryDelta = incrementToPose(measured);
     odometry = composePose(odometry, odometryDelta);

@@ -2,14 +2,14 @@ import type { RobotInfo } from '../../shared/bundle/types';
 import type { ScenarioSpec, Waypoints } from './scenario-types';
 
 /** Aisle centre lines of the invented site (m, map frame); see site-layout.ts. */
-const AISLE_1 = 6.3;
-const AISLE_2 = 10.1;
-const AISLE_3 = 13.9;
-const WEST_LANE = 4.5;
-const EAST_LANE = 28.0;
-const CROSS_AISLE = 17.0;
+export const AISLE_1 = 6.3;
+export const AISLE_2 = 10.1;
+export const AISLE_3 = 13.9;
+export const WEST_LANE = 4.5;
+export const EAST_LANE = 28.0;
+export const CROSS_AISLE = 17.0;
 
-function tugger(id: string): RobotInfo {
+export function tugger(id: string): RobotInfo {
   return {
     id,
     model: 'Saltmarsh Dynamics SM-220 tote tugger',

@@ -1,5 +1,6 @@
 import type { RecoveryConfig, RobotInfo } from '../../shared/bundle/types';
 import type { LaserNoise } from './laser-scanner';
+import type { PersonSpec } from './people';
 import type { Pose } from './pose-math';
 import type { WorldChanges } from './site-layout';
 
@@ -33,6 +34,10 @@ export interface ScenarioSpec {
   start: Pose;
   route: Waypoints;
   world: WorldChanges;
+  /** People the scanner sees but the map does not have (standing or pacing beside the route). */
+  people?: readonly PersonSpec[];
+  /** True odometry noise when it differs from TRUE_ODOMETRY_ALPHA (variance coefficients); the manifest keeps the normal alphas. */
+  odometryAlpha?: readonly [number, number, number, number];
   /** Odometry reports an extra yaw rate (rad/s) the robot never turned: a wheel spinning on a wet patch. */
   slip?: { start: number; end: number; yawRate: number };
   /** An outside force shoves the robot sideways (m, robot frame +y = left) while the wheels see nothing. */

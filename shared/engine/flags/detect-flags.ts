@@ -46,10 +46,10 @@ export function detectFlags(input: FlagInput): ReplayFlag[] {
   const profile = measureEvidenceProfile(series);
   const counts = context ? countFreeSpaceEndpoints(context, series) : undefined;
   const flags = [
-    ...detectBeliefCollapse(series, settings.particles),
-    ...detectSensorEvidenceDrop(series, profile),
+    ...detectBeliefCollapse(series, settings.particles, counts),
+    ...detectSensorEvidenceDrop(series, profile, counts),
     ...detectOdometryScanDisagreement(series, profile, context, counts),
-    ...(counts ? detectMapOutOfDate(series, counts) : []),
+    ...(counts ? detectMapOutOfDate(series, counts, context) : []),
     ...detectOnboardDepartureFromReplay(series, input.neesBound),
     ...detectOnboardDepartureFromReference(bundle),
     ...detectBeliefSplit(series),

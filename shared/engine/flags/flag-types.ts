@@ -18,6 +18,18 @@ export interface ReplayFlag {
   severity: FlagSeverity;
   /** One sentence with the numbers behind the flag. */
   evidence: string;
+  /** For a flag gathered from several intervals (an unmapped object seen on many passes): each of them, in time order. */
+  sightings?: FlagSighting[];
+  /** Where the flagged thing is (map frame, m), when the flag is about a place. */
+  location?: { x: number; y: number };
+  /** Its size across (m), when known. */
+  size?: number;
+}
+
+/** One interval (s since start_time) of a gathered flag. */
+export interface FlagSighting {
+  start: number;
+  end: number;
 }
 
 /** What the detectors read: the finished replay and the bundle it came from. */

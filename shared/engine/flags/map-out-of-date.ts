@@ -3,12 +3,13 @@
  * share of endpoints lands on cells the map says are free and far from any obstacle: something
  * stands where the map has nothing (a moved rack, a parked pallet).
  */
-import { CELL_FREE } from '../../bundle/types';
 import type { ReplayContext } from '../replay-context';
 import type { ReplaySeries } from '../replay-series';
-import { DISAGREEMENT_SIGMAS, scanEndpointsAt } from '../scan-endpoints';
+import { scanEndpointsAt } from '../scan-endpoints';
+import { classifyEndpoint } from './endpoint-class';
 import type { ReplayFlag } from './flag-types';
-import { findSustainedRuns, fixed, runSeconds } from './intervals';
+import { findSustainedRuns, fixed, runSeconds, type StepRun } from './intervals';
+import { describeUnmappedObjects } from './unmapped-objects';
 
 /** Steps with fewer endpoints than this carry too little to judge (sensor problems are flagged elsewhere). */
 export const MAP_MIN_ENDPOINTS = 20;
@@ -51,24 +52,14 @@ export function countFreeSpaceEndpoints(
     sumX: new Float64Array(steps),
     sumY: new Float64Array(steps),
   };
-  const { field } = context;
-  const grid = context.bundle.map.grid;
-  const model = context.settings.scan_model;
-  if (!field || !grid || !model) return counts;
-  const far = DISAGREEMENT_SIGMAS * model.sigma_hit;
+  if (!context.field || !context.bundle.map.grid || !context.settings.scan_model) return counts;
   for (let step = 0; step < steps; step++) {
     const endpoints = scanEndpointsAt(context, series, step);
     counts.total[step] = endpoints.length / 2;
     for (let e = 0; e < endpoints.length; e += 2) {
-      const column = Math.floor((endpoints[e] - field.originX) * field.inverseResolution);
-      const southRow = Math.floor((endpoints[e + 1] - field.originY) * field.inverseResolution);
-      if (column < 0 || column >= field.width || southRow < 0 || southRow >= field.height) continue;
-      const distance = field.distance[southRow * field.width + column];
-      if (distance <= model.sigma_hit) counts.fitting[step]++;
-      else if (
-        distance > far &&
-        grid.cells[(field.height - 1 - southRow) * field.width + column] === CELL_FREE
-      ) {
+      const where = classifyEndpoint(context, endpoints[e], endpoints[e + 1]);
+      if (where === 1) counts.fitting[step]++;
+      else if (where === 2) {
         counts.free[step]++;
         counts.sumX[step] += endpoints[e];
         counts.sumY[step] += endpoints[e + 1];
@@ -78,8 +69,52 @@ export function countFreeSpaceEndpoints(
   return counts;
 }
 
-/** Flags intervals where scans keep showing obstacles the map does not have. */
-export function detectMapOutOfDate(series: ReplaySeries, counts: FreeSpaceEndpointCounts): ReplayFlag[] {
+/** One interval of steps marked by the free-space rule, with its numbers. */
+export interface FreeSpaceRun extends StepRun {
+  /** Peak trailing share of free-space endpoints. */
+  peak: number;
+  /** Free and total endpoints summed over the run's usable steps, and the free ones' coordinate sums (m). */
+  free: number;
+  total: number;
+  sumX: number;
+  sumY: number;
+  /** The old per-interval critical rule: peak >= MAP_CRITICAL_SHARE for at least MAP_CRITICAL_DURATION s. */
+  isStrong: boolean;
+}
+
+/**
+ * Flags scans that keep showing obstacles the map does not have. Without a context each marked
+ * interval is one flag; with one (scans re-projected), intervals are sorted into unmapped objects
+ * and passing movers (unmapped-objects.ts), so one object seen on many passes is one flag.
+ */
+export function detectMapOutOfDate(
+  series: ReplaySeries,
+  counts: FreeSpaceEndpointCounts,
+  context?: ReplayContext,
+): ReplayFlag[] {
+  const { runs, usable } = findFreeSpaceRuns(series, counts);
+  if (context) return describeUnmappedObjects(context, series, usable, runs);
+  return runs.map((run) => {
+    const seconds = runSeconds(series.t, run);
+    const where =
+      run.free > 0 ? `, centred near (${fixed(run.sumX / run.free)}, ${fixed(run.sumY / run.free)}) m` : '';
+    return {
+      kind: 'map_out_of_date',
+      start: series.t[run.first],
+      end: series.t[run.last],
+      severity: run.isStrong ? 'critical' : 'warning',
+      evidence:
+        `For ${fixed(seconds)} s ${fixed((100 * run.free) / Math.max(1, run.total), 0)} % of scan endpoints ` +
+        `(peak ${fixed(run.peak * 100, 0)} % per ${MAP_WINDOW} s) landed on cells the map marks free and clear of obstacles${where}.`,
+    };
+  });
+}
+
+/** The free-space rule (docs/flags.md): marked intervals and which steps were usable. */
+export function findFreeSpaceRuns(
+  series: ReplaySeries,
+  counts: FreeSpaceEndpointCounts,
+): { runs: FreeSpaceRun[]; usable: Uint8Array } {
   const steps = series.t.length;
   const usable = new Uint8Array(steps);
   for (let k = 0; k < steps; k++) {
@@ -109,31 +144,18 @@ export function detectMapOutOfDate(series: ReplaySeries, counts: FreeSpaceEndpoi
     // The step itself must show free-space endpoints, so the window's tail does not stretch the flag.
     if (usable[k] && counts.free[k] > 0 && share[k] >= MAP_FREE_SHARE) marked[k] = 1;
   }
-  return findSustainedRuns(series.t, marked, MAP_MIN_DURATION, MAP_MAX_GAP).map((run) => {
-    let peak = 0;
-    let freeSum = 0;
-    let totalSum = 0;
-    let x = 0;
-    let y = 0;
+  const runs = findSustainedRuns(series.t, marked, MAP_MIN_DURATION, MAP_MAX_GAP).map((run): FreeSpaceRun => {
+    const stats = { ...run, peak: 0, free: 0, total: 0, sumX: 0, sumY: 0, isStrong: false };
     for (let k = run.first; k <= run.last; k++) {
-      peak = Math.max(peak, share[k]);
+      stats.peak = Math.max(stats.peak, share[k]);
       if (!usable[k]) continue;
-      freeSum += counts.free[k];
-      totalSum += counts.total[k];
-      x += counts.sumX[k];
-      y += counts.sumY[k];
+      stats.free += counts.free[k];
+      stats.total += counts.total[k];
+      stats.sumX += counts.sumX[k];
+      stats.sumY += counts.sumY[k];
     }
-    const seconds = runSeconds(series.t, run);
-    const critical = peak >= MAP_CRITICAL_SHARE && seconds >= MAP_CRITICAL_DURATION;
-    const where = freeSum > 0 ? `, centred near (${fixed(x / freeSum)}, ${fixed(y / freeSum)}) m` : '';
-    return {
-      kind: 'map_out_of_date',
-      start: series.t[run.first],
-      end: series.t[run.last],
-      severity: critical ? 'critical' : 'warning',
-      evidence:
-        `For ${fixed(seconds)} s ${fixed((100 * freeSum) / Math.max(1, totalSum), 0)} % of scan endpoints ` +
-        `(peak ${fixed(peak * 100, 0)} % per ${MAP_WINDOW} s) landed on cells the map marks free and clear of obstacles${where}.`,
-    };
+    stats.isStrong = stats.peak >= MAP_CRITICAL_SHARE && runSeconds(series.t, run) >= MAP_CRITICAL_DURATION;
+    return stats;
   });
+  return { runs, usable };
 }

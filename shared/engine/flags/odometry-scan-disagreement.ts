@@ -12,6 +12,7 @@ import { hypot } from '../numerics';
 import type { ReplayContext } from '../replay-context';
 import type { ReplaySeries } from '../replay-series';
 import type { EvidenceProfile } from './evidence-profile';
+import { type ExpectedCorrection, measureExpectedCorrection } from './expected-correction';
 import type { ReplayFlag } from './flag-types';
 import { findSustainedRuns, fixed, runSeconds, type StepRun } from './intervals';
 import { type FreeSpaceEndpointCounts, MAP_MIN_FIT_SHARE } from './map-out-of-date';
@@ -23,6 +24,12 @@ export const DRIFT_WINDOW = 1;
 export const DRIFT_HEADING = 0.12;
 /** Summed position correction (m) over the window that marks a step (healthy samples: up to 0.14). */
 export const DRIFT_POSITION = 0.3;
+/**
+ * A drift must also exceed this many standard deviations of the correction the motion model
+ * expects over the window (expected-correction.ts), so ordinary turns, where the model itself
+ * predicts large heading errors, are not taken for slips.
+ */
+export const DRIFT_EXPECTED_SIGMAS = 4;
 /** Steps whose evidence dropped by at least this much (nats per measurement) are scan-matched. */
 export const PROBE_DROP_NATS = 1.0;
 /** Matched steps are at least this far apart (s); runs bridge the gaps between them. */
@@ -40,11 +47,19 @@ export const OFFSET_MIN_GAIN = 0.3;
 export const OFFSET_CRITICAL_POSITION = 0.5;
 export const OFFSET_CRITICAL_HEADING = 0.3;
 export const DISAGREEMENT_MIN_DURATION = 0.2;
+/**
+ * An interval marked by drift alone must last this long (s): a slip or a miscalibration keeps
+ * pulling, while a particle set thinning out in a tight turn makes its mean jump for a few steps.
+ */
+export const DRIFT_MIN_DURATION = 1;
 export const DISAGREEMENT_MAX_GAP = 0.5;
 
 interface Signals {
   heading: Float64Array;
   position: Float64Array;
+  /** Thresholds per step: the fixed floor or DRIFT_EXPECTED_SIGMAS expected spreads, whichever is larger. */
+  headingLimit: Float64Array;
+  positionLimit: Float64Array;
   offsetPosition: Float64Array;
   offsetHeading: Float64Array;
 }
@@ -71,14 +86,44 @@ function sumCorrections(series: ReplaySeries, signals: Signals): void {
   }
 }
 
+/** Per-step drift thresholds from the fixed floors and the motion model's expected spread. */
+function setDriftLimits(signals: Signals, expected: ExpectedCorrection | undefined): void {
+  for (let k = 0; k < signals.heading.length; k++) {
+    signals.headingLimit[k] = Math.max(
+      DRIFT_HEADING,
+      expected ? DRIFT_EXPECTED_SIGMAS * expected.heading[k] : 0,
+    );
+    signals.positionLimit[k] = Math.max(
+      DRIFT_POSITION,
+      expected ? DRIFT_EXPECTED_SIGMAS * expected.position[k] : 0,
+    );
+  }
+}
+
+function isDrifting(signals: Signals, k: number): boolean {
+  return (
+    Math.abs(signals.heading[k]) >= signals.headingLimit[k] || signals.position[k] >= signals.positionLimit[k]
+  );
+}
+
 function describe(series: ReplaySeries, signals: Signals, run: StepRun): { text: string; critical: boolean } {
   let heading = 0;
   let position = 0;
   let offset = 0;
   let offsetHeading = 0;
+  let headingLimit = 0;
+  let positionLimit = 0;
+  let drifted = false;
   for (let k = run.first; k <= run.last; k++) {
-    if (Math.abs(signals.heading[k]) > Math.abs(heading)) heading = signals.heading[k];
-    position = Math.max(position, signals.position[k]);
+    if (Math.abs(signals.heading[k]) > Math.abs(heading)) {
+      heading = signals.heading[k];
+      headingLimit = signals.headingLimit[k];
+    }
+    if (signals.position[k] > position) {
+      position = signals.position[k];
+      positionLimit = signals.positionLimit[k];
+    }
+    if (isDrifting(signals, k)) drifted = true;
     if (signals.offsetPosition[k] > offset) offset = signals.offsetPosition[k];
     if (Math.abs(signals.offsetHeading[k]) > Math.abs(offsetHeading))
       offsetHeading = signals.offsetHeading[k];
@@ -89,9 +134,10 @@ function describe(series: ReplaySeries, signals: Signals, run: StepRun): { text:
     parts.push(
       `the scans fit best up to ${fixed(offset, 2)} m and ${fixed((offsetHeading * 180) / Math.PI, 0)}° away from the odometry-driven pose`,
     );
-  if (Math.abs(heading) >= DRIFT_HEADING || position >= DRIFT_POSITION)
+  if (drifted)
     parts.push(
-      `the scans kept correcting odometry by up to ${fixed(heading, 2)} rad and ${fixed(position, 2)} m per ${DRIFT_WINDOW} s`,
+      `the scans kept correcting odometry by up to ${fixed(heading, 2)} rad and ${fixed(position, 2)} m per ${DRIFT_WINDOW} s ` +
+        `(the motion model's noise allows about ${fixed(headingLimit, 2)} rad and ${fixed(positionLimit, 2)} m there)`,
     );
   const critical = offset >= OFFSET_CRITICAL_POSITION || Math.abs(offsetHeading) >= OFFSET_CRITICAL_HEADING;
   return { text: `For ${seconds} s ${parts.join(', and ')}.`, critical };
@@ -110,11 +156,21 @@ export function detectOdometryScanDisagreement(
     position: new Float64Array(steps),
     offsetPosition: new Float64Array(steps),
     offsetHeading: new Float64Array(steps),
+    headingLimit: new Float64Array(steps),
+    positionLimit: new Float64Array(steps),
   };
   sumCorrections(series, signals);
+  const expected = context
+    ? measureExpectedCorrection(
+        series.t,
+        context.bundle.odometry,
+        context.settings.motion.alpha,
+        DRIFT_WINDOW,
+      )
+    : undefined;
+  setDriftLimits(signals, expected);
   const marked = new Uint8Array(steps);
-  for (let k = 0; k < steps; k++)
-    if (Math.abs(signals.heading[k]) >= DRIFT_HEADING || signals.position[k] >= DRIFT_POSITION) marked[k] = 1;
+  for (let k = 0; k < steps; k++) if (isDrifting(signals, k)) marked[k] = 1;
   if (context?.beams && context.field && counts) {
     const work = createScanMatchWorkspace(context.beams.indices.length);
     let probes = 0;
@@ -134,7 +190,15 @@ export function detectOdometryScanDisagreement(
       marked[k] = 1;
     }
   }
-  return findSustainedRuns(series.t, marked, DISAGREEMENT_MIN_DURATION, DISAGREEMENT_MAX_GAP).map((run) => {
+  const hasOffset = (run: StepRun) => {
+    for (let k = run.first; k <= run.last; k++)
+      if (signals.offsetPosition[k] > 0 || signals.offsetHeading[k] !== 0) return true;
+    return false;
+  };
+  const runs = findSustainedRuns(series.t, marked, DISAGREEMENT_MIN_DURATION, DISAGREEMENT_MAX_GAP).filter(
+    (run) => hasOffset(run) || runSeconds(series.t, run) >= DRIFT_MIN_DURATION - 1e-9,
+  );
+  return runs.map((run) => {
     const { text, critical } = describe(series, signals, run);
     return {
       kind: 'odometry_disagrees_with_scans',

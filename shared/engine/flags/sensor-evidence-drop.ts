@@ -7,6 +7,8 @@ import type { EvidenceProfile } from './evidence-profile';
 import { REFERENCE_WINDOW } from './evidence-profile';
 import type { ReplayFlag } from './flag-types';
 import { findSustainedRuns, fixed, rangeOver, runSeconds } from './intervals';
+import type { FreeSpaceEndpointCounts } from './map-out-of-date';
+import { EXPLAINED_SCAN_SHARE, isScanExplained } from './scan-fit';
 
 /** Drop in log-likelihood per measurement (nats) that marks a step (healthy samples peak near 0.45). */
 export const EVIDENCE_DROP_NATS = 0.6;
@@ -29,12 +31,22 @@ function medianOver(values: Float64Array, first: number, last: number): number {
   return finite.length % 2 ? finite[middle] : 0.5 * (finite[middle - 1] + finite[middle]);
 }
 
-export function detectSensorEvidenceDrop(series: ReplaySeries, profile: EvidenceProfile): ReplayFlag[] {
+/**
+ * Flags evidence drops. With endpoint counts (scans and a map), a drop in log-likelihood on a step
+ * whose scan is still explained by the map and unmapped objects (scan-fit.ts) is not marked: a
+ * person beside the robot or a tight turn lowers the likelihood without anything being wrong with
+ * the sensor. A loss of valid returns is always marked.
+ */
+export function detectSensorEvidenceDrop(
+  series: ReplaySeries,
+  profile: EvidenceProfile,
+  counts?: FreeSpaceEndpointCounts,
+): ReplayFlag[] {
   const steps = series.t.length;
   const marked = new Uint8Array(steps);
   for (let k = 0; k < steps; k++) {
-    if (profile.dropPerMeasurement[k] >= EVIDENCE_DROP_NATS || profile.countRatio[k] < EVIDENCE_COUNT_RATIO)
-      marked[k] = 1;
+    const isFitDrop = profile.dropPerMeasurement[k] >= EVIDENCE_DROP_NATS && !isScanExplained(counts, k);
+    if (isFitDrop || profile.countRatio[k] < EVIDENCE_COUNT_RATIO) marked[k] = 1;
   }
   const flags: ReplayFlag[] = [];
   for (const run of findSustainedRuns(series.t, marked, EVIDENCE_MIN_DURATION, EVIDENCE_MAX_GAP)) {
@@ -57,7 +69,7 @@ export function detectSensorEvidenceDrop(series: ReplaySeries, profile: Evidence
       start: series.t[run.first],
       end: series.t[run.last],
       severity: critical ? 'critical' : 'warning',
-      evidence: `For ${seconds} s the ${fit}${beams}.`,
+      evidence: `For ${seconds} s the ${fit}${beams}${counts ? ` (steps where at least ${fixed(EXPLAINED_SCAN_SHARE * 100, 0)} % of the scan still fit the map or an unmapped object are not counted)` : ''}.`,
     });
   }
   return flags;

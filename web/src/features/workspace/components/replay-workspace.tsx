@@ -142,7 +142,7 @@ export function ReplayWorkspace({
             {
               id: 'flags',
               label: `Flags (${replay.flags.length})`,
-              content: <FlagsPanel flags={replay.flags} onOpen={seekTime} />,
+              content: <FlagsPanel flags={replay.flags} time={time} onOpen={seekTime} />,
             },
             {
               id: 'safety',
