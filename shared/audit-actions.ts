@@ -28,6 +28,7 @@ export const AUDIT_ACTIONS = [
   'archive.export',
   'archive.verify',
   'key.rotate',
+  'audit.checkpoint',
 ] as const;
 
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

@@ -27,7 +27,16 @@ async function main() {
   // Without SMTP_URL, mail goes to a local fake server whose messages the Outbox page shows.
   const fakeSmtp = config.smtpUrl
     ? undefined
-    : await startFakeSmtpServer({ db: database.db, port: config.smtpFakePort });
+    : await startFakeSmtpServer({
+        db: database.db,
+        port: config.smtpFakePort,
+        onError: (error) => logger.warn({ err: error.message }, 'local fake SMTP server: connection error'),
+      });
+  if (fakeSmtp?.takenPort !== undefined) {
+    logger.warn(
+      `SMTP_FAKE_PORT ${fakeSmtp.takenPort} is taken (another server on this machine?); the local fake SMTP server uses port ${fakeSmtp.port} instead`,
+    );
+  }
   if (fakeSmtp) logger.info({ port: fakeSmtp.port }, 'local fake SMTP server keeps all mail for the Outbox');
   const app = createApp({
     db: database.db,

@@ -31,6 +31,14 @@ const ZRobot = z.strictObject({
   max_speed: positive.describe('m/s'),
   max_decel: positive.describe('m/s^2'),
   reaction_time: nonNegative.describe('s'),
+  protective_device: z
+    .strictObject({
+      name: z.string().min(1),
+      detection_capability: positive.describe('mm, d: smallest object the device is sure to detect'),
+      response_time: nonNegative.describe('s, detection to output off'),
+    })
+    .describe('A fixed protective device, for the ISO 13855 minimum distance')
+    .optional(),
 });
 
 export const ZScanConfig = z.strictObject({
@@ -106,6 +114,24 @@ const ZFilter = z.strictObject({
     .optional(),
 });
 
+const ZProvenance = z
+  .strictObject({
+    importer: z.string(),
+    sources: z.array(
+      z.strictObject({
+        role: z.enum(['recording', 'map', 'map_image', 'params', 'robot']),
+        name: z.string(),
+        sha256: z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lower-case hex'),
+        format: z.string(),
+      }),
+    ),
+    topics: z.record(z.string(), z.string()),
+    assumed: z.array(z.string()),
+    approximated: z.array(z.string()),
+    notes: z.record(z.string(), z.string()),
+  })
+  .describe('Originals a bundle derived from a robot recording came from (docs/robot-recordings.md)');
+
 export const ZManifest = z.strictObject({
   format: z.literal(BUNDLE_FORMAT),
   robot: ZRobot,
@@ -114,6 +140,7 @@ export const ZManifest = z.strictObject({
   scan: ZScanConfig.optional(),
   detector: ZDetectorConfig.optional(),
   filter: ZFilter,
+  provenance: ZProvenance.optional(),
 });
 
 // Fails to compile if the schema and the hand-written `Manifest` type drift apart.

@@ -1,18 +1,12 @@
-import pg from 'pg';
 import { openDatabase } from '../../api/src/db/client';
 import { describeAtomicAudit } from '../support/atomic-audit-suite';
 import { createTestApp } from '../support/test-app';
+import { resetPostgresDatabase } from '../support/test-database';
 
 const url = process.env.DATABASE_URL;
 if (!url) throw new Error('Set DATABASE_URL=postgres://... to run the PostgreSQL suite.');
 
 describeAtomicAudit('PostgreSQL', async () => {
-  // An empty server database, so the committed migrations run from the first one.
-  const admin = new pg.Client({ connectionString: url });
-  await admin.connect();
-  await admin.query(
-    'drop schema if exists public cascade; create schema public; drop schema if exists drizzle cascade;',
-  );
-  await admin.end();
+  await resetPostgresDatabase(url);
   return createTestApp({}, { database: await openDatabase({ kind: 'postgres', url }) });
 });

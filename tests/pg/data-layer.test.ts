@@ -4,6 +4,7 @@ import type { Services } from '../../api/src/composition/create-services';
 import { type DatabaseHandle, openDatabase } from '../../api/src/db/client';
 import { seedDemoData } from '../../api/src/seed/seed-demo';
 import { createTestServices } from '../support/test-app';
+import { resetPostgresDatabase } from '../support/test-database';
 
 /**
  * The data layer against a real PostgreSQL server (DATABASE_URL), with the same schema and
@@ -16,13 +17,7 @@ let handle: DatabaseHandle;
 let services: Services;
 
 beforeAll(async () => {
-  // Start from an empty server database so the committed migrations run from the first one.
-  const admin = new pg.Client({ connectionString: url });
-  await admin.connect();
-  await admin.query(
-    'drop schema if exists public cascade; create schema public; drop schema if exists drizzle cascade;',
-  );
-  await admin.end();
+  await resetPostgresDatabase(url);
   handle = await openDatabase({ kind: 'postgres', url });
   services = createTestServices(handle.db);
 });

@@ -5,12 +5,19 @@
  * to a trusted key, or replay digests from an older engine).
  * Each command lives in its own module under ./commands and is loaded only when asked for.
  */
+import { installPlainWords } from '../../../shared/contracts/plain-words';
+
 type CommandModule = { run(args: string[]): Promise<number> };
 
 const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
   check: {
     summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)',
     load: () => import('./commands/check'),
+  },
+  import: {
+    summary:
+      'import SOURCE [options] --out BUNDLE.zip  read a robot recording (.mcap, .bag, .db3, rosbag2 folder) into a bundle',
+    load: () => import('./commands/import'),
   },
   replay: {
     summary: 'replay PATH [options]          re-run the particle filter over a bundle',
@@ -29,6 +36,7 @@ function printUsage(): void {
 }
 
 async function main(argv: string[]): Promise<number> {
+  installPlainWords(); // the same sentences as the API and the web app
   const [name, ...rest] = argv;
   if (!name || name === '--help' || name === '-h') {
     printUsage();

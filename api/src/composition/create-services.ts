@@ -95,7 +95,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       jwks: keys.jwks,
       workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
     },
-    ...{ keys, audit, notify, checkpoints, maxUnpackedBytes },
+    ...{ keys, audit, notify, checkpoints, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
   });
 
   return {

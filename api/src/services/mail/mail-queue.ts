@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, eq, lte, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, lte, sql } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Logger } from 'pino';
 import type { Database } from '../../db/client';
@@ -15,6 +15,9 @@ export interface OutgoingMail {
 export const MAX_SEND_ATTEMPTS = 6;
 const FIRST_RETRY_MS = 5_000;
 const LONGEST_RETRY_MS = 30 * 60_000;
+/** How long a claimed message stays invisible to other queue workers while one sends it. */
+const CLAIM_LEASE_MS = 10 * 60_000;
+const BATCH_SIZE = 50;
 
 /** Wait before the next attempt: 5 s, 10 s, 20 s, ... capped at 30 min (exponential backoff). */
 export function retryDelayMs(attemptsSoFar: number): number {
@@ -82,16 +85,40 @@ export function createMailQueue(options: { db: Database; smtpUrl?: string; from:
     }
   }
 
+  /**
+   * Claims due messages for this worker: the rows are locked with `FOR UPDATE SKIP LOCKED` (other
+   * servers on the same database skip them instead of waiting or taking them too) and their next
+   * attempt is pushed past a lease, so once the claim commits no other worker sees them as due. If
+   * this process dies mid-send, the message is tried again when the lease runs out.
+   */
+  async function claimDue(now: Date): Promise<(typeof mailQueue.$inferSelect)[]> {
+    return db.transaction(async (tx) => {
+      const due = await tx
+        .select()
+        .from(mailQueue)
+        .where(and(eq(mailQueue.status, 'pending'), lte(mailQueue.nextAttemptAt, now)))
+        .orderBy(asc(mailQueue.createdAt))
+        .limit(BATCH_SIZE)
+        .for('update', { skipLocked: true });
+      if (!due.length) return [];
+      await tx
+        .update(mailQueue)
+        .set({ nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS) })
+        .where(
+          inArray(
+            mailQueue.id,
+            due.map((row) => row.id),
+          ),
+        );
+      return due;
+    });
+  }
+
   /** Sends every message due at `now`; returns how many were tried. One pass at a time. */
   function processDue(now = new Date()): Promise<number> {
     running ??= (async () => {
       try {
-        const due = await db
-          .select()
-          .from(mailQueue)
-          .where(and(eq(mailQueue.status, 'pending'), lte(mailQueue.nextAttemptAt, now)))
-          .orderBy(asc(mailQueue.createdAt))
-          .limit(50);
+        const due = await claimDue(now);
         for (const row of due) await sendOne(row, now);
         return due.length;
       } finally {
