@@ -54,6 +54,8 @@ async function main() {
   ) {
     logger.info('seeded demo accounts, cases and sample bundles');
   }
+  // Anchors every audit chain head outside the database now if the last checkpoint is a day old, then daily.
+  const stopCheckpoints = await services.checkpoints.startDaily();
   const server = app.listen(config.port, config.host, () => {
     logger.info(`Driftcase is listening on http://localhost:${config.port}`);
   });
@@ -63,6 +65,7 @@ async function main() {
     if (isStopping) return;
     isStopping = true;
     logger.info({ signal }, 'shutting down');
+    stopCheckpoints();
     server.close();
     server.closeAllConnections();
     await app.locals.shutdown();

@@ -10,6 +10,8 @@ export const REPORT_PATH = 'report.html';
 export const CASE_PATH = 'case.json';
 export const JWKS_PATH = 'keys/jwks.json';
 export const AUDIT_CHAIN_PATH = 'audit/chain.json';
+/** Signed checkpoints of the case's chain head (one compact JWS a line), as the server kept them. */
+export const AUDIT_CHECKPOINTS_PATH = 'audit/checkpoints.jsonl';
 export const FIXES_PATH = 'fixes/fixes.json';
 export const BOOKMARKS_PATH = 'workspace/bookmarks.json';
 export const SAVED_QUERIES_PATH = 'workspace/saved-queries.json';

@@ -107,7 +107,8 @@ let fixtures: Fixtures;
 let specs: RouteSpec[];
 
 beforeAll(async () => {
-  t = await createTestApp();
+  // Refused cancel calls leave their long replays running, all started by one investigator.
+  t = await createTestApp({ MAX_RUNNING_REPLAYS_PER_USER: '100' });
   specs = t.app.locals.routeSpecs;
   const admin = await t.tokenFor('admin');
   const users = await request(t.app).get('/api/users').set('Authorization', `Bearer ${admin}`);

@@ -80,5 +80,8 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
     );
   }
   entries.push(json(layout.AUDIT_CHAIN_PATH, evidence.auditChain));
+  entries.push(
+    text(layout.AUDIT_CHECKPOINTS_PATH, evidence.checkpointLines.map((line) => `${line}\n`).join('')),
+  );
   return entries;
 }

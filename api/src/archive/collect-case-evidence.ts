@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { AuditChainEntry } from '../../../shared/audit-chain';
+import { type AuditChainEntry, auditChainOf } from '../../../shared/audit-chain';
 import type { TBundleRecord } from '../../../shared/contracts/bundles';
 import type { TCase } from '../../../shared/contracts/cases';
 import type { TFindingsVersion } from '../../../shared/contracts/findings';
@@ -37,6 +37,8 @@ export interface CaseEvidence {
   findings: TFindingsVersion[];
   fixes: TFix[];
   auditChain: AuditChainEntry[];
+  /** Signed checkpoints of the case's chain, one compact JWS each. */
+  checkpointLines: string[];
   jwks: TJwkSet;
   workspace: { bookmarks: unknown[]; savedQueries: unknown[] } | null;
 }
@@ -51,6 +53,7 @@ export interface CaseEvidenceSources {
   getFindingsVersion(caseId: string, version: number): Promise<TFindingsVersion>;
   listFixes(caseId: string): Promise<TFix[]>;
   readCaseChain(caseId: string): Promise<AuditChainEntry[]>;
+  checkpointLines(chain: string): Promise<string[]>;
   jwks(): Promise<TJwkSet>;
   workspace?: WorkspaceEvidenceSource;
 }
@@ -98,6 +101,7 @@ export async function collectCaseEvidence(
     findings,
     fixes: await sources.listFixes(caseId),
     auditChain: await sources.readCaseChain(caseId),
+    checkpointLines: await sources.checkpointLines(auditChainOf(caseId)),
     jwks: await sources.jwks(),
     workspace,
   };

@@ -40,7 +40,7 @@ export const MAX_DOCUMENT_BYTES = 32 * 1024 * 1024;
 export const MAX_DOCUMENTS_TOTAL_BYTES = 64 * 1024 * 1024;
 
 /** Entries whose content the verifier reads; everything else is only hashed as it streams by. */
-const isCheckedDocument = (name: string) => /\.(json|jws)$/.test(name) || /\/digest$/.test(name);
+const isCheckedDocument = (name: string) => /\.(json|jsonl|jws)$/.test(name) || /\/digest$/.test(name);
 
 /**
  * Reads every entry of an archive once, with the bundle reader's zip limits (directory checked

@@ -15,6 +15,7 @@ import type { ReplaySettings } from '../../../shared/engine/settings';
 import { hashFile } from '../bundles/sha256-file';
 import { DEFAULT_ZIP_LIMITS, type ZipLimits } from '../bundles/zip-limits';
 import { loadBundleForReplay } from '../replays/replay-bundle-file';
+import { checkCheckpoints } from './check-checkpoints';
 import { checkPins } from './check-pins';
 import { checkSignatures } from './check-signatures';
 import { ArchiveRefusedError, type ReadArchive, readArchiveEntries } from './read-archive-entries';
@@ -27,6 +28,8 @@ export interface VerifyOptions {
   zipLimits?: Partial<ZipLimits>;
   /** Keys or thumbprints trusted from outside the archive; without one signatures are not anchored. */
   trust?: TrustAnchor;
+  /** Checkpoint lines from outside the archive (the server's file, or `--checkpoints FILE`). */
+  checkpoints?: { lines: string[]; label: string };
 }
 
 type Check = (
@@ -209,6 +212,8 @@ export async function verifyArchive(
     }
     if (manifest.success)
       checkPins(manifest.data, Array.isArray(chain) ? chain : null, read, (c) => checks.push(c));
+    if (manifest.success && Array.isArray(chain))
+      await checkCheckpoints(read, chain, manifest.data, trust, options.checkpoints, (c) => checks.push(c));
     if (options.skipReplays)
       check('replay', true, null, 'replays: re-run skipped on request (digests not checked)');
     else await checkReplays(read, check);

@@ -39,7 +39,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...findingsRoutes(services.findings, services.reviews),
     ...fixRoutes(services.fixes),
     ...holdRoutes(services.holds),
-    ...auditRoutes(services.audit),
+    ...auditRoutes(services.audit, services.checkpoints),
     ...keyRoutes(services.keys, services.keysAdmin),
     ...outboxRoutes(services.outbox),
     ...archiveRoutes(services.archives, uploads),

@@ -5,6 +5,7 @@ import type { Database } from '../db/client';
 import { createReplayPool, type ReplayPool } from '../replays/replay-pool';
 import { createArchiveService } from '../services/archive/archive-service';
 import { createAuditService } from '../services/audit/audit-service';
+import { createCheckpointService } from '../services/audit/checkpoint-service';
 import { createAuthService } from '../services/auth/auth-service';
 import { createBookmarksService } from '../services/bookmarks/bookmarks-service';
 import { createBundlesService } from '../services/bundles/bundles-service';
@@ -78,6 +79,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const bookmarks = createBookmarksService({ db, audit });
   const savedQueries = createSavedQueriesService({ db, audit });
 
+  const checkpoints = createCheckpointService({ db, keys, notify, dataDir: config.dataDir, logger });
   const archives = createArchiveService({
     sources: {
       getCase: cases.getCase,
@@ -89,10 +91,11 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       getFindingsVersion: reviews.getVersion,
       listFixes: fixes.listFixes,
       readCaseChain: audit.readCaseChain,
+      checkpointLines: checkpoints.linesOfChain,
       jwks: keys.jwks,
       workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
     },
-    ...{ keys, audit, notify, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
+    ...{ keys, audit, notify, checkpoints, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
   });
 
   return {
@@ -117,6 +120,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     bookmarks,
     savedQueries,
     archives,
+    checkpoints,
   };
 }
 

@@ -1,11 +1,21 @@
+import { auditChainOf, verifyAuditChain } from '../../../shared/audit-chain';
 import { ZAuditListQuery } from '../../../shared/contracts/audit';
 import type { RouteSpec } from '../http/route-spec';
 import type { AuditService } from '../services/audit/audit-service';
+import type { CheckpointService } from '../services/audit/checkpoint-service';
 import { ZCaseParams } from './cases';
 
 const AUDIT_READERS = ['reviewer', 'legal', 'admin'] as const;
 
-export function auditRoutes(audit: AuditService): RouteSpec[] {
+/** The chain's own hash check plus its comparison with the signed checkpoints kept outside the database. */
+async function verifyWithCheckpoints(audit: AuditService, checkpoints: CheckpointService, chain: string) {
+  const entries = await audit.readChain(chain);
+  const report = verifyAuditChain(entries);
+  const compared = await checkpoints.compareChain(chain, entries);
+  return { ...report, ok: report.ok && compared.problems.length === 0, checkpoints: compared };
+}
+
+export function auditRoutes(audit: AuditService, checkpoints: CheckpointService): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -21,7 +31,8 @@ export function auditRoutes(audit: AuditService): RouteSpec[] {
       path: '/cases/:id/audit/verify',
       access: AUDIT_READERS,
       handler: async (req, res) => {
-        res.json(await audit.verifyCaseChain(ZCaseParams.parse(req.params).id));
+        const { id } = ZCaseParams.parse(req.params);
+        res.json(await verifyWithCheckpoints(audit, checkpoints, auditChainOf(id)));
       },
     },
     {
@@ -37,7 +48,7 @@ export function auditRoutes(audit: AuditService): RouteSpec[] {
       path: '/audit/verify',
       access: ['admin', 'legal'],
       handler: async (_req, res) => {
-        res.json(await audit.verifyGlobalChain());
+        res.json(await verifyWithCheckpoints(audit, checkpoints, auditChainOf(null)));
       },
     },
   ];

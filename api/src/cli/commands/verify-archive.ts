@@ -5,10 +5,12 @@ import type { TArchiveVerification } from '../../../../shared/contracts/archives
 import type { TrustAnchor } from '../../archive/trust-anchor';
 import { formatCheckLine, verificationOutcome, verifyArchive } from '../../archive/verify-archive';
 
-const USAGE = `Usage: npm run cli -- verify-archive FILE.zip [--trusted-keys JWKS.json] [--trusted-thumbprint T]... [--json] [--skip-replays]
+const USAGE = `Usage: npm run cli -- verify-archive FILE.zip [--trusted-keys JWKS.json] [--trusted-thumbprint T]... [--checkpoints FILE] [--json] [--skip-replays]
 
   --trusted-keys JWKS.json   public keys you trust (e.g. your site's copy of GET /api/keys)
   --trusted-thumbprint T     RFC 7638 thumbprint your site publishes; a key in the archive with it is trusted
+  --checkpoints FILE         signed audit checkpoints kept outside Driftcase (DATA_DIR/audit/checkpoints.jsonl
+                             or the lines mailed to legal); the archived chain must agree with them
   --json                     print the checks as JSON
   --skip-replays             do not re-run replays (digests not checked)
 
@@ -107,7 +109,14 @@ export async function run(args: string[]): Promise<number> {
     return 2;
   }
   try {
-    const result = await verifyArchive(file, { skipReplays: values['skip-replays'], trust });
+    const checkpointsFile = values.checkpoints;
+    const checkpoints = checkpointsFile
+      ? {
+          lines: (await readFile(checkpointsFile, 'utf8')).split('\n'),
+          label: `--checkpoints ${checkpointsFile}`,
+        }
+      : undefined;
+    const result = await verifyArchive(file, { skipReplays: values['skip-replays'], trust, checkpoints });
     const outcome = verificationOutcome(result);
     if (values.json) process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
     else {
@@ -132,6 +141,7 @@ function parseCommandLine(args: string[]) {
       'skip-replays': { type: 'boolean' },
       'trusted-keys': { type: 'string' },
       'trusted-thumbprint': { type: 'string', multiple: true },
+      checkpoints: { type: 'string' },
     },
   });
 }

@@ -19,6 +19,7 @@ import { writeArchive } from '../../archive/write-archive';
 import { PROJECT_ROOT } from '../../config';
 import { loadBundleForReplay } from '../../replays/replay-bundle-file';
 import type { AuditService } from '../audit/audit-service';
+import type { CheckpointService } from '../audit/checkpoint-service';
 import type { Notifications } from '../mail/notifications';
 import { jwkThumbprint } from '../signing/jwk-thumbprint';
 import type { SigningKeyStore } from '../signing/signing-key';
@@ -43,6 +44,7 @@ export function createArchiveService(deps: {
   keys: SigningKeyStore;
   audit: AuditService;
   notify: Notifications;
+  checkpoints: CheckpointService;
   maxUnpackedBytes: number;
   /** The zone report.html shows times in (`SITE_TIME_ZONE`). */
   siteTimeZone: string;
@@ -118,6 +120,8 @@ export function createArchiveService(deps: {
           payload: { exportedAt, files: written.files },
           details: { sha256: written.sha256, size: written.size, files: written.files.length },
         });
+        // Every export anchors every chain head outside the database (file + mail to legal).
+        await deps.checkpoints.checkpointAll('export');
         await deps.notify.archiveExported({
           caseId,
           sha256: written.sha256,
@@ -152,6 +156,7 @@ export function createArchiveService(deps: {
       // The server trusts only its own key store (current and retired keys), never the archive's copy.
       const verification = await verifyArchive(file, {
         zipLimits: { maxTotalBytes: deps.maxUnpackedBytes },
+        checkpoints: { lines: await deps.checkpoints.readLines(), label: "this server's checkpoint file" },
         trust: { keys: (await deps.keys.jwks()).keys, label: "this server's signing keys (GET /api/keys)" },
       });
       await deps.audit.appendAlone({

@@ -162,6 +162,7 @@ export function createAuditService({ db }: { db: Database }) {
     appendAlone,
     listCaseEntries: (caseId: string, query?: TAuditListQuery) => listChain(auditChainOf(caseId), query),
     listGlobalEntries: (query?: TAuditListQuery) => listChain(auditChainOf(null), query),
+    readChain,
     readCaseChain: (caseId: string) => readChain(auditChainOf(caseId)),
     verifyCaseChain: async (caseId: string) => verifyAuditChain(await readChain(auditChainOf(caseId))),
     verifyGlobalChain: async () => verifyAuditChain(await readChain(auditChainOf(null))),

@@ -14,6 +14,9 @@ const escapeHtml = (text: string) =>
  * Who is told what. Every function only enqueues; a failure is logged and swallowed because a
  * notification must never undo or block the action that caused it.
  */
+const CHECKPOINT_MAIL_NOTE =
+  'Signed checkpoints of every audit chain head, one per line (compact JWS, RFC 7515). Keep this mail outside Driftcase: verify-archive --checkpoints and the server compare the audit trail with them, so rows edited and re-chained afterwards are reported.';
+
 export function createNotifications(options: {
   db: Database;
   queue: MailQueue;
@@ -144,6 +147,15 @@ export function createNotifications(options: {
         );
       },
     ),
+    auditCheckpointed: guarded('audit.checkpointed', async (e: { reason: string; lines: string[] }) => {
+      // Legal keeps these mails outside Driftcase: with them an edited and re-chained trail shows.
+      await queue.enqueue({
+        to: await emailsOfRole('legal'),
+        subject: `[Driftcase] audit trail checkpoint (${e.reason})`,
+        text: `${CHECKPOINT_MAIL_NOTE}\n\n${e.lines.join('\n')}\n`,
+        html: `<p>${escapeHtml(CHECKPOINT_MAIL_NOTE)}</p><pre>${escapeHtml(e.lines.join('\n'))}</pre>`,
+      });
+    }),
   };
 }
 
