@@ -6,6 +6,8 @@ import { createReplayPool, type ReplayPool } from '../replays/replay-pool';
 import { createArchiveService } from '../services/archive/archive-service';
 import { createAuditService } from '../services/audit/audit-service';
 import { createAuthService } from '../services/auth/auth-service';
+import { createPasswordHashing } from '../services/auth/password-hashing';
+import { createSignInThrottle } from '../services/auth/sign-in-throttle';
 import { createBookmarksService } from '../services/bookmarks/bookmarks-service';
 import { createBundlesService } from '../services/bundles/bundles-service';
 import { createCasesService } from '../services/cases/cases-service';
@@ -38,13 +40,19 @@ export interface ServiceDependencies {
  */
 export function createServices({ db, config, logger, replayPool }: ServiceDependencies) {
   const audit = createAuditService({ db });
+  const passwordHashing = createPasswordHashing();
   const auth = createAuthService({
     db,
     audit,
+    hashing: passwordHashing,
+    throttle: createSignInThrottle({ db }),
     sessionTtlSeconds: config.sessionTtlSeconds,
     sessionMaxAgeSeconds: config.sessionMaxAgeSeconds,
   });
-  const users = createUsersService({ db, audit, revokeAllSessions: auth.revokeAllSessions });
+  const users = createUsersService({
+    ...{ db, audit, hashing: passwordHashing },
+    revokeAllSessions: auth.revokeAllSessions,
+  });
   const holds = createHoldsService({ db, audit });
   const lifecycle = createLifecycleService({ db, audit });
   const cases = createCasesService({ db, audit, lifecycle });
@@ -94,6 +102,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
 
   return {
     audit,
+    passwordHashing,
     auth,
     users,
     holds,
