@@ -90,5 +90,6 @@ export function caseWorkSamples(
     'get /audit/verify': () => ({ path: '/api/audit/verify' }),
     'get /keys': () => ({ path: '/api/keys' }),
     'get /outbox': () => ({ path: '/api/outbox' }),
+    'get /evidence/orphans': () => ({ path: '/api/evidence/orphans' }),
   };
 }

@@ -11,6 +11,7 @@ import { createSignInThrottle } from '../services/auth/sign-in-throttle';
 import { createBookmarksService } from '../services/bookmarks/bookmarks-service';
 import { createBundlesService } from '../services/bundles/bundles-service';
 import { createCasesService } from '../services/cases/cases-service';
+import { createEvidenceOrphans } from '../services/evidence/evidence-orphans';
 import { createEvidenceStore } from '../services/evidence/evidence-store';
 import { createFindingsService } from '../services/findings/findings-service';
 import { createReviewService } from '../services/findings/review-service';
@@ -58,6 +59,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const cases = createCasesService({ db, audit, lifecycle });
 
   const evidence = createEvidenceStore(config.dataDir);
+  const evidenceOrphans = createEvidenceOrphans({ db, evidence, dataDir: config.dataDir });
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
@@ -109,6 +111,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     lifecycle,
     cases,
     evidence,
+    evidenceOrphans,
     bundles,
     replays,
     replayWorkers,
