@@ -45,7 +45,7 @@ async function main() {
   if (orphans.incoming.length || orphans.unrecorded.length) {
     logger.warn(
       { incoming: orphans.incoming.length, unrecorded: orphans.unrecorded.length },
-      'files under DATA_DIR that no bundle accounts for (left by an interrupted upload?); listed for the admin at GET /api/evidence/orphans and on the Users page, nothing was deleted',
+      'files under DATA_DIR that no bundle accounts for (left by an interrupted upload?); listed for the admin at GET /api/evidence/orphans (admin), nothing was deleted',
     );
   }
   const interrupted = await services.replays.failInterruptedReplays();
