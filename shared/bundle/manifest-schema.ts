@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_PARTICLES, MAX_SEED, MIN_SEED } from './filter-limits';
 import { BUNDLE_FORMAT, type Manifest, RESAMPLING_METHODS, type ResamplingMethod } from './types';
 
 /**
@@ -12,6 +13,7 @@ const nonNegative = z.number().nonnegative();
 const probability = z.number().min(0).max(1);
 const angle = z.number().gt(-Math.PI).lte(Math.PI).describe('radians in (-pi, pi]');
 const positiveInt = z.int().positive();
+const particleCount = z.int().min(1).max(MAX_PARTICLES).describe(`1 to ${MAX_PARTICLES} particles`);
 
 const ZFootprint = z.discriminatedUnion('shape', [
   z.strictObject({ shape: z.literal('circle'), radius: positive.describe('m') }),
@@ -29,6 +31,14 @@ const ZRobot = z.strictObject({
   max_speed: positive.describe('m/s'),
   max_decel: positive.describe('m/s^2'),
   reaction_time: nonNegative.describe('s'),
+  protective_device: z
+    .strictObject({
+      name: z.string().min(1),
+      detection_capability: positive.describe('mm, d: smallest object the device is sure to detect'),
+      response_time: nonNegative.describe('s, detection to output off'),
+    })
+    .describe('A fixed protective device, for the ISO 13855 minimum distance')
+    .optional(),
 });
 
 export const ZScanConfig = z.strictObject({
@@ -55,8 +65,8 @@ export const ZDetectorConfig = z.strictObject({
 });
 
 const ZFilter = z.strictObject({
-  particles: positiveInt,
-  seed: z.int(),
+  particles: particleCount,
+  seed: z.int().min(MIN_SEED).max(MAX_SEED),
   motion: z.strictObject({
     model: z.literal('odometry'),
     alpha: z
@@ -97,12 +107,30 @@ const ZFilter = z.strictObject({
       epsilon: positive,
       delta: z.number().gt(0).lt(1),
       bin_size: z.tuple([positive, positive, positive]).describe('[m, m, rad]'),
-      min_particles: positiveInt,
-      max_particles: positiveInt,
+      min_particles: particleCount,
+      max_particles: particleCount,
     })
     .describe('KLD-sampling (Fox 2003)')
     .optional(),
 });
+
+const ZProvenance = z
+  .strictObject({
+    importer: z.string(),
+    sources: z.array(
+      z.strictObject({
+        role: z.enum(['recording', 'map', 'map_image', 'params', 'robot']),
+        name: z.string(),
+        sha256: z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lower-case hex'),
+        format: z.string(),
+      }),
+    ),
+    topics: z.record(z.string(), z.string()),
+    assumed: z.array(z.string()),
+    approximated: z.array(z.string()),
+    notes: z.record(z.string(), z.string()),
+  })
+  .describe('Originals a bundle derived from a robot recording came from (docs/robot-recordings.md)');
 
 export const ZManifest = z.strictObject({
   format: z.literal(BUNDLE_FORMAT),
@@ -112,6 +140,7 @@ export const ZManifest = z.strictObject({
   scan: ZScanConfig.optional(),
   detector: ZDetectorConfig.optional(),
   filter: ZFilter,
+  provenance: ZProvenance.optional(),
 });
 
 // Fails to compile if the schema and the hand-written `Manifest` type drift apart.

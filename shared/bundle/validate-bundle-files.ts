@@ -1,5 +1,5 @@
 import { type BundleReadResult, createBundleReader, isBundleFileName } from './bundle-reader';
-import { feedText } from './line-splitter';
+import { feedText, LineTooLongError } from './line-splitter';
 import { BUNDLE_FILES } from './types';
 
 /**
@@ -14,8 +14,13 @@ export function validateBundleFiles(files: Record<string, string>, issueLimit?: 
   for (const name of BUNDLE_FILES) {
     if (name === 'manifest.json' || name === 'map.json' || !(name in files)) continue;
     const sink = reader.openTable(name);
-    feedText(files[name], sink.pushLine);
-    sink.finish();
+    try {
+      feedText(files[name], sink.pushLine);
+      sink.finish();
+    } catch (error) {
+      if (!(error instanceof LineTooLongError)) throw error;
+      reader.addIssue({ file: name, line: error.lineNumber, message: error.message });
+    }
   }
   for (const name of Object.keys(files)) if (!isBundleFileName(name)) reader.noteExtraFile(name);
   return reader.finish();

@@ -42,6 +42,11 @@ export interface ReplayOptions {
    * into shared memory and set `workspace.particleStages` for a split across threads.
    */
   adopt?: (state: ParticleState, workspace: StepWorkspace, context: ReplayContext) => void;
+  /**
+   * Called after every step with the particle set as it stands (read only), e.g. for the safety
+   * analysis's contact probability. It cannot change the replay or its digest.
+   */
+  onStepState?: (state: Readonly<ParticleState>, step: number) => void;
 }
 
 export interface ReplayMetrics {
@@ -109,6 +114,7 @@ export function runReplay(
   for (let step = 0; step < steps; step++) {
     const record = advanceStep(context, state, workspace, step, true);
     storeStepRecord(series, step, record);
+    options.onStepState?.(state, step);
     if (keyframeInterval > 0 && step % keyframeInterval === 0) keyframes.push(snapshotState(state));
     const keepGoing = options.onStep?.({ step, steps });
     if (keepGoing === false || options.signal?.aborted) throw new ReplayCancelledError(step);

@@ -3,17 +3,17 @@
  * and defaults filled in for the optional recovery and KLD blocks.
  */
 import { z } from 'zod';
+import { MAX_PARTICLES, MAX_SEED, MIN_SEED } from '../bundle/filter-limits';
 import type { FilterConfig, KldConfig, Manifest, RecoveryConfig, ScanModelConfig } from '../bundle/types';
 import { RESAMPLING_METHODS } from '../bundle/types';
 
-/** Upper limit on the particle count, so a typo cannot exhaust memory. */
-export const MAX_PARTICLES = 200_000;
+export { MAX_PARTICLES };
 
 /** What-if overrides accepted by the CLI and the API. Every field is optional. */
 export const ZReplayOverrides = z
   .object({
     particles: z.number().int().min(1).max(MAX_PARTICLES).optional(),
-    seed: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).optional(),
+    seed: z.number().int().min(MIN_SEED).max(MAX_SEED).optional(),
     resampling_method: z.enum(RESAMPLING_METHODS as [string, ...string[]]).optional(),
     resampling_threshold: z.number().min(0).max(1).optional(),
     beams_used: z.number().int().min(1).optional(),
@@ -88,12 +88,12 @@ export function resolveReplaySettings(manifest: Manifest, overrides: TReplayOver
     if (!scanModel || !manifest.scan) {
       issues.push({
         field: 'beams_used',
-        message: 'the bundle has no scan model or scan configuration to apply beams_used to',
+        message: 'This bundle has no laser scan settings, so beams used cannot be set',
       });
     } else if (overrides.beams_used > manifest.scan.beams) {
       issues.push({
         field: 'beams_used',
-        message: `must be at most the scan's beam count ${manifest.scan.beams}, got ${overrides.beams_used}`,
+        message: `This must be ${manifest.scan.beams} or less: the scanner records ${manifest.scan.beams} beams per scan (got ${overrides.beams_used})`,
       });
     } else {
       scanModel = { ...scanModel, beams_used: overrides.beams_used };

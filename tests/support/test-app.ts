@@ -6,6 +6,7 @@ import { createApp, type DriftcaseApp } from '../../api/src/app';
 import { createServices, type Services } from '../../api/src/composition/create-services';
 import { loadConfig } from '../../api/src/config';
 import type { Database, DatabaseHandle } from '../../api/src/db/client';
+import type { ReplayPool } from '../../api/src/replays/replay-pool';
 import { DEMO_PASSWORD } from '../../api/src/seed/demo-people';
 import { seedDemoData } from '../../api/src/seed/seed-demo';
 import type { TLoginResponse } from '../../shared/contracts/auth';
@@ -29,10 +30,15 @@ const testConfig = (env: Record<string, string>) =>
  */
 export async function createTestApp(
   env: Record<string, string> = {},
-  options: { database?: DatabaseHandle } = {},
+  options: { database?: DatabaseHandle; replayPool?: ReplayPool } = {},
 ): Promise<TestApp> {
   const database = options.database ?? (await createTestDatabase());
-  const app = createApp({ db: database.db, config: testConfig(env), logger: pino({ level: 'silent' }) });
+  const app = createApp({
+    db: database.db,
+    config: testConfig(env),
+    logger: pino({ level: 'silent' }),
+    replayPool: options.replayPool,
+  });
   await seedDemoData(app.locals.services);
   const tokens = new Map<Role, string>();
   return {

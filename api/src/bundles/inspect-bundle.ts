@@ -2,7 +2,7 @@ import { stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import type { Readable } from 'node:stream';
 import { type BundleReader, createBundleReader, isBundleFileName } from '@shared/bundle/bundle-reader';
-import { LineSplitter } from '@shared/bundle/line-splitter';
+import { LineSplitter, LineTooLongError } from '@shared/bundle/line-splitter';
 import { type BundleSummary, summarizeBundle } from '@shared/bundle/summarize-bundle';
 import type { Bundle, BundleIssue } from '@shared/bundle/types';
 import { type ConsumedFile, consumeFileStream, InvalidTextError } from './consume-file-stream';
@@ -107,6 +107,10 @@ async function readListedFiles(
         // Refuse the whole archive: nothing more is unpacked once it has shown itself hostile.
         reader.addIssue({ file: source.name, message: `zip refused: ${error.message}` });
         return { ok: false, issues: reader.finish().issues, files };
+      }
+      if (error instanceof LineTooLongError) {
+        reader.addIssue({ file: source.name, line: error.lineNumber, message: error.message });
+        continue;
       }
       const message =
         error instanceof InvalidTextError ? error.message : `could not read: ${(error as Error).message}`;

@@ -4,6 +4,7 @@ import { safeText, unsafeTextReason } from '../../../shared/contracts/safe-text'
 import { AppError } from '../../../shared/errors';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
+import { sendStoredFile } from '../http/send-stored-file';
 import { singleFileUpload } from '../http/single-file-upload';
 import type { BundlesService } from '../services/bundles/bundles-service';
 import { ZCaseParams } from './cases';
@@ -99,9 +100,13 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       handler: async (req, res) => {
         const { id, name } = ZTableParams.parse(req.params);
         const file = await bundles.tableFile(id, name);
-        res.setHeader('Content-Type', 'application/vnd.apache.arrow.stream');
-        res.setHeader('Cache-Control', 'private, max-age=3600');
-        fs.createReadStream(file).pipe(res);
+        await sendStoredFile(res, file, {
+          what: `table ${name} of bundle ${id}`,
+          headers: {
+            'Content-Type': 'application/vnd.apache.arrow.stream',
+            'Cache-Control': 'private, max-age=3600',
+          },
+        });
       },
     },
     {

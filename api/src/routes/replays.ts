@@ -1,10 +1,10 @@
-import fs from 'node:fs';
 import { z } from 'zod';
 import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ZStartReplayRequest } from '../../../shared/contracts/replays';
 import { NEES_BOUND_95 } from '../../../shared/engine/trajectory-error';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
+import { sendStoredFile } from '../http/send-stored-file';
 import type { ReplayNotice, ReplaysService } from '../services/replays/replays-service';
 
 const ZId = z.object({ id: z.uuid('Id must be a UUID') });
@@ -109,12 +109,15 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
           (replay.settings as { resampling?: { threshold?: number } })?.resampling?.threshold ?? null;
         const meta = { steps: replay.steps, neesBound: NEES_BOUND_95, resamplingThreshold: threshold };
         // The columns file is sent as stored, wrapped without re-parsing it.
-        res.setHeader('Content-Type', 'application/json; charset=utf-8');
-        res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
-        res.write(`${JSON.stringify(meta).slice(0, -1)},"columns":`);
-        fs.createReadStream(file)
-          .on('end', () => res.end('}'))
-          .pipe(res, { end: false });
+        await sendStoredFile(res, file, {
+          what: `the series of replay ${id}`,
+          headers: {
+            'Content-Type': 'application/json; charset=utf-8',
+            'Cache-Control': 'private, max-age=86400, immutable',
+          },
+          prefix: `${JSON.stringify(meta).slice(0, -1)},"columns":`,
+          suffix: '}',
+        });
       },
     },
     {
@@ -133,8 +136,10 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        res.setHeader('Content-Type', 'application/octet-stream');
-        fs.createReadStream(await replays.disagreementFile(id)).pipe(res);
+        await sendStoredFile(res, await replays.disagreementFile(id), {
+          what: `the map disagreement of replay ${id}`,
+          headers: { 'Content-Type': 'application/octet-stream' },
+        });
       },
     },
   ];

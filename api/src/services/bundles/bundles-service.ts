@@ -36,9 +36,16 @@ export interface UploadOutcome {
 /** Table names served to the browser; they match the bundle's file stems. */
 const TABLE_NAME = /^[a-z_]{1,40}$/;
 
+const isFile = (file: string) =>
+  fs.promises.stat(file).then(
+    (stat) => stat.isFile(),
+    () => false,
+  );
+
 export function createBundlesService(options: BundlesServiceOptions) {
   const { db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes } = options;
   const tablesDir = (bundleId: string) => path.join(derivedDir, 'bundles', bundleId, 'tables');
+  const rebuilding = new Map<string, Promise<void>>();
 
   const selectWithUploader = (executor: Database = db) =>
     executor
@@ -201,7 +208,41 @@ export function createBundlesService(options: BundlesServiceOptions) {
       const known = bundle.tables.map((table) => table.name).join(', ') || 'none';
       throw new AppError('not_found', `Bundle ${bundleId} has no table "${name}". Tables: ${known}.`);
     }
-    return path.join(tablesDir(bundleId), `${name}.arrow`);
+    const file = path.join(tablesDir(bundleId), `${name}.arrow`);
+    if (!(await isFile(file))) await rebuildTables(bundleId);
+    return file;
+  }
+
+  /**
+   * Arrow tables are derived copies: when one is missing, every table is written again from the
+   * parsed original into a fresh folder and moved into place, so a reader never sees half a file.
+   */
+  async function rebuildTables(bundleId: string): Promise<void> {
+    let pending = rebuilding.get(bundleId);
+    if (!pending) {
+      pending = (async () => {
+        const temp = `${tablesDir(bundleId)}.rebuild-${randomUUID()}`;
+        try {
+          const written = await writeArrowTables(await views.parsedBundle(bundleId), temp);
+          await fs.promises.mkdir(tablesDir(bundleId), { recursive: true });
+          for (const table of written) {
+            await fs.promises.rename(table.file, path.join(tablesDir(bundleId), `${table.name}.arrow`));
+          }
+        } catch (error) {
+          if (error instanceof AppError) throw error;
+          throw new AppError(
+            'internal',
+            `The tables of bundle ${bundleId} are missing and could not be rebuilt from the original: ${(error as Error).message}`,
+            undefined,
+            { cause: error },
+          );
+        } finally {
+          await fs.promises.rm(temp, { recursive: true, force: true });
+        }
+      })().finally(() => rebuilding.delete(bundleId));
+      rebuilding.set(bundleId, pending);
+    }
+    await pending;
   }
 
   async function originalFile(bundleId: string): Promise<{ path: string; name: string }> {

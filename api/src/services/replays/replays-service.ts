@@ -20,6 +20,7 @@ import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
+import { createReplayRebuilder } from './rebuild-replay-files';
 import { toReplay } from './replay-mapper';
 import { createStepCache } from './step-cache';
 
@@ -31,11 +32,15 @@ export interface ReplaysServiceOptions {
   pool: ReplayPool;
   logger: Logger;
   maxUnpackedBytes: number;
+  /** Replays one user may have queued or running at once (MAX_RUNNING_REPLAYS_PER_USER). */
+  maxRunningPerUser?: number;
   /** Parsed bundle by id, from the bundles service's cache (used to answer single steps). */
   loadBundle: (bundleId: string) => Promise<Bundle>;
 }
 
 interface LiveReplay {
+  /** Who started it: their running replays count against their cap. */
+  userId: string;
   progress: { step: number; steps: number } | null;
   controller: AbortController;
 }
@@ -53,12 +58,18 @@ export function createReplaysService({
   pool,
   logger,
   maxUnpackedBytes,
+  maxRunningPerUser = 3,
   loadBundle,
 }: ReplaysServiceOptions) {
   const live = new Map<string, LiveReplay>();
+  /** Starts between the cap check and `live.set`, so two simultaneous requests cannot both pass. */
+  const starting = new Map<string, number>();
+  const runningOf = (userId: string) =>
+    (starting.get(userId) ?? 0) + [...live.values()].filter((replay) => replay.userId === userId).length;
   const notices = new EventEmitter();
   notices.setMaxListeners(100);
   const steps = createStepCache(loadBundle);
+  const rebuilder = createReplayRebuilder({ derivedDir, pool, maxUnpackedBytes });
 
   const selectReplays = () =>
     db
@@ -172,7 +183,35 @@ export function createReplaysService({
         resolved.issues.map((i) => ({ path: `overrides.${i.field}`, message: i.message })),
       );
     }
+    if (runningOf(actor.id) >= maxRunningPerUser) {
+      throw new AppError(
+        'too_many_requests',
+        `You already have ${maxRunningPerUser} replays queued or running, the most one person may run at once. Wait for one to finish, or cancel one, then start this one again.`,
+        { limit: maxRunningPerUser },
+      );
+    }
+    starting.set(actor.id, (starting.get(actor.id) ?? 0) + 1);
     const id = randomUUID();
+    try {
+      await insertReplay(id, bundleId, bundle.caseId, body, resolved.settings, actor);
+      live.set(id, { userId: actor.id, progress: null, controller: new AbortController() });
+    } finally {
+      const left = (starting.get(actor.id) ?? 1) - 1;
+      if (left > 0) starting.set(actor.id, left);
+      else starting.delete(actor.id);
+    }
+    void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides, resolved.settings);
+    return getReplay(id);
+  }
+
+  async function insertReplay(
+    id: string,
+    bundleId: string,
+    caseId: string,
+    body: ReturnType<typeof ZStartReplayRequest.parse>,
+    settings: ReplaySettings,
+    actor: Actor,
+  ) {
     await db.transaction(async (tx) => {
       await tx.insert(replays).values({
         id,
@@ -180,7 +219,7 @@ export function createReplaysService({
         label: body.label ?? '',
         status: 'queued',
         overrides: body.overrides,
-        settings: resolved.settings,
+        settings,
         createdBy: actor.id,
       });
       await audit.append(tx, {
@@ -188,14 +227,11 @@ export function createReplaysService({
         action: 'replay.start',
         targetType: 'replay',
         targetId: id,
-        caseId: bundle.caseId,
+        caseId,
         details: { bundleId },
         payload: { bundleId, label: body.label ?? '', overrides: body.overrides },
       });
     });
-    live.set(id, { progress: null, controller: new AbortController() });
-    void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides, resolved.settings);
-    return getReplay(id);
   }
 
   /** Cancels a live replay; the request is audited before the run is stopped, never after. */
@@ -231,25 +267,40 @@ export function createReplaysService({
     return replay;
   }
 
+  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
+  async function requireResultFiles(id: string): Promise<{ replay: TReplay; dir: string }> {
+    const replay = await requireDone(id);
+    const [bundle] = await db
+      .select({ sha256: bundles.sha256 })
+      .from(bundles)
+      .where(eq(bundles.id, replay.bundleId));
+    if (!bundle) throw new AppError('not_found', `No bundle with id ${replay.bundleId}.`);
+    const dir = await rebuilder.ensureFiles({
+      id,
+      bundlePath: evidence.pathFor(bundle.sha256),
+      overrides: replay.overrides,
+      digest: replay.digest,
+    });
+    return { replay, dir };
+  }
+
   async function seriesFile(id: string): Promise<string> {
-    await requireDone(id);
-    return path.join(replayDir(derivedDir, id), 'series.json');
+    return path.join((await requireResultFiles(id)).dir, 'series.json');
   }
 
   async function stepAt(id: string, step: number) {
-    const replay = await requireDone(id);
+    const { replay, dir } = await requireResultFiles(id);
     if (step >= (replay.steps ?? 0)) {
       throw new AppError(
         'not_found',
         `Replay ${id} has steps 0 to ${(replay.steps ?? 1) - 1}; step ${step} does not exist.`,
       );
     }
-    return steps.stepAt(id, replay.bundleId, replayDir(derivedDir, id), step);
+    return steps.stepAt(id, replay.bundleId, dir, step);
   }
 
   async function disagreementFile(id: string): Promise<string> {
-    await requireDone(id);
-    return path.join(replayDir(derivedDir, id), 'disagreement.bin');
+    return path.join((await requireResultFiles(id)).dir, 'disagreement.bin');
   }
 
   return {
