@@ -46,6 +46,14 @@ async function main() {
   });
   const { services } = app.locals;
   services.mailQueue.start();
+  // Reported, never deleted: the admin decides what happens to files no bundle row accounts for.
+  const orphans = await services.evidenceOrphans.findOrphans();
+  if (orphans.incoming.length || orphans.unrecorded.length) {
+    logger.warn(
+      { incoming: orphans.incoming.length, unrecorded: orphans.unrecorded.length },
+      'files under DATA_DIR that no bundle accounts for (left by an interrupted upload?); listed for the admin at GET /api/evidence/orphans (admin), nothing was deleted',
+    );
+  }
   const interrupted = await services.replays.failInterruptedReplays();
   if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
   if (

@@ -51,7 +51,10 @@ describe('data layer on PostgreSQL', () => {
 
   it('signs in and authenticates through the sessions table', async () => {
     const { auth } = services;
-    const session = await auth.logIn({ email: 'legal@driftcase.example', password: 'driftcase-demo' });
+    const session = await auth.logIn(
+      { email: 'legal@driftcase.example', password: 'driftcase-demo' },
+      { address: '127.0.0.1' },
+    );
     const checked = await auth.authenticate(session.token, 'bearer');
     expect(checked?.user.role).toBe('legal');
     await auth.logOut(checked!.user);

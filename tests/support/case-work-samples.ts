@@ -92,5 +92,6 @@ export function caseWorkSamples(
     'get /keys/thumbprints': () => ({ path: '/api/keys/thumbprints' }),
     'post /keys/rotate': () => ({ path: '/api/keys/rotate', body: {} }),
     'get /outbox': () => ({ path: '/api/outbox' }),
+    'get /evidence/orphans': () => ({ path: '/api/evidence/orphans' }),
   };
 }

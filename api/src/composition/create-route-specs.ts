@@ -7,6 +7,7 @@ import { authRoutes } from '../routes/auth';
 import { bookmarkRoutes } from '../routes/bookmarks';
 import { bundleRoutes } from '../routes/bundles';
 import { caseRoutes } from '../routes/cases';
+import { evidenceOrphanRoutes } from '../routes/evidence-orphans';
 import { findingsRoutes } from '../routes/findings';
 import { fixRoutes } from '../routes/fixes';
 import { healthRoutes } from '../routes/health';
@@ -34,6 +35,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...userRoutes(services.users),
     ...caseRoutes(services.cases),
     ...bundleRoutes(services.bundles, uploads),
+    ...evidenceOrphanRoutes(services.evidenceOrphans),
     ...replayRoutes(services.replays),
     ...lifecycleRoutes(services.lifecycle),
     ...findingsRoutes(services.findings, services.reviews),

@@ -7,9 +7,12 @@ import { createArchiveService } from '../services/archive/archive-service';
 import { createAuditService } from '../services/audit/audit-service';
 import { createCheckpointService } from '../services/audit/checkpoint-service';
 import { createAuthService } from '../services/auth/auth-service';
+import { createPasswordHashing } from '../services/auth/password-hashing';
+import { createSignInThrottle } from '../services/auth/sign-in-throttle';
 import { createBookmarksService } from '../services/bookmarks/bookmarks-service';
 import { createBundlesService } from '../services/bundles/bundles-service';
 import { createCasesService } from '../services/cases/cases-service';
+import { createEvidenceOrphans } from '../services/evidence/evidence-orphans';
 import { createEvidenceStore } from '../services/evidence/evidence-store';
 import { createFindingsService } from '../services/findings/findings-service';
 import { createReviewService } from '../services/findings/review-service';
@@ -40,18 +43,25 @@ export interface ServiceDependencies {
  */
 export function createServices({ db, config, logger, replayPool }: ServiceDependencies) {
   const audit = createAuditService({ db });
+  const passwordHashing = createPasswordHashing();
   const auth = createAuthService({
     db,
     audit,
+    hashing: passwordHashing,
+    throttle: createSignInThrottle({ db }),
     sessionTtlSeconds: config.sessionTtlSeconds,
     sessionMaxAgeSeconds: config.sessionMaxAgeSeconds,
   });
-  const users = createUsersService({ db, audit, revokeAllSessions: auth.revokeAllSessions });
+  const users = createUsersService({
+    ...{ db, audit, hashing: passwordHashing },
+    revokeAllSessions: auth.revokeAllSessions,
+  });
   const holds = createHoldsService({ db, audit });
   const lifecycle = createLifecycleService({ db, audit });
   const cases = createCasesService({ db, audit, lifecycle });
 
   const evidence = createEvidenceStore(config.dataDir);
+  const evidenceOrphans = createEvidenceOrphans({ db, evidence, dataDir: config.dataDir });
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
@@ -100,12 +110,14 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
 
   return {
     audit,
+    passwordHashing,
     auth,
     users,
     holds,
     lifecycle,
     cases,
     evidence,
+    evidenceOrphans,
     bundles,
     replays,
     replayWorkers,

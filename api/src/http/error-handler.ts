@@ -55,6 +55,10 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     status = error.status;
     if (status >= 500) req.log?.error({ err: error, cause: error.cause }, error.message);
     body = { error: { code: error.code, message: error.message, details: error.details } };
+    const retryAfter = (error.details as { retryAfterSeconds?: unknown } | undefined)?.retryAfterSeconds;
+    if (status === 429 && typeof retryAfter === 'number' && !res.headersSent) {
+      res.set('Retry-After', String(retryAfter));
+    }
   } else if (error instanceof ZodError) {
     status = 400;
     const details = toFieldIssues(error);

@@ -1,6 +1,6 @@
-import multer from 'multer';
 import { AppError } from '../../../shared/errors';
 import type { RouteSpec } from '../http/route-spec';
+import { singleFileUpload } from '../http/single-file-upload';
 import type { ArchiveService } from '../services/archive/archive-service';
 import { ZCaseParams } from './cases';
 
@@ -11,10 +11,12 @@ export interface ArchiveRouteOptions {
 
 export function archiveRoutes(archives: ArchiveService, options: ArchiveRouteOptions): RouteSpec[] {
   // Streamed to disk under DATA_DIR: an archive can be as large as its evidence.
-  const upload = multer({
+  const upload = singleFileUpload({
     dest: options.incomingDir,
-    limits: { fileSize: options.maxUploadBytes, files: 1, fields: 5 },
-  }).single('archive');
+    field: 'archive',
+    maxBytes: options.maxUploadBytes,
+    maxFields: 5,
+  });
 
   return [
     {

@@ -1,7 +1,7 @@
 import { ZLoginRequest } from '../../../shared/contracts/auth';
 import { parseEmptyBody } from '../../../shared/contracts/empty-body';
 import { ROLES } from '../../../shared/roles';
-import { loginRateLimit } from '../http/login-rate-limit';
+import { clientAddress } from '../http/client-address';
 import type { RouteSpec } from '../http/route-spec';
 import {
   clearSessionCookies,
@@ -16,11 +16,13 @@ export function authRoutes(auth: AuthService, cookies: SessionCookieOptions): Ro
       method: 'post',
       path: '/auth/login',
       access: 'public',
-      before: [loginRateLimit()],
       audit: { action: 'auth.login' },
       handler: async (req, res) => {
         const body = ZLoginRequest.parse(req.body);
-        const session = await auth.logIn(body, req.get('user-agent'));
+        const session = await auth.logIn(body, {
+          address: clientAddress(req),
+          userAgent: req.get('user-agent'),
+        });
         setSessionCookies(res, session.token, session.csrfToken, cookies);
         res.json(session);
       },

@@ -1,11 +1,11 @@
 import fs from 'node:fs';
-import multer from 'multer';
 import { z } from 'zod';
 import { safeText, unsafeTextReason } from '../../../shared/contracts/safe-text';
 import { AppError } from '../../../shared/errors';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
 import { sendStoredFile } from '../http/send-stored-file';
+import { singleFileUpload } from '../http/single-file-upload';
 import type { BundlesService } from '../services/bundles/bundles-service';
 import { ZCaseParams } from './cases';
 
@@ -20,10 +20,12 @@ export interface BundleRouteOptions {
 
 export function bundleRoutes(bundles: BundlesService, options: BundleRouteOptions): RouteSpec[] {
   // Streams the upload to disk under DATA_DIR; nothing is held whole in memory.
-  const upload = multer({
+  const upload = singleFileUpload({
     dest: options.incomingDir,
-    limits: { fileSize: options.maxUploadBytes, files: 1, fields: 10 },
-  }).single('bundle');
+    field: 'bundle',
+    maxBytes: options.maxUploadBytes,
+    maxFields: 10,
+  });
 
   return [
     {

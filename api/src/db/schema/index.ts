@@ -10,4 +10,5 @@ export * from './replays';
 export * from './saved-queries';
 export * from './server-secrets';
 export * from './sessions';
+export * from './sign-in-throttle';
 export * from './users';

@@ -6,16 +6,25 @@ import type { Database, Transaction } from '../../db/client';
 import { sessions, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
-import { hashPassword, verifyPassword } from './passwords';
+import type { PasswordHashing } from './password-hashing';
 import { loadOrCreateSecret } from './server-secret';
 import { csrfTokenFor, readSessionToken, signSessionToken } from './session-tokens';
 import type { SessionUser } from './session-user';
+import type { SignInThrottle } from './sign-in-throttle';
 
 export interface AuthServiceOptions {
   db: Database;
   audit: AuditService;
+  hashing: PasswordHashing;
+  throttle: SignInThrottle;
   sessionTtlSeconds: number;
   sessionMaxAgeSeconds: number;
+}
+
+/** Where a sign-in comes from: the client address (after trusted proxies) and its browser. */
+export interface SignInOrigin {
+  address: string;
+  userAgent?: string;
 }
 
 export interface IssuedSession {
@@ -36,6 +45,8 @@ const GENERIC_LOGIN_FAILURE = 'E-mail or password is not correct.';
 export function createAuthService({
   db,
   audit,
+  hashing,
+  throttle,
   sessionTtlSeconds,
   sessionMaxAgeSeconds,
 }: AuthServiceOptions) {
@@ -45,12 +56,18 @@ export function createAuthService({
     return keyPromise;
   };
   // Checked against unknown e-mails so a wrong address takes as long as a wrong password.
-  const decoyHash = hashPassword('decoy-password-for-timing');
+  let decoyHash: Promise<string> | undefined;
 
-  async function logIn(request: TLoginRequest, userAgent?: string): Promise<IssuedSession> {
+  async function logIn(request: TLoginRequest, origin: SignInOrigin): Promise<IssuedSession> {
+    const attempt = { email: request.email, address: origin.address };
+    // Counted before the password is checked, so a locked account or address costs no hashing.
+    await throttle.admit(attempt);
     const [row] = await db.select().from(users).where(eq(users.email, request.email));
-    const isMatch = await verifyPassword(request.password, row?.passwordHash ?? (await decoyHash));
+    decoyHash ??= hashing.hash('decoy-password-for-timing');
+    const isMatch = await hashing.verify(request.password, row?.passwordHash ?? (await decoyHash));
     if (!row || !isMatch || !row.active) throw new AppError('invalid_credentials', GENERIC_LOGIN_FAILURE);
+    await throttle.succeeded(attempt);
+    const userAgent = origin.userAgent;
     const sessionId = randomUUID();
     const key = await sessionKey();
     await db.transaction(async (tx) => {

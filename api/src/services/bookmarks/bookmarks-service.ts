@@ -119,6 +119,7 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
       if (existing.authorId !== actor.id && actor.role !== 'admin') {
         throw new AppError('forbidden', 'Only the bookmark author or an admin can edit its note.');
       }
+      await assertNotHeld(tx, existing.caseId, `Editing the note of bookmark ${bookmarkId}`);
       const [updated] = await tx
         .update(bookmarks)
         .set({ note: request.note, updatedAt: new Date() })

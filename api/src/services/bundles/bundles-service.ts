@@ -7,6 +7,7 @@ import { AppError } from '../../../../shared/errors';
 import { inspectBundle } from '../../bundles/inspect-bundle';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
 import type { Database, Transaction } from '../../db/client';
+import { isUniqueViolation } from '../../db/postgres-errors';
 import { bundles, cases, replays, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
@@ -14,6 +15,7 @@ import type { EvidenceStore } from '../evidence/evidence-store';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
+import { storableJson } from './storable-json';
 
 export interface BundlesServiceOptions {
   db: Database;
@@ -101,25 +103,83 @@ export function createBundlesService(options: BundlesServiceOptions) {
       throw error;
     });
     const stored = await evidence.storeUploadedFile(upload.tempFile);
-    const [existing] = await db
-      .select({ id: bundles.id })
-      .from(bundles)
-      .where(and(eq(bundles.caseId, upload.caseId), eq(bundles.sha256, stored.sha256)));
-    if (existing) {
+    const existingOutcome = async (): Promise<UploadOutcome | undefined> => {
+      const [existing] = await db
+        .select({ id: bundles.id })
+        .from(bundles)
+        .where(and(eq(bundles.caseId, upload.caseId), eq(bundles.sha256, stored.sha256)));
+      if (!existing) return undefined;
       const bundle = await getBundle(existing.id);
       await db.transaction((tx) => auditUpload(tx, bundle, true));
       return { bundle, isDuplicate: true };
-    }
+    };
+    const earlier = await existingOutcome();
+    if (earlier) return earlier;
 
     const id = randomUUID();
-    const inspection = await inspectBundle(
-      { kind: 'zip', path: stored.path },
-      { maxTotalBytes: maxUnpackedBytes },
-    );
+    const { inspection, issues, tables } = await validateStored(id, stored.path, upload.originalName);
+    try {
+      const bundle = await db.transaction(async (tx) => {
+        await tx.insert(bundles).values({
+          id,
+          caseId: upload.caseId,
+          sha256: stored.sha256,
+          sizeBytes: stored.sizeBytes,
+          originalName: upload.originalName.slice(0, 255),
+          uploadedBy: actor.id,
+          status: inspection.ok ? 'valid' : 'invalid',
+          // Names and messages come from inside the archive: made storable (jsonb refuses NUL).
+          issues: storableJson(issues),
+          files: storableJson(inspection.files),
+          summary: storableJson(inspection.summary ?? null),
+          manifest: inspection.ok ? storableJson(inspection.bundle?.manifest ?? null) : null,
+          tables,
+        });
+        const inserted = await getBundle(id, tx);
+        await auditUpload(tx, inserted, false);
+        await lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload');
+        return inserted;
+      });
+      return { bundle, isDuplicate: false };
+    } catch (error) {
+      // The same bytes arrived at the same time on another request, which stored them first:
+      // this upload is a duplicate of that bundle, not a failure.
+      if (!isUniqueViolation(error)) throw error;
+      await fs.promises.rm(tablesDir(id), { recursive: true, force: true });
+      const concurrent = await existingOutcome();
+      if (!concurrent) throw error;
+      return concurrent;
+    }
+  }
+
+  /**
+   * Validates a stored original and writes its derived tables. Never throws for what is in the
+   * file: a reader failure becomes an issue, so the original is always recorded with a row.
+   */
+  async function validateStored(id: string, storedPath: string, originalName: string) {
+    let inspection: Awaited<ReturnType<typeof inspectBundle>>;
+    try {
+      inspection = await inspectBundle(
+        { kind: 'zip', path: storedPath },
+        { maxTotalBytes: maxUnpackedBytes },
+      );
+    } catch (error) {
+      inspection = {
+        ok: false,
+        files: [],
+        issues: [
+          {
+            file: originalName,
+            message: `The archive could not be read: ${String(error)}`,
+            severity: 'error',
+          },
+        ],
+      };
+    }
     // Issues about the archive itself name the stored copy; show the name the investigator knows.
-    const storedName = path.basename(stored.path);
+    const storedName = path.basename(storedPath);
     let issues: BundleIssue[] = inspection.issues.map((issue) =>
-      issue.file === storedName ? { ...issue, file: upload.originalName } : issue,
+      issue.file === storedName ? { ...issue, file: originalName } : issue,
     );
     let tables: { name: string; rows: number }[] = [];
     if (inspection.ok && inspection.bundle) {
@@ -138,27 +198,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
         ];
       }
     }
-    const bundle = await db.transaction(async (tx) => {
-      await tx.insert(bundles).values({
-        id,
-        caseId: upload.caseId,
-        sha256: stored.sha256,
-        sizeBytes: stored.sizeBytes,
-        originalName: upload.originalName.slice(0, 255),
-        uploadedBy: actor.id,
-        status: inspection.ok ? 'valid' : 'invalid',
-        issues,
-        files: inspection.files,
-        summary: inspection.summary ?? null,
-        manifest: inspection.ok ? (inspection.bundle?.manifest ?? null) : null,
-        tables,
-      });
-      const inserted = await getBundle(id, tx);
-      await auditUpload(tx, inserted, false);
-      await lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload');
-      return inserted;
-    });
-    return { bundle, isDuplicate: false };
+    return { inspection, issues, tables };
   }
 
   /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */

@@ -14,6 +14,7 @@ import type { Database } from '../../db/client';
 import { type CaseRow, caseReferenceSeq, cases, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
+import { assertNotHeld } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { toCase } from './case-mapper';
@@ -141,6 +142,7 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
     const { status, incidentTime, ...rest } = changes;
     await db.transaction(async (tx) => {
       const current = await loadCaseState(tx, id);
+      await assertNotHeld(tx, id, 'Editing the case record');
       if (status && status !== current.status) {
         await lifecycle.transition(tx, id, status, actor.role, true);
       }

@@ -16,7 +16,7 @@ import type { Database, Transaction } from '../../db/client';
 import { type FindingVersionRow, findingDrafts, findingReviews, findingVersions } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
-import { assertNotHeld, findActiveHold } from '../holds/holds-service';
+import { assertNotHeld, describeHold, findActiveHold } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
@@ -61,7 +61,7 @@ export function createFindingsService(deps: {
   /** Why the findings cannot be edited now, or null; `executor` may be an open transaction. */
   async function editBlockedReason(executor: Database, caseId: string): Promise<string | null> {
     const hold = await findActiveHold(executor, caseId);
-    if (hold) return `The case is under legal hold since ${hold.placedAt} (${hold.reason}).`;
+    if (hold) return `The case is ${await describeHold(executor, hold)}.`;
     const { status } = await loadCaseState(executor, caseId);
     return canEditFindings(status)
       ? null

@@ -3,7 +3,7 @@ import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { TCaseHold, TPlaceHoldRequest, TReleaseHoldRequest } from '../../../../shared/contracts/holds';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
-import { type CaseHoldRow, caseHolds } from '../../db/schema';
+import { type CaseHoldRow, caseHolds, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import { loadCaseState } from '../lifecycle/case-state';
@@ -32,9 +32,21 @@ export async function findActiveHold(db: Database, caseId: string): Promise<TCas
   return row ? toHold(row) : null;
 }
 
+/** "under legal hold placed by Name (e-mail) on <time>: <reason>", for messages that refuse a change. */
+export async function describeHold(db: Database, hold: TCaseHold): Promise<string> {
+  const [placer] = await db
+    .select({ name: users.name, email: users.email })
+    .from(users)
+    .where(eq(users.id, hold.placedBy));
+  const who = placer ? `${placer.name} (${placer.email})` : `user ${hold.placedBy}`;
+  return `under legal hold placed by ${who} on ${hold.placedAt} (${hold.reason})`;
+}
+
 /**
  * Throws 409 `on_hold` when the case is under legal hold. Services call it, inside the write's
- * transaction, before deleting anything that belongs to a case (bundles, replays, ...).
+ * transaction, before changing or deleting anything already recorded on a case: the case record
+ * and its status, findings, bookmarks and their notes, bundles (README, "Legal hold"). Additions
+ * (a new bundle, replay, bookmark, saved query, fix) are allowed and audited as usual.
  * @param what the refused action, for the message (e.g. "Deleting bundle 3f2…").
  */
 export async function assertNotHeld(db: Database, caseId: string, what = 'This change'): Promise<void> {
@@ -42,13 +54,13 @@ export async function assertNotHeld(db: Database, caseId: string, what = 'This c
   if (hold) {
     throw new AppError(
       'on_hold',
-      `${what} is not allowed: case ${caseId} is under legal hold since ${hold.placedAt} (${hold.reason}).`,
+      `${what} is not allowed: case ${caseId} is ${await describeHold(db, hold)}. Additions are still allowed; changes wait until legal lifts the hold.`,
       { caseId, hold },
     );
   }
 }
 
-/** Legal holds: while one is active nothing of the case may be deleted and findings stay as they are. */
+/** Legal holds: while one is active nothing already recorded on the case may be changed or deleted. */
 export function createHoldsService({ db, audit }: { db: Database; audit: AuditService }) {
   async function placeHold(caseId: string, request: TPlaceHoldRequest, actor: Actor): Promise<TCaseHold> {
     return db.transaction(async (tx) => {

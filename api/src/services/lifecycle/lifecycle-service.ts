@@ -9,7 +9,7 @@ import type { Database, Transaction } from '../../db/client';
 import { caseFixes, cases } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
-import { findActiveHold } from '../holds/holds-service';
+import { assertNotHeld, findActiveHold } from '../holds/holds-service';
 import { loadCaseState } from './case-state';
 
 export interface TransitionResult {
@@ -81,6 +81,8 @@ export function createLifecycleService({ db, audit }: { db: Database; audit: Aud
     role: Role,
     direct: boolean,
   ): Promise<TransitionResult> {
+    // The hold is named first: under hold no move is possible, whatever the state machine says.
+    await assertNotHeld(tx, caseId, `Changing the case status to ${to}`);
     const { from, transition: move } = await assertTransition(tx, caseId, to, role, direct);
     // Conditional on the old status, so two racing requests cannot both move the case.
     const [row] = await tx
@@ -120,6 +122,8 @@ export function createLifecycleService({ db, audit }: { db: Database; audit: Aud
     actor: Actor,
     cause: AuditAction,
   ): Promise<TransitionResult | null> {
+    // Under legal hold an addition is recorded but the status stays as the hold found it.
+    if (await findActiveHold(tx, caseId)) return null;
     const [row] = await tx
       .update(cases)
       .set({ status: 'analysing', updatedAt: new Date() })

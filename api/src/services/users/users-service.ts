@@ -12,7 +12,7 @@ import { isUniqueViolation } from '../../db/postgres-errors';
 import { type UserRow, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
-import { hashPassword } from '../auth/passwords';
+import type { PasswordHashing } from '../auth/password-hashing';
 
 export function toUser(row: UserRow): TUser {
   return {
@@ -28,11 +28,12 @@ export function toUser(row: UserRow): TUser {
 export interface UsersServiceOptions {
   db: Database;
   audit: AuditService;
+  hashing: PasswordHashing;
   /** Ends a deactivated account's sessions inside the deactivation's transaction. */
   revokeAllSessions: (tx: Transaction, userId: string) => Promise<void>;
 }
 
-export function createUsersService({ db, audit, revokeAllSessions }: UsersServiceOptions) {
+export function createUsersService({ db, audit, hashing, revokeAllSessions }: UsersServiceOptions) {
   async function listUsers(): Promise<TUser[]> {
     const rows = await db.select().from(users).orderBy(asc(users.name));
     return rows.map(toUser);
@@ -40,7 +41,7 @@ export function createUsersService({ db, audit, revokeAllSessions }: UsersServic
 
   /** `actor` is null when the system itself creates the account (the demo seed). */
   async function createUser(request: TCreateUserRequest, actor: Actor | null): Promise<TUser> {
-    const passwordHash = await hashPassword(request.password);
+    const passwordHash = await hashing.hash(request.password);
     try {
       return await db.transaction(async (tx) => {
         const [row] = await tx

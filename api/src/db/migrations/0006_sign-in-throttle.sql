@@ -1,0 +1,7 @@
+CREATE TABLE "sign_in_throttle" (
+	"key" text PRIMARY KEY NOT NULL,
+	"failures" integer DEFAULT 0 NOT NULL,
+	"window_started_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"lockouts" integer DEFAULT 0 NOT NULL,
+	"locked_until" timestamp with time zone
+);

@@ -1,0 +1,69 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { inArray } from 'drizzle-orm';
+import type { TEvidenceOrphans, TOrphanFile } from '../../../../shared/contracts/evidence-orphans';
+import type { Database } from '../../db/client';
+import { bundles } from '../../db/schema';
+import type { EvidenceStore } from './evidence-store';
+
+const STORED_NAME = /^([0-9a-f]{64})\.bin$/;
+
+async function describeFile(dataDir: string, file: string): Promise<TOrphanFile> {
+  const stat = await fs.promises.stat(file);
+  return {
+    path: path.relative(dataDir, file).split(path.sep).join('/'),
+    sizeBytes: stat.size,
+    modifiedAt: stat.mtime.toISOString(),
+  };
+}
+
+/**
+ * Compares `incoming/` and `evidence/` with the bundles table. It only reports: deleting a file
+ * someone may still need (an original whose row was lost) is a decision for a person, so the
+ * admin sees the list and the start-up log says how many there are.
+ */
+export function createEvidenceOrphans({
+  db,
+  evidence,
+  dataDir,
+}: {
+  db: Database;
+  evidence: EvidenceStore;
+  dataDir: string;
+}) {
+  async function findOrphans(): Promise<TEvidenceOrphans> {
+    const checkedAt = new Date().toISOString();
+    const incomingNames = await fs.promises.readdir(evidence.incoming).catch(() => [] as string[]);
+    const incoming = await Promise.all(
+      incomingNames.map((name) => describeFile(dataDir, path.join(evidence.incoming, name))),
+    );
+    const stored: { sha256: string; file: string }[] = [];
+    const prefixes = await fs.promises.readdir(evidence.root).catch(() => [] as string[]);
+    for (const prefix of prefixes) {
+      const names = await fs.promises.readdir(path.join(evidence.root, prefix)).catch(() => [] as string[]);
+      for (const name of names) {
+        const match = STORED_NAME.exec(name);
+        if (match) stored.push({ sha256: match[1], file: path.join(evidence.root, prefix, name) });
+      }
+    }
+    const recorded = new Set<string>();
+    for (let i = 0; i < stored.length; i += 500) {
+      const chunk = stored.slice(i, i + 500).map((s) => s.sha256);
+      const rows = await db
+        .select({ sha256: bundles.sha256 })
+        .from(bundles)
+        .where(inArray(bundles.sha256, chunk));
+      for (const row of rows) recorded.add(row.sha256);
+    }
+    const unrecorded = await Promise.all(
+      stored
+        .filter((s) => !recorded.has(s.sha256))
+        .map(async (s) => ({ ...(await describeFile(dataDir, s.file)), sha256: s.sha256 })),
+    );
+    return { checkedAt, incoming, unrecorded };
+  }
+
+  return { findOrphans };
+}
+
+export type EvidenceOrphans = ReturnType<typeof createEvidenceOrphans>;
