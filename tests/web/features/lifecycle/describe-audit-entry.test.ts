@@ -11,7 +11,7 @@ describe('case history lines', () => {
         action: 'case.transition',
         details: { from: 'in_review', to: 'changes_requested' },
       }),
-    ).toBe('Status changed from In review to Changes requested');
+    ).toBe('Status changed from In review to Returned with comments');
     expect(describeAuditEntry({ action: 'something.new', details: {} })).toBe('something.new');
   });
 
