@@ -1,4 +1,5 @@
 import type { TReplayFlag } from '@shared/contracts/replays';
+import { InfoButton } from '@web/components/info-button';
 import { EmptyState } from '@web/components/states';
 import { Flag, ShieldCheck } from 'lucide-react';
 
@@ -26,7 +27,7 @@ export function FlagsPanel({ flags, onOpen }: FlagsPanelProps) {
   return (
     <ul className="space-y-2" aria-label="Flags in this replay">
       {sorted.map((flag) => (
-        <li key={`${flag.kind}-${flag.start}-${flag.end}`}>
+        <li key={`${flag.kind}-${flag.start}-${flag.end}`} className="relative">
           <button
             type="button"
             onClick={() => onOpen(flag.start)}
@@ -42,6 +43,11 @@ export function FlagsPanel({ flags, onOpen }: FlagsPanelProps) {
             </span>
             <span className="mt-1 block text-xs">{flag.evidence}</span>
           </button>
+          {/* Beside the button, not in it: a button cannot hold another. */}
+          <span className="absolute top-2.5 right-20 flex gap-1">
+            <InfoButton term={flag.kind} />
+            {/NEES/.test(flag.evidence) && <InfoButton term="nees" />}
+          </span>
         </li>
       ))}
     </ul>
