@@ -24,7 +24,7 @@ export const CASE_STATUS_LABELS: Record<TCaseStatus, string> = {
   open: 'Open',
   analysing: 'Under analysis',
   in_review: 'In review',
-  changes_requested: 'Changes requested',
+  changes_requested: 'Returned with comments',
   signed_off: 'Signed off',
   closed: 'Closed',
 };

@@ -95,16 +95,16 @@ describe('case work', () => {
       .click();
     await investigator.getByRole('heading', { name: 'Findings version 1' }).waitFor();
 
-    // 2. The reviewer sends version 1 back with a comment.
+    // 2. The reviewer returns version 1 with a comment.
     const reviewer = await openAs(browser, 'reviewer', `/cases/${caseId}/findings/versions/1`);
-    await reviewer.getByRole('button', { name: 'Request changes' }).click();
-    const sendBack = reviewer.getByRole('dialog', { name: 'Request changes to version 1' });
-    await sendBack.getByRole('button', { name: 'Send back' }).click();
+    await reviewer.getByRole('button', { name: 'Return with comments' }).click();
+    const sendBack = reviewer.getByRole('dialog', { name: 'Return version 1 with comments' });
+    await sendBack.getByRole('button', { name: 'Return to the author' }).click();
     await sendBack.getByText('Say what needs to change').waitFor(); // the comment is required
     await sendBack
-      .getByLabel('What needs to change')
+      .getByLabel('Comments for the author')
       .fill('Name the layout change and when the map was last built.');
-    await sendBack.getByRole('button', { name: 'Send back' }).click();
+    await sendBack.getByRole('button', { name: 'Return to the author' }).click();
     await reviewer.getByText('Name the layout change and when the map was last built.').first().waitFor();
 
     // 3. The investigator edits and resubmits: version 2.
@@ -124,13 +124,13 @@ describe('case work', () => {
 
     // 4. The reviewer signs version 2 after ticking the caution.
     await reviewer.goto(`/cases/${caseId}/findings/versions/2`);
-    await reviewer.getByRole('button', { name: 'Sign', exact: true }).click();
-    const sign = reviewer.getByRole('dialog', { name: 'Sign findings version 2' });
+    await reviewer.getByRole('button', { name: 'Sign off', exact: true }).click();
+    const sign = reviewer.getByRole('dialog', { name: 'Sign off findings version 2' });
     await sign.getByRole('complementary', { name: 'Safety caution' }).waitFor();
-    await sign.getByRole('button', { name: 'Sign version 2' }).click();
+    await sign.getByRole('button', { name: 'Sign off version 2' }).click();
     await sign.getByText(/Tick that you have read the safety caution/).waitFor();
     await sign.getByLabel('I have read this safety caution.').check();
-    await sign.getByRole('button', { name: 'Sign version 2' }).click();
+    await sign.getByRole('button', { name: 'Sign off version 2' }).click();
     await reviewer.getByText('Signature valid').waitFor();
     await saveScreenshot(reviewer, 'findings-signed-version');
 

@@ -179,4 +179,65 @@ describe('the workspace tells the truth about the step it draws', () => {
     ).toBe(nearest(between));
     await saveScreenshot(page, 'workspace-deep-link');
   }, 200_000);
+
+  it('explains ESS and flag kinds behind info buttons with their source, on a Help page, and draws the map in Driftcase colours', async () => {
+    if (!made) throw new Error('the first test did not make the long replay');
+    const { bundleId, replayId } = made;
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
+    await page.getByRole('slider', { name: 'Replay time' }).waitFor({ timeout: 60_000 });
+
+    await page.getByRole('button', { name: 'What is Effective sample size (ESS)?' }).click();
+    const note = page.getByRole('note', { name: 'Effective sample size (ESS)' });
+    expect(await note.textContent()).toMatch(/Source: Kong, Liu & Wong \(1994\)/);
+    await saveScreenshot(page, 'workspace-info-ess');
+    await note.getByRole('link', { name: 'All terms on the Help page' }).click();
+    await page.getByRole('heading', { name: 'Help' }).waitFor();
+    expect(new URL(page.url()).hash).toBe('#ess');
+    for (const term of [
+      'Normalised estimation error squared (NEES)',
+      'Log-likelihood per measurement',
+      'Systematic resampling',
+      'Flag: map out of date',
+    ])
+      await page.getByText(term, { exact: true }).waitFor();
+    await saveScreenshot(page, 'help', { fullPage: true });
+    // The Help page is in the navigation for every role.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Help' }).waitFor();
+
+    // The map: Driftcase's palette (occupied #2E3A4B, free #F7F4EC), never pure black or white cells.
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
+    const canvas = page.getByTestId('map-canvas');
+    await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 30_000 }).toBe('0');
+    const counts = await canvas.evaluate((element) => {
+      const c = element as HTMLCanvasElement;
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      const near = (i: number, rgb: number[]) =>
+        Math.abs(data[i] - rgb[0]) < 6 &&
+        Math.abs(data[i + 1] - rgb[1]) < 6 &&
+        Math.abs(data[i + 2] - rgb[2]) < 6;
+      let occupied = 0;
+      let free = 0;
+      let white = 0;
+      for (let i = 0; i < data.length; i += 4) {
+        if (near(i, [0x2e, 0x3a, 0x4b])) occupied++;
+        if (near(i, [0xf7, 0xf4, 0xec])) free++;
+        if (near(i, [255, 255, 255])) white++;
+      }
+      return { occupied, free, white };
+    });
+    expect(counts.occupied).toBeGreaterThan(100);
+    expect(counts.free).toBeGreaterThan(1000);
+    expect(counts.white).toBeLessThan(counts.free / 10);
+    const legend = page.getByRole('list', { name: 'Map legend' });
+    expect(await legend.getByRole('checkbox').count()).toBe(0);
+    expect(await legend.textContent()).toContain('Unknown cell');
+    await page.getByLabel('Map disagreement').selectOption('moment');
+    await page.getByRole('figure', { name: 'Map disagreement scale' }).waitFor();
+    expect(await page.getByRole('figure', { name: 'Map disagreement scale' }).textContent()).toContain(
+      'scan endpoints on a free cell',
+    );
+    await saveScreenshot(page, 'workspace-1280x800');
+  }, 200_000);
 });

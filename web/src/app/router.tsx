@@ -11,6 +11,7 @@ import { FindingsDiffRoute } from './routes/findings-diff';
 import { FindingsVersionRoute } from './routes/findings-version';
 import { FixesRoute } from './routes/fixes';
 import { requireSession } from './routes/guards';
+import { HelpRoute } from './routes/help';
 import { NewCaseRoute, newCaseLoader } from './routes/new-case';
 import { NotFoundRoute } from './routes/not-found';
 import { OutboxRoute, outboxLoader } from './routes/outbox';
@@ -116,6 +117,7 @@ export function createAppRouter(queryClient: QueryClient) {
               element: <CompareRoute />,
               handle: title('Cases / Compare replays'),
             },
+            { path: paths.help.path, element: <HelpRoute />, handle: title('Help') },
             { path: '*', element: <NotFoundRoute />, handle: title('Not found') },
           ],
         },

@@ -13,6 +13,7 @@ export const paths = {
   newCase: { path: '/cases/new', href: () => '/cases/new' },
   caseDetail: { path: '/cases/:caseId', href: (caseId: string) => `/cases/${encodeURIComponent(caseId)}` },
   users: { path: '/admin/users', href: () => '/admin/users' },
+  help: { path: '/help', href: () => '/help' },
   reviewQueue: { href: () => '/cases?status=in_review' },
   caseFindings: {
     path: '/cases/:caseId/findings',

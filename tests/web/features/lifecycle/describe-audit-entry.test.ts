@@ -11,7 +11,7 @@ describe('case history lines', () => {
         action: 'case.transition',
         details: { from: 'in_review', to: 'changes_requested' },
       }),
-    ).toBe('Status changed from In review to Changes requested');
+    ).toBe('Status changed from In review to Returned with comments');
     // Actions without a detailed line take their shared label; one unknown to this build reads as words.
     expect(describeAuditEntry({ action: 'saved_query.create', details: {} })).toBe('Query saved');
     expect(describeAuditEntry({ action: 'bookmark.create', details: {} })).toBe('Moment pinned');

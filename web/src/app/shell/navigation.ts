@@ -1,6 +1,6 @@
 import { ROLES, type Role } from '@shared/roles';
 import { paths } from '@web/config/paths';
-import { FilePlus2, FolderKanban, Inbox, type LucideIcon, Mail, Users } from 'lucide-react';
+import { CircleHelp, FilePlus2, FolderKanban, Inbox, type LucideIcon, Mail, Users } from 'lucide-react';
 
 export interface NavItem {
   label: string;
@@ -48,6 +48,10 @@ export const NAV_SECTIONS: NavSection[] = [
       { label: 'Users', href: paths.users.href(), icon: Users, roles: ['admin'] },
       { label: 'Outbox', href: paths.outbox.href(), icon: Mail, roles: ['admin'] },
     ],
+  },
+  {
+    label: 'Reference',
+    items: [{ label: 'Help', href: paths.help.href(), icon: CircleHelp, roles: ROLES }],
   },
 ];
 

@@ -1,4 +1,5 @@
 import type { TFindingsVersion } from '@shared/contracts/findings';
+import { REVIEW_WORDS } from '@shared/review-words';
 import { LocalTime } from '@web/components/local-time';
 import { SafetyCautionNote } from '@web/components/safety-caution-note';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
@@ -19,8 +20,10 @@ function Reviews({ version }: { version: TFindingsVersion }) {
       {version.reviews.map((review) => (
         <li key={`${review.kind}-${review.at}`}>
           <p>
-            <span className="font-bold">{review.kind === 'signoff' ? 'Signed' : 'Sent back'}</span> by{' '}
-            {review.reviewer.name}, <LocalTime iso={review.at} />
+            <span className="font-bold">
+              {review.kind === 'signoff' ? 'Signed off' : REVIEW_WORDS.returnedStatus}
+            </span>{' '}
+            by {review.reviewer.name}, <LocalTime iso={review.at} />
           </p>
           {review.comment && <p className="whitespace-pre-line text-ink-muted italic">“{review.comment}”</p>}
         </li>

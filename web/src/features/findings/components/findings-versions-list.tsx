@@ -1,4 +1,5 @@
 import type { TFindingsVersionSummary } from '@shared/contracts/findings';
+import { REVIEW_WORDS } from '@shared/review-words';
 import { LocalTime } from '@web/components/local-time';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { paths } from '@web/config/paths';
@@ -11,7 +12,7 @@ const STATE: Record<
   { icon: LucideIcon; label: string; className: string }
 > = {
   submitted: { icon: Clock, label: 'Awaiting review', className: 'text-state-warn' },
-  returned: { icon: MessageSquareWarning, label: 'Changes requested', className: 'text-state-bad' },
+  returned: { icon: MessageSquareWarning, label: REVIEW_WORDS.returnedStatus, className: 'text-state-bad' },
   signed: { icon: BadgeCheck, label: 'Signed', className: 'text-state-ok' },
   superseded: { icon: Archive, label: 'Superseded', className: 'text-ink-muted' },
 };

@@ -24,7 +24,7 @@ const PLAIN: Record<string, (details: Record<string, unknown>) => string> = {
   'replay.delete': () => 'Replay deleted',
   'findings.save': () => 'Findings draft saved',
   'findings.submit': (d) => `Findings${versionOf(d)} submitted for review`,
-  'findings.return': (d) => `Findings${versionOf(d)} sent back with changes requested`,
+  'findings.return': (d) => `Findings${versionOf(d)} returned with comments`,
   'findings.signoff': (d) => `Findings${versionOf(d)} signed off`,
   'fix.link': () => 'Fix linked',
   'fix.verify': () => 'Fix marked verified',

@@ -4,6 +4,7 @@ import type { TReplay } from '@shared/contracts/replays';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
+import { InfoButton } from '@web/components/info-button';
 import { SelectInput, TextInput } from '@web/components/inputs';
 import { isApiError } from '@web/lib/api-client';
 import { Play, RotateCcw } from 'lucide-react';
@@ -103,6 +104,11 @@ export function ReplayLauncher({
           </FormField>
         ))}
       </div>
+      <p className="-mb-2 flex items-center gap-1 text-xs text-ink-muted">
+        Resampling methods explained: <InfoButton term="multinomial" /> multinomial{' '}
+        <InfoButton term="stratified" /> stratified <InfoButton term="systematic" /> systematic{' '}
+        <InfoButton term="residual" /> residual
+      </p>
       <FormField label="Resampling method" error={issues['overrides.resampling_method']}>
         {(control) => (
           <SelectInput

@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ZReturnRequest } from '@shared/contracts/findings';
+import { REVIEW_WORDS } from '@shared/review-words';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { Dialog } from '@web/components/dialog';
@@ -25,23 +26,23 @@ export function RequestChangesDialog({
   return (
     <Dialog
       isOpen
-      title={`Request changes to version ${version}`}
+      title={REVIEW_WORDS.returnTitle(version)}
       description="The author gets your comment by e-mail and in the case history."
       onClose={onClose}
     >
       <form onSubmit={form.handleSubmit((body) => sendBack.mutate(body, { onSuccess: onClose }))} noValidate>
-        <FormField label="What needs to change" error={form.formState.errors.comment?.message}>
+        <FormField label={REVIEW_WORDS.commentsLabel} error={form.formState.errors.comment?.message}>
           {(control) => <TextArea {...control} {...form.register('comment')} />}
         </FormField>
         {sendBack.isError && (
-          <Alert className="mt-3" title="Not sent back">
+          <Alert className="mt-3" title="Not returned">
             {sendBack.error.message}
           </Alert>
         )}
         <div className="mt-5 flex justify-end gap-2">
           <Button onClick={onClose}>Cancel</Button>
           <Button type="submit" variant="danger" isBusy={sendBack.isPending}>
-            Send back
+            {REVIEW_WORDS.returnButton}
           </Button>
         </div>
       </form>

@@ -1,3 +1,4 @@
+import { REVIEW_WORDS } from '@shared/review-words';
 import { Button } from '@web/components/button';
 import { FileSignature, MessageSquareWarning } from 'lucide-react';
 import { useState } from 'react';
@@ -19,10 +20,10 @@ export function ReviewActions({ caseId, version, caution, isAwaitingReview }: Re
   return (
     <div className="flex flex-wrap gap-2 border-t border-canvas-line pt-3">
       <Button variant="primary" icon={FileSignature} onClick={() => setOpen('sign')}>
-        Sign
+        {REVIEW_WORDS.signOff}
       </Button>
       <Button icon={MessageSquareWarning} onClick={() => setOpen('return')}>
-        Request changes
+        {REVIEW_WORDS.returnWithComments}
       </Button>
       {open === 'sign' && (
         <SignDialog caseId={caseId} version={version} caution={caution} onClose={() => setOpen(null)} />

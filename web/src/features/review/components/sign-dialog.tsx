@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ZSignoffRequest } from '@shared/contracts/findings';
+import { REVIEW_WORDS } from '@shared/review-words';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { Dialog } from '@web/components/dialog';
@@ -26,7 +27,7 @@ export function SignDialog({ caseId, version, caution, onClose }: SignDialogProp
   return (
     <Dialog
       isOpen
-      title={`Sign findings version ${version}`}
+      title={REVIEW_WORDS.signOffTitle(version)}
       description="Your signature is recorded against the exact text of this version. Any later edit needs a new signature."
       onClose={onClose}
       widthClassName="w-[34rem]"
@@ -49,14 +50,14 @@ export function SignDialog({ caseId, version, caution, onClose }: SignDialogProp
           </p>
         )}
         {sign.isError && (
-          <Alert className="mt-3" title="Not signed">
+          <Alert className="mt-3" title="Not signed off">
             {sign.error.message}
           </Alert>
         )}
         <div className="mt-5 flex justify-end gap-2">
           <Button onClick={onClose}>Cancel</Button>
           <Button type="submit" variant="primary" icon={FileSignature} isBusy={sign.isPending}>
-            Sign version {version}
+            {REVIEW_WORDS.signOffButton(version)}
           </Button>
         </div>
       </form>

@@ -1,5 +1,6 @@
 import type { TReplayFlag } from '@shared/contracts/replays';
 import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
+import { InfoButton } from '@web/components/info-button';
 import { EmptyState } from '@web/components/states';
 import { Flag, ShieldCheck } from 'lucide-react';
 import { FlagSightings } from './flag-sightings';
@@ -37,7 +38,7 @@ export function FlagsPanel({ flags, time, onOpen }: FlagsPanelProps) {
         {sorted.map((flag) => (
           <li
             key={`${flag.kind}-${flag.start}-${flag.end}`}
-            className={`rounded-md border-l-4 bg-canvas-raised p-2 text-sm ${SEVERITY_STYLE[flag.severity]}`}
+            className={`relative rounded-md border-l-4 bg-canvas-raised p-2 text-sm ${SEVERITY_STYLE[flag.severity]}`}
           >
             <button
               type="button"
@@ -56,6 +57,11 @@ export function FlagsPanel({ flags, time, onOpen }: FlagsPanelProps) {
               </span>
               <span className="mt-1 block text-xs">{flag.evidence}</span>
             </button>
+            {/* Beside the button, not in it: a button cannot hold another. */}
+            <span className="absolute top-2.5 right-20 flex gap-1">
+              <InfoButton term={flag.kind} />
+              {/NEES/.test(flag.evidence) && <InfoButton term="nees" />}
+            </span>
             {flag.sightings && flag.sightings.length > 1 && (
               <FlagSightings sightings={flag.sightings} time={time} onOpen={onOpen} />
             )}

@@ -1,6 +1,7 @@
 import type { TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/replays';
 import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
+import { InfoButton } from '@web/components/info-button';
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
@@ -10,6 +11,8 @@ import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { TimelineMarkers } from './timeline-markers';
 
 const LEFT = 168;
+/** Tracks whose term has an explanation on the Help page (glossary ids). */
+const TRACK_TERMS: Record<string, string> = { ess: 'ess', loglik: 'loglik' };
 const RIGHT = 16;
 const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
@@ -247,6 +250,21 @@ export const Timeline = memo(function Timeline({
           </p>
           <p className="mt-1 text-ink-muted">{hovered.evidence}</p>
         </div>
+      )}
+      {specs.map((spec, index) =>
+        TRACK_TERMS[spec.id] ? (
+          // An HTML overlay beside the track's unit: an SVG label cannot hold a button.
+          <span
+            key={spec.id}
+            className="absolute"
+            style={{
+              left: 8 + spec.unit.length * 7 + 6,
+              top: tracksTop + index * (TRACK_HEIGHT + TRACK_GAP) + 18,
+            }}
+          >
+            <InfoButton term={TRACK_TERMS[spec.id]} />
+          </span>
+        ) : null,
       )}
       {(domain.start !== full.start || domain.end !== full.end) && (
         <button
