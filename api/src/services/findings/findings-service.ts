@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { canEditFindings } from '../../../../shared/case-lifecycle';
+import { CASE_STATUS_LABELS } from '../../../../shared/contracts/cases';
 import {
   type TFindingsDiff,
   type TFindingsDraft,
@@ -61,11 +62,12 @@ export function createFindingsService(deps: {
   /** Why the findings cannot be edited now, or null; `executor` may be an open transaction. */
   async function editBlockedReason(executor: Database, caseId: string): Promise<string | null> {
     const hold = await findActiveHold(executor, caseId);
-    if (hold) return `The case is under legal hold since ${hold.placedAt} (${hold.reason}).`;
+    // Read by people in the findings editor: no stored codes or raw times (the hold panel gives the time).
+    if (hold) return `The case is under legal hold (${hold.reason}).`;
     const { status } = await loadCaseState(executor, caseId);
     return canEditFindings(status)
       ? null
-      : `Findings cannot be edited while the case is ${status}; ${
+      : `Findings cannot be edited while the case is “${CASE_STATUS_LABELS[status]}”; ${
           status === 'in_review' ? 'wait for the review' : 'reopen the case to start a new version'
         }.`;
   }
