@@ -27,6 +27,8 @@ export const AUDIT_ACTIONS = [
   'saved_query.create',
   'archive.export',
   'archive.verify',
+  'key.rotate',
+  'audit.checkpoint',
 ] as const;
 
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

@@ -50,6 +50,8 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'saved_query.create': 'Query saved',
   'archive.export': 'Evidence archive exported',
   'archive.verify': 'Evidence archive checked',
+  'key.rotate': 'Signing key replaced',
+  'audit.checkpoint': 'Audit trail checkpoint recorded',
 };
 
 /** The buttons and history lines of the lifecycle's moves, in the review words of design.md. */
@@ -113,6 +115,8 @@ export const ARCHIVE_CHECK_KIND_LABELS: Record<(typeof ARCHIVE_CHECK_KINDS)[numb
   file: 'File',
   signature: 'Signature',
   'audit-chain': 'Audit chain',
+  checkpoint: 'Audit checkpoint',
+  trust: 'Trusted key',
   replay: 'Replay',
 };
 

@@ -4,6 +4,7 @@ import cookieParser from 'cookie-parser';
 import express, { type Express, Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
+import { installPlainWords } from '../../shared/contracts/plain-words';
 import { AppError } from '../../shared/errors';
 import { composeApi } from './composition/compose-api';
 import { sessionCookieOptions } from './composition/create-route-specs';
@@ -32,6 +33,7 @@ export interface DriftcaseApp extends Express {
  * listens: server.ts and the tests do.
  */
 export function createApp({ webDir, ...dependencies }: AppDependencies): DriftcaseApp {
+  installPlainWords();
   const { config, logger } = dependencies;
   const { services, routeSpecs, shutdown } = composeApi(dependencies);
   const app = express() as DriftcaseApp;

@@ -2,6 +2,7 @@ import path from 'node:path';
 import { pino } from 'pino';
 import { createApp } from './app';
 import { loadConfig, PROJECT_ROOT } from './config';
+import { assertAuditTriggers } from './db/check-audit-triggers';
 import { openDatabase } from './db/client';
 import { seedDemoData } from './seed/seed-demo';
 import { startFakeSmtpServer } from './services/mail/fake-smtp-server';
@@ -16,6 +17,11 @@ async function main() {
       : { kind: 'pglite-dir', dataDir: path.join(config.dataDir, 'pglite') },
   );
   logger.info({ kind: database.kind, dataDir: config.dataDir }, 'database ready');
+  // A dropped or disabled trigger would let rows of the audit trail change without a trace here.
+  await assertAuditTriggers(database.db).catch(async (error: unknown) => {
+    await database.close();
+    throw error;
+  });
   await ensureWebBuild(logger);
 
   // Without SMTP_URL, mail goes to a local fake server whose messages the Outbox page shows.

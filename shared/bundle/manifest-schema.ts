@@ -114,6 +114,24 @@ const ZFilter = z.strictObject({
     .optional(),
 });
 
+const ZProvenance = z
+  .strictObject({
+    importer: z.string(),
+    sources: z.array(
+      z.strictObject({
+        role: z.enum(['recording', 'map', 'map_image', 'params', 'robot']),
+        name: z.string(),
+        sha256: z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lower-case hex'),
+        format: z.string(),
+      }),
+    ),
+    topics: z.record(z.string(), z.string()),
+    assumed: z.array(z.string()),
+    approximated: z.array(z.string()),
+    notes: z.record(z.string(), z.string()),
+  })
+  .describe('Originals a bundle derived from a robot recording came from (docs/robot-recordings.md)');
+
 export const ZManifest = z.strictObject({
   format: z.literal(BUNDLE_FORMAT),
   robot: ZRobot,
@@ -122,6 +140,7 @@ export const ZManifest = z.strictObject({
   scan: ZScanConfig.optional(),
   detector: ZDetectorConfig.optional(),
   filter: ZFilter,
+  provenance: ZProvenance.optional(),
 });
 
 // Fails to compile if the schema and the hand-written `Manifest` type drift apart.

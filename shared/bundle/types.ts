@@ -126,6 +126,30 @@ export interface Manifest {
   scan?: ScanConfig;
   detector?: DetectorConfig;
   filter: FilterConfig;
+  /** Where a bundle derived from a robot recording came from (absent for bundles written directly). */
+  provenance?: Provenance;
+}
+
+/** One original file a derived bundle was read from, kept as evidence. */
+export interface ProvenanceSource {
+  role: 'recording' | 'map' | 'map_image' | 'params' | 'robot';
+  name: string;
+  sha256: string;
+  format: string;
+}
+
+/**
+ * What a derived bundle owes to its originals: their hashes, which values were assumed (no
+ * recording holds them), which settings the engine could only approximate, and notes per file.
+ */
+export interface Provenance {
+  importer: string;
+  sources: ProvenanceSource[];
+  /** Recording topic used for each role, e.g. `{ "scans": "/scan" }`. */
+  topics: Record<string, string>;
+  assumed: string[];
+  approximated: string[];
+  notes: Record<string, string>;
 }
 
 export interface Landmark {

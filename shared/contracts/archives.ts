@@ -24,6 +24,18 @@ export const ZArchiveManifest = z.object({
   productVersion: z.string(),
   safetyCaution: z.string(),
   files: z.array(ZArchiveFileEntry),
+  /**
+   * The case's audit chain as exported: its length and head hash, pinned under the manifest's
+   * signature so a truncated or re-chained `audit/chain.json` is refused even if its listed hash
+   * were made to match. Absent in archives from before it was pinned.
+   */
+  auditChain: z
+    .object({ chain: z.string(), entries: z.number().int().nonnegative(), headHash: z.string() })
+    .optional(),
+  /** Each findings version in the archive with the number of sign-off signatures it carries. */
+  findings: z
+    .array(z.object({ version: z.number().int().positive(), signatures: z.number().int() }))
+    .optional(),
 });
 export type TArchiveManifest = z.infer<typeof ZArchiveManifest>;
 
@@ -40,7 +52,15 @@ export type TArchiveExport = z.infer<typeof ZArchiveExport>;
 export const ZArchiveExportList = z.object({ items: z.array(ZArchiveExport) });
 export type TArchiveExportList = z.infer<typeof ZArchiveExportList>;
 
-export const ARCHIVE_CHECK_KINDS = ['manifest', 'file', 'signature', 'audit-chain', 'replay'] as const;
+export const ARCHIVE_CHECK_KINDS = [
+  'manifest',
+  'file',
+  'trust',
+  'signature',
+  'audit-chain',
+  'checkpoint',
+  'replay',
+] as const;
 
 /** One line of a verification: what was checked, whether it held, and the file it concerns. */
 export const ZArchiveCheck = z.object({
@@ -55,6 +75,12 @@ export const ZArchiveCheck = z.object({
    * is not `ok` either, since its digest was not re-confirmed.
    */
   olderDigestLayout: z.number().optional(),
+  /**
+   * Set on the `trust` check when no trusted key was given: the signatures were only compared
+   * with the key inside the archive, which whoever edits the archive can replace. Not a failure
+   * of the evidence, and not a pass either.
+   */
+  unanchored: z.boolean().optional(),
 });
 export type TArchiveCheck = z.infer<typeof ZArchiveCheck>;
 
@@ -63,6 +89,8 @@ export const ZArchiveVerification = z.object({
   ok: z.boolean(),
   /** SHA-256 of the archive file itself, to compare with the custody record. */
   archiveSha256: ZSha256Hex,
+  /** Whether signatures were checked against trusted keys (never only the archive's own). */
+  signaturesAnchored: z.boolean(),
   checks: z.array(ZArchiveCheck),
 });
 export type TArchiveVerification = z.infer<typeof ZArchiveVerification>;

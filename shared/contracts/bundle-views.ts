@@ -42,6 +42,8 @@ export interface TBundleTracks {
   commands: { t: number[]; v: number[] } | null;
   /** The manifest's filter block: what a replay without overrides uses (the launcher's defaults). */
   filter: FilterConfig;
+  /** Beams per scan of the bundle's scanner (the most a replay may use), or null without scans. */
+  scanBeams: number | null;
 }
 
 /**

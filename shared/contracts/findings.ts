@@ -156,10 +156,7 @@ export const ZSubmitFindingsResponse = z.object({
 });
 
 export const ZSignoffRequest = z.strictObject({
-  acknowledgeCaution: z.literal(
-    true,
-    'Tick that you have read the safety caution (acknowledgeCaution must be true)',
-  ),
+  acknowledgeCaution: z.literal(true, 'Tick that you have read the safety caution before signing'),
 });
 export const ZReturnRequest = z.strictObject({
   comment: safeText().trim().min(1, 'Say what needs to change').max(10000),

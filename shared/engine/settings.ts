@@ -88,12 +88,12 @@ export function resolveReplaySettings(manifest: Manifest, overrides: TReplayOver
     if (!scanModel || !manifest.scan) {
       issues.push({
         field: 'beams_used',
-        message: 'the bundle has no scan model or scan configuration to apply beams_used to',
+        message: 'This bundle has no laser scan settings, so beams used cannot be set',
       });
     } else if (overrides.beams_used > manifest.scan.beams) {
       issues.push({
         field: 'beams_used',
-        message: `must be at most the scan's beam count ${manifest.scan.beams}, got ${overrides.beams_used}`,
+        message: `This must be ${manifest.scan.beams} or less: the scanner records ${manifest.scan.beams} beams per scan (got ${overrides.beams_used})`,
       });
     } else {
       scanModel = { ...scanModel, beams_used: overrides.beams_used };

@@ -166,7 +166,8 @@ describe('GET /api/cases/:id/archive', () => {
 
 describe('verifier on a fresh export', () => {
   it('passes every check, including re-running the replay to the same digest', async () => {
-    const result = await verifyArchive(first);
+    const published = (await request(t.app).get('/api/keys').expect(200)).body;
+    const result = await verifyArchive(first, { trust: { keys: published.keys, label: 'GET /api/keys' } });
     expect(result.checks.filter((c) => !c.ok)).toEqual([]);
     expect(result.ok).toBe(true);
     expect(result.checks.some((c) => c.kind === 'replay' && c.ok)).toBe(true);

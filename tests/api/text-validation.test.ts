@@ -55,6 +55,7 @@ const BODIES: BodyCase[] = [
     body: { email: 'nobody@driftcase.example', password: 'wrong-password' },
   },
   { route: 'post /auth/logout', url: '/api/auth/logout', contract: ZEmptyBody, body: {} },
+  { route: 'post /keys/rotate', url: '/api/keys/rotate', contract: ZEmptyBody, body: {} },
   {
     route: 'post /users',
     url: '/api/users',

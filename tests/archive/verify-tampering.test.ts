@@ -4,6 +4,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
+import type { JSONWebKeySet } from 'jose';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyArchive } from '../../api/src/archive/verify-archive';
 import { hashFile } from '../../api/src/bundles/sha256-file';
@@ -24,8 +26,12 @@ async function tampered(mutate: (copy: Map<string, Buffer>) => void): Promise<st
   return writeZipEntries(path.join(dir, `tampered-${counter++}.zip`), copy);
 }
 
+/** The server's published keys (GET /api/keys), the trust anchor a site keeps a copy of. */
+let published: { keys: JSONWebKeySet['keys'] };
+let publishedFile: string;
+const trust = () => ({ keys: published.keys, label: 'the published keys' });
 const failures = async (file: string, skipReplays = true) =>
-  (await verifyArchive(file, { skipReplays })).checks.filter((c) => !c.ok);
+  (await verifyArchive(file, { skipReplays, trust: trust() })).checks.filter((c) => !c.ok);
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -33,6 +39,9 @@ beforeAll(async () => {
   const { caseId } = await archivedCase(t);
   good = await downloadArchive(t, caseId, dir);
   entries = await readZipEntries(good);
+  published = (await request(t.app).get('/api/keys').expect(200)).body;
+  publishedFile = path.join(dir, 'published-keys.json');
+  fs.writeFileSync(publishedFile, JSON.stringify(published));
 }, 120_000);
 afterAll(() => t.close());
 
@@ -182,7 +191,7 @@ describe('an archive exported before engine 2.0.0 (digest layout 1)', () => {
   }, 120_000);
 
   it('explains the digest as not comparable, not as tampering, and every other check holds', async () => {
-    const report = await verifyArchive(old);
+    const report = await verifyArchive(old, { trust: trust() });
     const failed = report.checks.filter((c) => !c.ok);
     expect(failed).toHaveLength(1);
     expect(failed[0]).toMatchObject({ kind: 'replay', olderDigestLayout: 1 });
@@ -222,7 +231,7 @@ describe('npm run cli -- verify-archive', () => {
   };
 
   it('exits 0 for an intact archive, printing one ok line per check', async () => {
-    const { code, stdout } = await run(good);
+    const { code, stdout } = await run(good, '--trusted-keys', publishedFile);
     expect(code).toBe(0);
     expect(stdout).toMatch(/^ok {3}manifest/m);
     expect(stdout).toMatch(/ALL \d+ CHECKS PASSED/);
@@ -230,7 +239,7 @@ describe('npm run cli -- verify-archive', () => {
 
   it('exits 3 with an OLD line for a replay digest from an older engine', async () => {
     const file = [...fs.readdirSync(dir)].find((name) => name === 'old-layout.zip');
-    const { code, stdout } = await run(path.join(dir, file!));
+    const { code, stdout } = await run(path.join(dir, file!), '--trusted-keys', publishedFile);
     expect(code).toBe(3);
     expect(stdout).toMatch(/^OLD {2}replay +replay .*not a sign of tampering/m);
     expect(stdout).toMatch(

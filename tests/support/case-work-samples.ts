@@ -89,6 +89,8 @@ export function caseWorkSamples(
     'get /audit': () => ({ path: '/api/audit' }),
     'get /audit/verify': () => ({ path: '/api/audit/verify' }),
     'get /keys': () => ({ path: '/api/keys' }),
+    'get /keys/thumbprints': () => ({ path: '/api/keys/thumbprints' }),
+    'post /keys/rotate': () => ({ path: '/api/keys/rotate', body: {} }),
     'get /outbox': () => ({ path: '/api/outbox' }),
   };
 }

@@ -15,14 +15,18 @@ import type { ReplaySettings } from '../../../shared/engine/settings';
 import { hashFile } from '../bundles/sha256-file';
 import { DEFAULT_ZIP_LIMITS, type ZipLimits } from '../bundles/zip-limits';
 import { loadBundleForReplay } from '../replays/replay-bundle-file';
-import { verifyDetached } from '../services/signing/detached-jws';
+import { checkPins } from './check-pins';
+import { checkSignatures } from './check-signatures';
 import { ArchiveRefusedError, type ReadArchive, readArchiveEntries } from './read-archive-entries';
+import { resolveTrust, type TrustAnchor } from './trust-anchor';
 
 export interface VerifyOptions {
   /** Skip re-running replays (fast structural check only); the report says so. */
   skipReplays?: boolean;
   /** Unpacking limits; the bundle reader's by default (the server passes MAX_UNPACKED_BYTES). */
   zipLimits?: Partial<ZipLimits>;
+  /** Keys or thumbprints trusted from outside the archive; without one signatures are not anchored. */
+  trust?: TrustAnchor;
 }
 
 type Check = (
@@ -52,43 +56,6 @@ function parseJson<T>(read: ReadArchive, file: string, check: Check): T | null {
   } catch (error) {
     check('manifest', false, file, `${file}: not valid JSON (${(error as Error).message})`);
     return null;
-  }
-}
-
-async function checkSignatures(read: ReadArchive, jwks: JSONWebKeySet | null, check: Check) {
-  const manifestJws = read.contents.get(layout.MANIFEST_SIGNATURE_PATH);
-  const manifest = read.contents.get(layout.MANIFEST_PATH);
-  const sign = async (
-    kind: 'signature',
-    file: string,
-    jws: Buffer | undefined,
-    payload: Buffer | undefined,
-    what: string,
-  ) => {
-    if (!jws || !payload) return check(kind, false, file, `${file}: missing, so ${what} cannot be checked`);
-    if (!jwks)
-      return check(
-        kind,
-        false,
-        layout.JWKS_PATH,
-        `${layout.JWKS_PATH}: missing or unreadable, so ${what} cannot be checked`,
-      );
-    const result = await verifyDetached(jws.toString('utf8').trim(), payload, jwks);
-    if (result.valid)
-      check(
-        kind,
-        true,
-        file,
-        `${file}: valid signature over ${what} (key ${result.header.kid}, signed by ${result.header.signedBy} at ${result.header.signedAt})`,
-      );
-    else check(kind, false, file, `${file}: signature over ${what} does NOT verify (${result.error})`);
-  };
-  await sign('signature', layout.MANIFEST_SIGNATURE_PATH, manifestJws, manifest, layout.MANIFEST_PATH);
-  for (const file of [...read.contents.keys()].sort()) {
-    const version = layout.versionOfSignaturePath(file);
-    if (version === null) continue;
-    const canonicalPath = layout.findingsVersionPath(version, 'canonical.json');
-    await sign('signature', file, read.contents.get(file), read.contents.get(canonicalPath), canonicalPath);
   }
 }
 
@@ -167,6 +134,7 @@ export async function verifyArchive(
         : { kind, ok, file, message, olderDigestLayout },
     );
   const { sha256: archiveSha256 } = await hashFile(zipPath);
+  let signaturesAnchored = false;
   const tempDir = await fs.promises.mkdtemp(path.join(os.tmpdir(), 'driftcase-verify-'));
   try {
     let read: ReadArchive;
@@ -176,10 +144,10 @@ export async function verifyArchive(
       if (error instanceof ArchiveRefusedError) {
         for (const problem of error.problems)
           check('file', false, problem.file, `${problem.file}: ${problem.message}`);
-        return { ok: false, archiveSha256, checks };
+        return { ok: false, archiveSha256, signaturesAnchored, checks };
       }
       check('file', false, null, `the file is not a readable zip archive (${(error as Error).message})`);
-      return { ok: false, archiveSha256, checks };
+      return { ok: false, archiveSha256, signaturesAnchored, checks };
     }
     for (const name of read.duplicates)
       check('file', false, name, `${name}: appears more than once in the archive`);
@@ -206,7 +174,14 @@ export async function verifyArchive(
         ),
       );
     }
-    await checkSignatures(read, parseJson<JSONWebKeySet>(read, layout.JWKS_PATH, check), check);
+    const trust = resolveTrust(options.trust, parseJson<JSONWebKeySet>(read, layout.JWKS_PATH, check));
+    signaturesAnchored = trust.anchored;
+    checks.push(
+      trust.anchored
+        ? { kind: 'trust', ok: trust.ok, file: null, message: trust.message }
+        : { kind: 'trust', ok: false, unanchored: true, file: layout.JWKS_PATH, message: trust.message },
+    );
+    await checkSignatures(read, trust, (c) => checks.push(c));
     const chain = parseJson<AuditChainEntry[]>(read, layout.AUDIT_CHAIN_PATH, check);
     if (!Array.isArray(chain))
       check(
@@ -232,17 +207,39 @@ export async function verifyArchive(
           `${layout.AUDIT_CHAIN_PATH}: chain broken at entry ${report.firstBroken?.chainSeq} (${report.firstBroken?.reason})`,
         );
     }
+    if (manifest.success)
+      checkPins(manifest.data, Array.isArray(chain) ? chain : null, read, (c) => checks.push(c));
     if (options.skipReplays)
       check('replay', true, null, 'replays: re-run skipped on request (digests not checked)');
     else await checkReplays(read, check);
   } finally {
     await fs.promises.rm(tempDir, { recursive: true, force: true });
   }
-  return { ok: checks.every((c) => c.ok), archiveSha256, checks };
+  return { ok: checks.every((c) => c.ok), archiveSha256, signaturesAnchored, checks };
 }
 
-/** One line per check, as the CLI prints them: ok, FAIL, or OLD for a digest of an older layout. */
+/**
+ * How a verification ends, as the CLI's exit code: 0 every check held against a trusted key; 3
+ * nothing failed but something could not be confirmed (signatures not anchored to a trusted key,
+ * or replay digests from an older engine); 2 a check failed (tampering or damage).
+ */
+export function verificationOutcome(result: TArchiveVerification): 0 | 2 | 3 {
+  if (result.ok) return 0;
+  const isUnconfirmed = (c: TArchiveCheck) => c.olderDigestLayout !== undefined || c.unanchored === true;
+  return result.checks.every((c) => c.ok || isUnconfirmed(c)) ? 3 : 2;
+}
+
+/**
+ * One line per check, as the CLI prints them: ok, FAIL, OLD for a digest of an older layout, or
+ * WARN for a signature not anchored to a trusted key.
+ */
 export function formatCheckLine(check: TArchiveCheck): string {
-  const mark = check.ok ? 'ok  ' : check.olderDigestLayout !== undefined ? 'OLD ' : 'FAIL';
+  const mark = check.ok
+    ? 'ok  '
+    : check.olderDigestLayout !== undefined
+      ? 'OLD '
+      : check.unanchored
+        ? 'WARN'
+        : 'FAIL';
   return `${mark} ${check.kind.padEnd(11)} ${check.message}`;
 }

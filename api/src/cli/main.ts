@@ -1,8 +1,12 @@
 /**
  * Driftcase command line: `npm run cli -- <command> [args]`.
- * Exit codes: 0 success, 2 invalid input (bad bundle, bad option, failed verification), 1 internal failure.
+ * Exit codes: 0 success, 2 invalid input (bad bundle, bad option, failed verification), 1 internal failure;
+ * verify-archive also exits 3 when nothing failed but something is unconfirmed (signatures not anchored
+ * to a trusted key, or replay digests from an older engine).
  * Each command lives in its own module under ./commands and is loaded only when asked for.
  */
+import { installPlainWords } from '../../../shared/contracts/plain-words';
+
 type CommandModule = { run(args: string[]): Promise<number> };
 
 const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandModule> }> = {
@@ -10,12 +14,18 @@ const COMMANDS: Record<string, { summary: string; load: () => Promise<CommandMod
     summary: 'check PATH [--json]            validate an incident bundle (.zip or folder)',
     load: () => import('./commands/check'),
   },
+  import: {
+    summary:
+      'import SOURCE [options] --out BUNDLE.zip  read a robot recording (.mcap, .bag, .db3, rosbag2 folder) into a bundle',
+    load: () => import('./commands/import'),
+  },
   replay: {
     summary: 'replay PATH [options]          re-run the particle filter over a bundle',
     load: () => import('./commands/replay'),
   },
   'verify-archive': {
-    summary: 'verify-archive FILE.zip [--json]  check an evidence archive offline',
+    summary:
+      'verify-archive FILE.zip [--trusted-keys JWKS.json] [--trusted-thumbprint T]  check an evidence archive offline (exit 0 ok, 3 not anchored / older digests, 2 failed)',
     load: () => import('./commands/verify-archive'),
   },
 };
@@ -26,6 +36,7 @@ function printUsage(): void {
 }
 
 async function main(argv: string[]): Promise<number> {
+  installPlainWords(); // the same sentences as the API and the web app
   const [name, ...rest] = argv;
   if (!name || name === '--help' || name === '-h') {
     printUsage();

@@ -40,7 +40,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...fixRoutes(services.fixes),
     ...holdRoutes(services.holds),
     ...auditRoutes(services.audit),
-    ...keyRoutes(services.keys),
+    ...keyRoutes(services.keys, services.keysAdmin),
     ...outboxRoutes(services.outbox),
     ...archiveRoutes(services.archives, uploads),
     ...bookmarkRoutes(services.bookmarks),

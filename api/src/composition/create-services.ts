@@ -20,6 +20,7 @@ import { createNotifications } from '../services/mail/notifications';
 import { createOutboxService } from '../services/mail/outbox-service';
 import { createReplaysService } from '../services/replays/replays-service';
 import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
+import { createKeysService } from '../services/signing/keys-service';
 import { createSigningKeyStore } from '../services/signing/signing-key';
 import { createUsersService } from '../services/users/users-service';
 
@@ -70,6 +71,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const notify = createNotifications({ db, queue: mailQueue, publicUrl: config.publicUrl, logger });
   const outbox = createOutboxService({ db });
   const keys = createSigningKeyStore(config.dataDir);
+  const keysAdmin = createKeysService({ db, audit, store: keys });
   const findings = createFindingsService({ db, audit, lifecycle, notify });
   const reviews = createReviewService({ db, audit, findings, lifecycle, notify, keys });
   const fixes = createFixesService({ db, audit, notify });
@@ -108,6 +110,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     notify,
     outbox,
     keys,
+    keysAdmin,
     findings,
     reviews,
     fixes,

@@ -44,9 +44,14 @@ export const paths = {
   },
   workspace: {
     path: '/bundles/:bundleId/workspace',
-    /** `replay` preselects a replay. */
-    href: (bundleId: string, replayId?: string) =>
-      `/bundles/${encodeURIComponent(bundleId)}/workspace${replayId ? `?replay=${encodeURIComponent(replayId)}` : ''}`,
+    /** `replay` preselects a replay; `t` (s since the recording's start) opens it at that moment. */
+    href: (bundleId: string, replayId?: string, t?: number) => {
+      const query = new URLSearchParams();
+      if (replayId) query.set('replay', replayId);
+      if (replayId && t !== undefined && Number.isFinite(t)) query.set('t', t.toFixed(3));
+      const search = query.toString();
+      return `/bundles/${encodeURIComponent(bundleId)}/workspace${search ? `?${search}` : ''}`;
+    },
   },
   bundleSqlConsole: {
     path: '/cases/:caseId/bundles/:bundleId/sql',

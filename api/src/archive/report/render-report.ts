@@ -26,6 +26,8 @@ export interface ReportInput {
   safetyCaution: string;
   /** IANA zone the report shows times in, named beside each (`SITE_TIME_ZONE`). */
   siteTimeZone: string;
+  /** RFC 7638 thumbprint of the key that signs this archive's manifest. */
+  signingKeyThumbprint: string;
 }
 
 const row = (label: string, value: string) => `<tr><th>${escapeHtml(label)}</th><td>${value}</td></tr>`;
@@ -122,7 +124,8 @@ export function renderReport(input: ReportInput): string {
 <section><h2>Findings</h2>${findingsSection(evidence, text)}</section>
 <section><h2>Fixes and verification</h2>${fixesSection(evidence, text)}</section>
 <section><h2>Custody</h2>${custodySection(evidence, text)}</section>
-<footer><p class="unit">Times are shown in ${escapeHtml(describeTimeZone(input.siteTimeZone, new Date(c.incidentTime)))}, the site's time zone; the archive's JSON files keep every time in RFC 3339.</p><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip</code> checks every file against manifest.json, the signatures, the audit chain, and re-runs every replay from the included original bundle.</p></footer>
+<section><h2>Signing key</h2><p>This archive is signed with the key whose RFC 7638 thumbprint is <code class="thumbprint">${escapeHtml(input.signingKeyThumbprint)}</code>. Compare it with the thumbprint your site publishes outside Driftcase: a key found only inside the archive proves nothing, since whoever edits an archive can replace it.</p></section>
+<footer><p class="unit">Times are shown in ${escapeHtml(describeTimeZone(input.siteTimeZone, new Date(c.incidentTime)))}, the site's time zone; the archive's JSON files keep every time in RFC 3339.</p><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip --trusted-thumbprint ${escapeHtml(input.signingKeyThumbprint)}</code> checks every file against manifest.json, the signatures against that trusted key, the audit chain and its checkpoints, and re-runs every replay from the included original bundle.</p></footer>
 </body></html>
 `;
 }

@@ -1,49 +1,137 @@
-import { stat } from 'node:fs/promises';
-import { formatCheckLine, verifyArchive } from '../../archive/verify-archive';
+import { readFile, stat } from 'node:fs/promises';
+import { parseArgs } from 'node:util';
+import type { JSONWebKeySet } from 'jose';
+import type { TArchiveVerification } from '../../../../shared/contracts/archives';
+import type { TrustAnchor } from '../../archive/trust-anchor';
+import { formatCheckLine, verificationOutcome, verifyArchive } from '../../archive/verify-archive';
 
-const USAGE = 'Usage: npm run cli -- verify-archive FILE.zip [--json] [--skip-replays]\n';
-const OPTIONS = new Set(['--json', '--skip-replays']);
+const USAGE = `Usage: npm run cli -- verify-archive FILE.zip [--trusted-keys JWKS.json] [--trusted-thumbprint T]... [--json] [--skip-replays]
+
+  --trusted-keys JWKS.json   public keys you trust (e.g. your site's copy of GET /api/keys)
+  --trusted-thumbprint T     RFC 7638 thumbprint your site publishes; a key in the archive with it is trusted
+  --json                     print the checks as JSON
+  --skip-replays             do not re-run replays (digests not checked)
+
+Exit codes: 0 every check held against a trusted key; 3 nothing failed but something is not
+confirmed (no trusted key given, so signatures are not anchored; or a replay digest from an older
+engine); 2 a check failed or the usage is wrong; 1 internal failure.
+`;
+
+async function readTrustedKeys(file: string): Promise<JSONWebKeySet['keys']> {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(await readFile(file, 'utf8'));
+  } catch (error) {
+    throw new UsageError(`--trusted-keys ${file}: cannot be read as JSON (${(error as Error).message})`);
+  }
+  const keys = (parsed as { keys?: unknown })?.keys;
+  if (!Array.isArray(keys) || keys.length === 0)
+    throw new UsageError(
+      `--trusted-keys ${file}: not a JWK set (expected {"keys": [ ... ]} with at least one key)`,
+    );
+  return keys as JSONWebKeySet['keys'];
+}
+
+class UsageError extends Error {}
+
+async function parseTrust(
+  keysFile: string | undefined,
+  thumbprints: string[],
+): Promise<TrustAnchor | undefined> {
+  if (!keysFile && thumbprints.length === 0) return undefined;
+  for (const thumbprint of thumbprints)
+    if (!/^[A-Za-z0-9_-]{43}$/.test(thumbprint))
+      throw new UsageError(
+        `--trusted-thumbprint ${thumbprint}: not an RFC 7638 SHA-256 thumbprint (43 base64url characters)`,
+      );
+  const labels = [
+    keysFile && `--trusted-keys ${keysFile}`,
+    ...thumbprints.map((t) => `--trusted-thumbprint ${t}`),
+  ];
+  return {
+    keys: keysFile ? await readTrustedKeys(keysFile) : [],
+    thumbprints,
+    label: labels.filter(Boolean).join(' and '),
+  };
+}
+
+function summaryLine(result: TArchiveVerification, outcome: 0 | 2 | 3): string {
+  const total = result.checks.length;
+  const failed = result.checks.filter(
+    (c) => !c.ok && c.olderDigestLayout === undefined && !c.unanchored,
+  ).length;
+  const older = result.checks.filter((c) => c.olderDigestLayout !== undefined).length;
+  const olderNote = older
+    ? `${older} REPLAY DIGEST${older === 1 ? '' : 'S'} FROM AN OLDER ENGINE COULD NOT BE RE-CONFIRMED (not tampering; see the OLD lines)`
+    : '';
+  if (outcome === 0) return `ALL ${total} CHECKS PASSED (signatures verified against trusted keys)`;
+  if (outcome === 2)
+    return `${failed} OF ${total} CHECKS FAILED${older ? ` (and ${olderNote.toLowerCase()})` : ''}`;
+  const unconfirmed = result.checks.filter((c) => !c.ok).length;
+  const notes = [
+    !result.signaturesAnchored &&
+      'SIGNATURES NOT ANCHORED: no trusted key was given, so nothing shows who signed this archive (see the WARN lines; verify again with --trusted-keys or --trusted-thumbprint)',
+    olderNote,
+  ].filter(Boolean);
+  return `NO CHECK FAILED, BUT ${unconfirmed} OF ${total} ARE NOT CONFIRMED. ${notes.join('; ')}`;
+}
 
 /**
  * `verify-archive FILE.zip`: checks an evidence archive offline (no database). Prints one line per
- * check; exit 0 when every check holds, 3 when everything holds except replay digests recorded
- * under an older digest layout (not comparable, not tampering), 2 when any check fails or the
- * usage is wrong, 1 on internal failure.
+ * check and a summary; see USAGE for the exit codes.
  */
 export async function run(args: string[]): Promise<number> {
-  const unknown = args.filter((arg) => arg.startsWith('-') && !OPTIONS.has(arg));
-  const files = args.filter((arg) => !arg.startsWith('-'));
-  if (unknown.length > 0 || files.length !== 1) {
-    process.stderr.write(
-      `${unknown.length ? `Unknown option ${unknown[0]}.` : 'Give exactly one FILE.zip.'}\n${USAGE}`,
-    );
+  let parsed: ReturnType<typeof parseCommandLine>;
+  try {
+    parsed = parseCommandLine(args);
+  } catch (error) {
+    process.stderr.write(`${(error as Error).message}\n${USAGE}`);
     return 2;
   }
-  const file = files[0];
+  const { values, positionals } = parsed;
+  if (positionals.length !== 1) {
+    process.stderr.write(`Give exactly one FILE.zip.\n${USAGE}`);
+    return 2;
+  }
+  const file = positionals[0];
   if (!(await stat(file).catch(() => undefined))?.isFile()) {
     process.stderr.write(`${file}: no such file\n`);
     return 2;
   }
+  let trust: TrustAnchor | undefined;
   try {
-    const result = await verifyArchive(file, { skipReplays: args.includes('--skip-replays') });
-    if (args.includes('--json')) process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
+    trust = await parseTrust(values['trusted-keys'], values['trusted-thumbprint'] ?? []);
+  } catch (error) {
+    if (!(error instanceof UsageError)) throw error;
+    process.stderr.write(`${error.message}\n`);
+    return 2;
+  }
+  try {
+    const result = await verifyArchive(file, { skipReplays: values['skip-replays'], trust });
+    const outcome = verificationOutcome(result);
+    if (values.json) process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
     else {
       process.stdout.write(`Archive ${file}\nSHA-256 ${result.archiveSha256}\n`);
       for (const check of result.checks) process.stdout.write(`${formatCheckLine(check)}\n`);
-      const failed = result.checks.filter((c) => !c.ok && c.olderDigestLayout === undefined).length;
-      const older = result.checks.filter((c) => c.olderDigestLayout !== undefined).length;
-      process.stdout.write(
-        result.ok
-          ? `ALL ${result.checks.length} CHECKS PASSED\n`
-          : failed > 0
-            ? `${failed} OF ${result.checks.length} CHECKS FAILED${older ? ` (and ${older} replay digest${older === 1 ? '' : 's'} from an older engine not comparable)` : ''}\n`
-            : `ALL ${result.checks.length - older} OTHER CHECKS PASSED; ${older} REPLAY DIGEST${older === 1 ? '' : 'S'} FROM AN OLDER ENGINE COULD NOT BE RE-CONFIRMED (not tampering; see the OLD lines)\n`,
-      );
+      process.stdout.write(`${summaryLine(result, outcome)}\n`);
     }
-    if (result.ok) return 0;
-    return result.checks.every((c) => c.ok || c.olderDigestLayout !== undefined) ? 3 : 2;
+    return outcome;
   } catch (error) {
     process.stderr.write(`Internal failure while verifying ${file}: ${(error as Error).message}\n`);
     return 1;
   }
+}
+
+function parseCommandLine(args: string[]) {
+  return parseArgs({
+    args,
+    allowPositionals: true,
+    strict: true,
+    options: {
+      json: { type: 'boolean' },
+      'skip-replays': { type: 'boolean' },
+      'trusted-keys': { type: 'string' },
+      'trusted-thumbprint': { type: 'string', multiple: true },
+    },
+  });
 }

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Writable } from 'node:stream';
+import { auditChainOf, GENESIS_HASH } from '../../../../shared/audit-chain';
 import type { Bundle } from '../../../../shared/bundle/types';
 import {
   ARCHIVE_FORMAT,
@@ -19,6 +20,7 @@ import { PROJECT_ROOT } from '../../config';
 import { loadBundleForReplay } from '../../replays/replay-bundle-file';
 import type { AuditService } from '../audit/audit-service';
 import type { Notifications } from '../mail/notifications';
+import { jwkThumbprint } from '../signing/jwk-thumbprint';
 import type { SigningKeyStore } from '../signing/signing-key';
 
 /** Bundles larger than this are archived byte for byte but not parsed for the report's pictures. */
@@ -73,7 +75,9 @@ export function createArchiveService(deps: {
       fileName: `${reference}-evidence.zip`,
       async writeTo(sink: Writable) {
         const entries = buildArchiveEntries(evidence);
+        const key = await deps.keys.current();
         const report = renderReport({
+          signingKeyThumbprint: jwkThumbprint(key.publicJwk),
           evidence,
           bundles: await parseForReport(evidence),
           productVersion,
@@ -82,7 +86,6 @@ export function createArchiveService(deps: {
         });
         entries.unshift({ path: 'report.html', data: Buffer.from(report, 'utf8') });
         const exportedAt = new Date().toISOString();
-        const key = await deps.keys.current();
         const written = await writeArchive(
           entries,
           sink,
@@ -94,6 +97,15 @@ export function createArchiveService(deps: {
             productVersion,
             safetyCaution: SAFETY_CAUTION,
             files,
+            auditChain: {
+              chain: auditChainOf(caseId),
+              entries: evidence.auditChain.length,
+              headHash: evidence.auditChain.at(-1)?.entryHash ?? GENESIS_HASH,
+            },
+            findings: evidence.findings.map((version) => ({
+              version: version.version,
+              signatures: version.reviews.filter((review) => review.jws).length,
+            })),
           }),
           (bytes) => signManifest(bytes, key, { signedBy: exporter.email, signedAt: exportedAt }),
         );
@@ -137,7 +149,11 @@ export function createArchiveService(deps: {
    */
   async function verifyUploadedArchive(file: string, actor: ArchiveExporter): Promise<TArchiveVerification> {
     try {
-      const verification = await verifyArchive(file, { zipLimits: { maxTotalBytes: deps.maxUnpackedBytes } });
+      // The server trusts only its own key store (current and retired keys), never the archive's copy.
+      const verification = await verifyArchive(file, {
+        zipLimits: { maxTotalBytes: deps.maxUnpackedBytes },
+        trust: { keys: (await deps.keys.jwks()).keys, label: "this server's signing keys (GET /api/keys)" },
+      });
       await deps.audit.appendAlone({
         actor,
         action: 'archive.verify',

@@ -151,6 +151,7 @@ export function createBundleViews({
           }
         : null,
       filter: bundle.manifest.filter,
+      scanBeams: bundle.manifest.scan?.beams ?? null,
     };
   }
 

@@ -1,7 +1,9 @@
 import type { FilterConfig } from '@shared/bundle/types';
+import { installPlainWords } from '@shared/contracts/plain-words';
 import { describe, expect, it } from 'vitest';
 import {
   defaultsFrom,
+  limitHints,
   summarizeOverrides,
   toStartRequest,
 } from '../../../../web/src/features/replays/components/replay-form-values';
@@ -52,5 +54,35 @@ describe('replay launcher values', () => {
   it('summarises overrides in one line', () => {
     expect(summarizeOverrides({})).toBe('manifest settings');
     expect(summarizeOverrides({ particles: 2000, recovery: true })).toBe('particles 2000 · recovery on');
+  });
+});
+
+describe('replay launcher limits from the bundle', () => {
+  const defaults = defaultsFrom(FILTER);
+  // A 271-beam scanner: 270° at 1° steps plus both ends (a common safety-scanner layout, from memory).
+  const limits = { scanBeams: 271, maxParticles: 200_000 };
+
+  it('refuses more beams than the scanner records, beside the field, naming the limit', () => {
+    const request = toStartRequest({ ...defaults, beams_used: '9999' }, defaults, limits);
+    expect(request.ok).toBe(false);
+    if (request.ok) return;
+    expect(request.issues['overrides.beams_used']).toMatch(/271 or less/);
+  });
+
+  it('accepts the scanner’s own beam count', () => {
+    expect(toStartRequest({ ...defaults, beams_used: '271' }, defaults, limits).ok).toBe(true);
+  });
+
+  it('shows the limits in the hints', () => {
+    const hints = limitHints(limits);
+    expect(hints.beams_used).toContain('1–271');
+    expect(hints.particles).toContain('200,000');
+  });
+
+  it('speaks plain words for a particle count out of range', () => {
+    installPlainWords();
+    const request = toStartRequest({ ...defaults, particles: '0' }, defaults, limits);
+    if (request.ok) throw new Error('0 particles must be refused');
+    expect(request.issues['overrides.particles']).toBe('This must be 1 or more');
   });
 });

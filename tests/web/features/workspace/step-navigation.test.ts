@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { adjacentMoment, stepAfterKey } from '../../../../web/src/features/workspace/lib/step-navigation';
+import { adjacentMomentStep, stepAfterKey } from '../../../../web/src/features/workspace/lib/step-navigation';
 
 // Keyboard behaviour of a slider: WAI-ARIA Authoring Practices 1.2, "Slider Pattern" (arrows one
 // step, Page Up/Down a larger step, Home/End the ends).
@@ -26,11 +26,24 @@ describe('scrubber keys', () => {
 });
 
 describe('previous and next moment of interest', () => {
-  const moments = [12.5, 3, 40, 12.5];
-  it('finds the nearest moment strictly after or before', () => {
-    expect(adjacentMoment(moments, 0, 1)).toBe(3);
-    expect(adjacentMoment(moments, 3, 1)).toBe(12.5);
-    expect(adjacentMoment(moments, 12.5, -1)).toBe(3);
-    expect(adjacentMoment(moments, 41, 1)).toBeNull();
+  const moments = [12.5, 3, 4, 12.5];
+  it('moves to the nearest moment step strictly after or before the cursor', () => {
+    // 3 s is step 30, 4 s step 40, 12.5 s step 125 only if the replay were longer: here it clamps to 100.
+    expect(adjacentMomentStep(moments, times, 0, 1)).toBe(30);
+    expect(adjacentMomentStep(moments, times, 30, 1)).toBe(40);
+    expect(adjacentMomentStep(moments, times, 40, -1)).toBe(30);
+    expect(adjacentMomentStep(moments, times, 100, 1)).toBeNull();
+  });
+
+  it('never gets stuck on a moment between two steps (an event at 5.567 s with 0.1 s steps)', () => {
+    const between = [2.1, 5.567];
+    // 5.567 s is nearest the step at 5.6 s, step 56.
+    const next = adjacentMomentStep(between, times, 50, 1);
+    expect(next).toBe(56);
+    // From there, Previous goes on to 2.1 s (step 21), not back onto step 56.
+    expect(adjacentMomentStep(between, times, 56, -1)).toBe(21);
+    // And Next is not offered past the last moment, but Previous always is.
+    expect(adjacentMomentStep(between, times, 56, 1)).toBeNull();
+    expect(adjacentMomentStep(between, times, 57, -1)).toBe(56);
   });
 });

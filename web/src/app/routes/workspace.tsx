@@ -1,9 +1,11 @@
 import type { TBookmark } from '@shared/contracts/bookmarks';
+import { MAX_PARTICLES } from '@shared/engine/settings';
 import type { QueryClient } from '@tanstack/react-query';
 import { PageHeader } from '@web/components/page-header';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
 import { paths } from '@web/config/paths';
 import { useMe } from '@web/features/auth/api/get-me';
+import { useBookmarks } from '@web/features/bookmarks/api/get-bookmarks';
 import { BookmarkPanel } from '@web/features/bookmarks/components/bookmark-panel';
 import { PinMomentButton } from '@web/features/bookmarks/components/pin-moment-button';
 import { bundleQueryOptions, useBundle } from '@web/features/bundles/api/get-bundle';
@@ -14,7 +16,7 @@ import { SqlConsolePanel } from '@web/features/sql-console/components/sql-consol
 import { useBundleTracks } from '@web/features/workspace/api/get-bundle-tracks';
 import { ReplayWorkspace } from '@web/features/workspace/components/replay-workspace';
 import { ArrowLeft, Columns2, History } from 'lucide-react';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, type LoaderFunctionArgs, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 
 export const workspaceLoader =
@@ -39,13 +41,21 @@ export function WorkspaceRoute() {
   const chosenId = search.get('replay') ?? finished[0]?.id;
   const chosen = items.find((r) => r.id === chosenId && r.status === 'done');
   const choose = (replayId: string) => setSearch({ replay: replayId }, { replace: false });
+  // A deep link (`?replay=…&t=…`) opens the workspace at that moment.
+  const linkedTime = search.get('t') === null ? undefined : Number(search.get('t'));
+  const deepLinkTime = linkedTime !== undefined && Number.isFinite(linkedTime) ? linkedTime : undefined;
+  const bookmarks = useBookmarks(bundle.data?.caseId ?? '');
+  const bookmarkTimes = useMemo(
+    () => (bookmarks.data ?? []).filter((b) => b.replayId === chosenId).map((b) => b.t),
+    [bookmarks.data, chosenId],
+  );
   const me = useMe();
   const navigate = useNavigate();
   // The bookmark being opened restores its step and map view in a fresh workspace.
   const [opened, setOpened] = useState<TBookmark | null>(null);
   const openBookmark = (bookmark: TBookmark) => {
     if (bookmark.bundleId !== bundleId) {
-      navigate(paths.workspace.href(bookmark.bundleId, bookmark.replayId));
+      navigate(paths.workspace.href(bookmark.bundleId, bookmark.replayId, bookmark.t));
       return;
     }
     setOpened(bookmark);
@@ -103,6 +113,7 @@ export function WorkspaceRoute() {
               <ReplayLauncher
                 bundleId={bundleId}
                 defaults={tracks.data.filter}
+                limits={{ scanBeams: tracks.data.scanBeams ?? null, maxParticles: MAX_PARTICLES }}
                 onStarted={(replay) => choose(replay.id)}
               />
             ) : (
@@ -131,6 +142,8 @@ export function WorkspaceRoute() {
           bundleId={bundleId}
           replay={chosen}
           initialStep={restoring?.step}
+          initialTime={restoring ? undefined : deepLinkTime}
+          extraMoments={bookmarkTimes}
           initialView={restoring?.view}
           toolbar={(moment) =>
             me.data?.user.role === 'investigator' && (

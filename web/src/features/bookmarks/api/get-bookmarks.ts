@@ -17,5 +17,6 @@ export function bookmarksQueryOptions(caseId: string) {
 }
 
 export function useBookmarks(caseId: string) {
-  return useQuery(bookmarksQueryOptions(caseId));
+  // The workspace asks before it knows its case: wait for an id rather than fetch a bad address.
+  return useQuery({ ...bookmarksQueryOptions(caseId), enabled: caseId !== '' });
 }

@@ -1,5 +1,26 @@
 import type { FilterConfig } from '@shared/bundle/types';
 import { type TStartReplayRequest, ZStartReplayRequest } from '@shared/contracts/replays';
+import { MAX_PARTICLES } from '@shared/engine/settings';
+
+/** What the bundle allows, shown beside the fields and checked before anything is sent. */
+export interface ReplayLimits {
+  /** Beams per scan of the bundle's scanner; null when it has no scans. */
+  scanBeams: number | null;
+  maxParticles: number;
+}
+
+export const DEFAULT_LIMITS: ReplayLimits = { scanBeams: null, maxParticles: MAX_PARTICLES };
+
+/** The allowed range of each numeric field, in words (e.g. "1–271"). */
+export function limitHints(limits: ReplayLimits): Record<'particles' | 'beams_used', string> {
+  return {
+    particles: `count, 1–${limits.maxParticles.toLocaleString('en-GB')}`,
+    beams_used:
+      limits.scanBeams === null
+        ? 'laser beams per scan (this bundle has no scans)'
+        : `laser beams per scan, 1–${limits.scanBeams} (the scanner's beams)`,
+  };
+}
 
 /** The launcher's fields as typed (strings for numbers, so a half-typed value is not lost). */
 export interface ReplayFormValues {
@@ -40,6 +61,7 @@ const asNumber = (text: string) => (text.trim() === '' ? undefined : Number(text
 export function toStartRequest(
   values: ReplayFormValues,
   defaults: ReplayFormValues,
+  limits: ReplayLimits = DEFAULT_LIMITS,
 ): { ok: true; body: TStartReplayRequest } | { ok: false; issues: Record<string, string> } {
   const overrides: Record<string, unknown> = {};
   for (const key of ['particles', 'seed', 'resampling_threshold', 'beams_used'] as const) {
@@ -54,12 +76,21 @@ export function toStartRequest(
   if (values.kld !== defaults.kld) overrides.kld = values.kld;
   const body = { label: values.label.trim() || undefined, overrides };
   const parsed = ZStartReplayRequest.safeParse(body);
-  if (parsed.success) return { ok: true, body };
   const issues: Record<string, string> = {};
-  for (const issue of parsed.error.issues) {
+  for (const issue of parsed.error?.issues ?? []) {
     const path = issue.path.join('.');
     issues[path] ??= issue.message;
   }
+  // Checked against this bundle, as the server will (shared/engine/settings.ts).
+  const beams = overrides.beams_used;
+  if (typeof beams === 'number' && limits.scanBeams !== null && beams > limits.scanBeams) {
+    issues['overrides.beams_used'] ??=
+      `This must be ${limits.scanBeams} or less: the scanner records ${limits.scanBeams} beams per scan`;
+  }
+  if (typeof beams === 'number' && limits.scanBeams === null) {
+    issues['overrides.beams_used'] ??= 'This bundle has no laser scans, so beams used cannot be set';
+  }
+  if (Object.keys(issues).length === 0) return { ok: true, body };
   return { ok: false, issues };
 }
 

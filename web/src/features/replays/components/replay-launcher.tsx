@@ -5,15 +5,25 @@ import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextInput } from '@web/components/inputs';
+import { isApiError } from '@web/lib/api-client';
 import { Play, RotateCcw } from 'lucide-react';
 import { type FormEvent, useMemo, useState } from 'react';
 import { useStartReplay } from '../api/start-replay';
-import { defaultsFrom, type ReplayFormValues, toStartRequest } from './replay-form-values';
+import {
+  DEFAULT_LIMITS,
+  defaultsFrom,
+  limitHints,
+  type ReplayFormValues,
+  type ReplayLimits,
+  toStartRequest,
+} from './replay-form-values';
 
 interface ReplayLauncherProps {
   bundleId: string;
   /** The manifest's filter block (mount the form once it has loaded). */
   defaults: FilterConfig;
+  /** What this bundle allows (scanner beams, particle limit), shown and checked beside the fields. */
+  limits?: ReplayLimits;
   onStarted: (replay: TReplay) => void;
 }
 
@@ -27,7 +37,13 @@ const NUMBER_FIELDS = [
 ] as const;
 
 /** Starts a replay with the manifest's settings or with overrides checked by the shared schema. */
-export function ReplayLauncher({ bundleId, defaults, onStarted }: ReplayLauncherProps) {
+export function ReplayLauncher({
+  bundleId,
+  defaults,
+  limits = DEFAULT_LIMITS,
+  onStarted,
+}: ReplayLauncherProps) {
+  const hints = limitHints(limits);
   const initial = useMemo(() => defaultsFrom(defaults), [defaults]);
   const [values, setValues] = useState<ReplayFormValues>(initial);
   const [issues, setIssues] = useState<Record<string, string>>({});
@@ -37,13 +53,20 @@ export function ReplayLauncher({ bundleId, defaults, onStarted }: ReplayLauncher
 
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
-    const request = toStartRequest(values, initial);
+    const request = toStartRequest(values, initial, limits);
     if (!request.ok) {
       setIssues(request.issues);
       return;
     }
     setIssues({});
-    start.mutate(request.body, { onSuccess: onStarted });
+    start.mutate(request.body, {
+      onSuccess: onStarted,
+      // The server's field issues (same paths, e.g. `overrides.beams_used`) go beside their fields.
+      onError: (error) => {
+        if (!isApiError(error)) return;
+        setIssues(Object.fromEntries(error.fieldIssues.map((issue) => [issue.path, issue.message])));
+      },
+    });
   };
 
   return (
@@ -66,7 +89,7 @@ export function ReplayLauncher({ bundleId, defaults, onStarted }: ReplayLauncher
           <FormField
             key={field.key}
             label={field.label}
-            hint={field.hint}
+            hint={field.key === 'particles' || field.key === 'beams_used' ? hints[field.key] : field.hint}
             error={issues[`overrides.${field.key}`]}
           >
             {(control) => (

@@ -1,8 +1,9 @@
 import type { TReplayStepResponse } from '@shared/contracts/replays';
-import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQueryClient } from '@tanstack/react-query';
 import { apiPaths } from '@web/config/paths';
 import { apiRequest } from '@web/lib/api-client';
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
+import { StepLane, type StepLaneState } from '../lib/step-lane';
 
 export function getReplayStep(
   replayId: string,
@@ -22,21 +23,45 @@ export function replayStepQueryOptions(replayId: string, step: number) {
   });
 }
 
-/** Steps fetched ahead of and behind the cursor so scrubbing draws from the cache. */
-export const PREFETCH_AHEAD = 12;
-export const PREFETCH_BEHIND = 4;
+export interface ReplayStepView {
+  /** The particle set on screen; its `step` may differ from the cursor while the next one loads. */
+  data: TReplayStepResponse | undefined;
+  /** The cursor's step. */
+  target: number;
+  /** True while the data on screen is not the cursor's step. */
+  isStale: boolean;
+  error: Error | null;
+}
 
 /**
- * The particle set at `step`, keeping the previous one on screen while the next loads, and
- * prefetching the steps around the cursor.
+ * The particle set at the cursor's `step`, fetched latest-wins through a {@link StepLane}: the
+ * query cache holds answered steps, superseded requests are aborted, and the step on screen is
+ * always named so a stale drawing can say so.
  */
-export function useReplayStep(replayId: string, step: number, lastStep: number) {
+export function useReplayStep(replayId: string, step: number, lastStep: number): ReplayStepView {
   const queryClient = useQueryClient();
+  const [state, setState] = useState<StepLaneState<TReplayStepResponse> | null>(null);
+  const [lane, setLane] = useState<StepLane<TReplayStepResponse> | null>(null);
   useEffect(() => {
-    for (let k = step - PREFETCH_BEHIND; k <= step + PREFETCH_AHEAD; k++) {
-      if (k < 0 || k > lastStep || k === step) continue;
-      void queryClient.prefetchQuery(replayStepQueryOptions(replayId, k));
-    }
-  }, [queryClient, replayId, step, lastStep]);
-  return useQuery({ ...replayStepQueryOptions(replayId, step), placeholderData: keepPreviousData });
+    const lane = new StepLane<TReplayStepResponse>({
+      lastStep,
+      fetchStep: (k, signal) => getReplayStep(replayId, k, signal),
+      readCache: (k) => queryClient.getQueryData(replayStepQueryOptions(replayId, k).queryKey),
+      writeCache: (k, value) => queryClient.setQueryData(replayStepQueryOptions(replayId, k).queryKey, value),
+      onChange: setState,
+    });
+    setLane(lane);
+    setState(null);
+    return () => lane.dispose();
+  }, [queryClient, replayId, lastStep]);
+  useEffect(() => {
+    lane?.seek(step);
+  }, [lane, step]);
+  const drawn = state?.drawn;
+  return {
+    data: drawn,
+    target: step,
+    isStale: !drawn || drawn.step !== step,
+    error: state && state.target === step ? state.error : null,
+  };
 }

@@ -45,6 +45,7 @@ function ComparePane({
         replayId={replay.id}
         particles={particles.data}
         time={time}
+        targetStep={particles.target}
         label={`${title} map`}
         height={340}
       />

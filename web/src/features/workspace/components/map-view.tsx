@@ -2,7 +2,7 @@ import type { TBundleMap, TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayStepResponse } from '@shared/contracts/replays';
 import { Button } from '@web/components/button';
 import { Crosshair, Maximize, Minus, Plus } from 'lucide-react';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useReplayDisagreement } from '../api/get-replay-disagreement';
 import { useElementWidth } from '../hooks/use-element-width';
 import { useMapViewport } from '../hooks/use-map-viewport';
@@ -16,8 +16,10 @@ import {
   gridImage,
   SERIES_COLOURS,
 } from '../lib/map-drawing';
-import { HEATMAP_LAYER, type MapViewState } from '../lib/map-view-state';
+import { MAP_PALETTE } from '../lib/map-palette';
+import { HEATMAP_LAYER, HEATMAP_MOMENT_LAYER, type HeatMode, type MapViewState } from '../lib/map-view-state';
 import { mapToScreen, nearestParticle, scaleBarLength, screenToMap } from '../lib/map-viewport';
+import { momentDisagreement } from '../lib/moment-disagreement';
 import { poseAtTime } from '../lib/pose-at-time';
 import { MapLegend } from './map-legend';
 
@@ -29,6 +31,8 @@ export interface MapViewProps {
   particles: TReplayStepResponse | undefined;
   /** Cursor time, s since start_time. */
   time: number;
+  /** The cursor's step; when the particle set on screen is another step, the map says so. */
+  targetStep?: number;
   label?: string;
   height?: number;
   /** Restores a pinned view (e.g. from a bookmark). */
@@ -38,12 +42,14 @@ export interface MapViewProps {
 }
 
 /** Canvas view of the map with the replay's belief, the onboard and reference poses at the cursor. */
-export function MapView({
+// Memoised: the workspace re-renders on every cursor move, these only when their inputs change.
+export const MapView = memo(function MapView({
   map,
   tracks,
   replayId,
   particles,
   time,
+  targetStep,
   label = 'Map',
   height = 420,
   initialView,
@@ -52,10 +58,22 @@ export function MapView({
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const [isFollowing, setIsFollowing] = useState(initialView?.followRobot ?? false);
-  const [showHeat, setShowHeat] = useState(initialView?.layers?.includes(HEATMAP_LAYER) ?? false);
+  const [heatMode, setHeatMode] = useState<HeatMode>(
+    initialView?.layers?.includes(HEATMAP_MOMENT_LAYER)
+      ? 'moment'
+      : initialView?.layers?.includes(HEATMAP_LAYER)
+        ? 'replay'
+        : 'off',
+  );
+  const showHeat = heatMode !== 'off';
   const [hover, setHover] = useState<{ px: number; py: number; index: number } | null>(null);
   const [drawnCount, setDrawnCount] = useState(0);
-  const heat = useReplayDisagreement(replayId, showHeat);
+  const heat = useReplayDisagreement(replayId, heatMode === 'replay');
+  const momentHeat = useMemo(
+    () => (heatMode === 'moment' && particles ? momentDisagreement(map, particles.scanEndpoints) : undefined),
+    [heatMode, particles, map],
+  );
+  const heatCounts = heatMode === 'moment' ? momentHeat : heatMode === 'replay' ? heat.data : undefined;
   const follow = isFollowing && particles ? particles.mean : null;
   const { view, zoom, fitToMap, handlers } = useMapViewport(
     map,
@@ -77,9 +95,13 @@ export function MapView({
       centerY: view.centerY,
       zoom: view.pxPerMetre,
       followRobot: isFollowing,
-      layers: ['particles', 'scan', ...(showHeat ? [HEATMAP_LAYER] : [])],
+      layers: [
+        'particles',
+        'scan',
+        ...(heatMode === 'replay' ? [HEATMAP_LAYER] : heatMode === 'moment' ? [HEATMAP_MOMENT_LAYER] : []),
+      ],
     });
-  }, [view, isFollowing, showHeat]);
+  }, [view, isFollowing, heatMode]);
   const onboard = useMemo(() => poseAtTime(tracks?.onboard, time), [tracks, time]);
   const reference = useMemo(() => poseAtTime(tracks?.reference, time), [tracks, time]);
 
@@ -89,11 +111,9 @@ export function MapView({
     const canvas = document.createElement('canvas');
     canvas.width = map.width;
     canvas.height = map.height;
-    canvas
-      .getContext('2d')
-      ?.putImageData(gridImage(map.rows, map.width, showHeat ? heat.data : undefined), 0, 0);
+    canvas.getContext('2d')?.putImageData(gridImage(map.rows, map.width, heatCounts), 0, 0);
     return canvas;
-  }, [map, showHeat, heat.data]);
+  }, [map, heatCounts]);
 
   const background = useMemo(() => {
     if (!view || width === 0) return null;
@@ -104,7 +124,7 @@ export function MapView({
     const ctx = canvas.getContext('2d');
     if (!ctx) return null;
     ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
-    ctx.fillStyle = '#eceee8';
+    ctx.fillStyle = MAP_PALETTE.surround;
     ctx.fillRect(0, 0, width, height);
     const f = { ctx, view, width, height };
     if (gridCanvas) {
@@ -172,6 +192,8 @@ export function MapView({
   }, [view, width, height, background, map, particles, onboard, reference]);
 
   const bar = view ? scaleBarLength(view.pxPerMetre) : null;
+  const drawnStep = particles?.step ?? null;
+  const isStale = targetStep !== undefined && drawnStep !== targetStep;
   const hovered = hover && particles && hover.index >= 0 ? hover : null;
 
   return (
@@ -220,6 +242,23 @@ export function MapView({
             {particles.weight[hovered.index].toExponential(2)}
           </div>
         )}
+        <div
+          data-testid="map-step-label"
+          data-drawn-step={drawnStep ?? -1}
+          aria-live="polite"
+          className={`absolute top-2 left-2 rounded px-1.5 py-0.5 text-xs tabular-nums ${
+            isStale ? 'border border-state-warn bg-amber-50 font-bold text-ink' : 'bg-white/85 text-ink-muted'
+          }`}
+        >
+          {drawnStep === null
+            ? `Loading step ${targetStep ?? 0}…`
+            : isStale
+              ? `Showing step ${drawnStep} · loading step ${targetStep}…`
+              : `Belief at step ${drawnStep}`}
+        </div>
+        {isStale && drawnStep !== null && (
+          <div aria-hidden className="pointer-events-none absolute inset-0 bg-canvas/40" />
+        )}
         {bar && (
           <div
             data-testid="scale-bar"
@@ -254,20 +293,30 @@ export function MapView({
           <Crosshair aria-hidden className="size-4" /> Follow robot
         </label>
         <label className="flex items-center gap-1.5">
-          <input type="checkbox" checked={showHeat} onChange={(e) => setShowHeat(e.target.checked)} />
-          Map-disagreement heat map
-          {showHeat && heat.isFetching && <span className="text-ink-muted">(loading…)</span>}
-          {showHeat && heat.isError && (
+          Map disagreement
+          <select
+            value={heatMode}
+            onChange={(e) => setHeatMode(e.target.value as HeatMode)}
+            className="rounded border border-canvas-line bg-canvas-raised px-1 py-0.5 text-sm"
+          >
+            <option value="off">not shown</option>
+            <option value="moment">at this moment</option>
+            <option value="replay">whole replay</option>
+          </select>
+          {heatMode === 'replay' && heat.isFetching && <span className="text-ink-muted">(loading…)</span>}
+          {heatMode === 'replay' && heat.isError && (
             <span className="text-state-bad">(not available: {heat.error.message})</span>
           )}
         </label>
         <span className="text-ink-muted tabular-nums">
-          {particles ? `${drawnCount} of ${particles.count} particles drawn` : 'Loading particles…'}
+          {particles
+            ? `${drawnCount} of ${particles.count} particles drawn (step ${particles.step})`
+            : 'Loading particles…'}
         </span>
       </figcaption>
       <div className="mt-1">
-        <MapLegend />
+        <MapLegend heat={showHeat ? { counts: heatCounts, mode: heatMode } : undefined} />
       </div>
     </figure>
   );
-}
+});

@@ -1,12 +1,13 @@
 import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
-import { type ReactNode, useCallback, useMemo, useState } from 'react';
+import { type ReactNode, useCallback, useDeferredValue, useMemo, useState } from 'react';
 import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
+import { MomentLink } from './moment-link';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
 import { Timeline } from './timeline';
@@ -28,6 +29,10 @@ export interface ReplayWorkspaceProps {
   extraTabs?: (moment: WorkspaceMoment, seekTime: (t: number) => void) => SidePanelTab[];
   /** Opens at this step and map view (e.g. a bookmark). */
   initialStep?: number;
+  /** Opens at the step nearest this time, s (a deep link); `initialStep` wins when both are given. */
+  initialTime?: number;
+  /** More moments for Previous/Next besides flag starts and events (e.g. bookmark times, s). */
+  extraMoments?: readonly number[];
   initialView?: MapViewState;
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
@@ -39,20 +44,31 @@ export function ReplayWorkspace({
   replay,
   extraTabs,
   initialStep,
+  initialTime,
   initialView,
   toolbar,
+  extraMoments,
 }: ReplayWorkspaceProps) {
   const data = useReplayViewData(bundleId, replay.id);
   const times = (data.series?.columns.t ?? []) as number[];
   const [step, setStep] = useState<number | null>(null);
   const [mapView, setMapView] = useState<MapViewState | null>(initialView ?? null);
-  const current = step ?? initialStep ?? 0;
+  const openedAt =
+    initialStep ?? (initialTime !== undefined && times.length ? nearestStep(times, initialTime) : 0);
+  const current = step ?? openedAt;
+  // The slider follows the pointer at once; the map, timeline and side panel render the cursor
+  // when the browser has time, so a fast drag never queues hundreds of full renders.
+  const shownStep = useDeferredValue(current);
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
   const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
   const moments = useMemo(
-    () => [...replay.flags.map((f) => f.start), ...(data.tracks?.events.map((e) => e.t) ?? [])],
-    [replay.flags, data.tracks],
+    () => [
+      ...replay.flags.map((f) => f.start),
+      ...(data.tracks?.events.map((e) => e.t) ?? []),
+      ...(extraMoments ?? []),
+    ],
+    [replay.flags, data.tracks, extraMoments],
   );
 
   if (data.error)
@@ -68,25 +84,33 @@ export function ReplayWorkspace({
   }
   const time = times[current] ?? 0;
   const moment = { replayId: replay.id, step: current, time, view: mapView };
+  const shownTime = times[shownStep] ?? 0;
+  const shownMoment = { ...moment, step: shownStep, time: shownTime };
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
       <div className="min-w-0 space-y-3">
         {/* Sticky, so the current time and step stay on screen while reading the timeline. */}
         <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
           <Scrubber times={times} step={current} onStep={setStep} moments={moments} />
-          {toolbar && <div className="mt-2">{toolbar(moment)}</div>}
+          <div className="mt-2 flex flex-wrap items-center gap-2">
+            {toolbar?.(moment)}
+            <MomentLink bundleId={bundleId} replayId={replay.id} time={time} />
+          </div>
         </div>
         <MapView
           map={data.map}
           tracks={data.tracks}
           replayId={replay.id}
           particles={particles.data}
-          time={time}
+          time={shownTime}
+          targetStep={shownStep}
           initialView={initialView}
           onViewChange={setMapView}
         />
-        {particles.isError && (
-          <p className="text-sm text-state-bad">Particles at this step: {particles.error.message}</p>
+        {particles.error && (
+          <p className="text-sm text-state-bad">
+            Particles at step {particles.target}: {particles.error.message}
+          </p>
         )}
         <div className="rounded-lg border border-canvas-line bg-canvas-raised p-2">
           <Timeline
@@ -94,7 +118,7 @@ export function ReplayWorkspace({
             tracks={data.tracks}
             clearance={data.clearance}
             flags={replay.flags}
-            step={current}
+            step={shownStep}
             onSeek={setStep}
           />
         </div>
@@ -110,7 +134,7 @@ export function ReplayWorkspace({
               label: `Flags (${replay.flags.length})`,
               content: <FlagsPanel flags={replay.flags} onOpen={seekTime} />,
             },
-            ...(extraTabs?.(moment, seekTime) ?? []),
+            ...(extraTabs?.(shownMoment, seekTime) ?? []),
           ]}
         />
       </aside>

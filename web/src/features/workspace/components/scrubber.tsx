@@ -2,14 +2,14 @@ import { Button } from '@web/components/button';
 import { Pause, Play, SkipBack, SkipForward } from 'lucide-react';
 import { type KeyboardEvent, type PointerEvent, useId } from 'react';
 import { PLAYBACK_SPEEDS, type PlaybackSpeed, usePlayback } from '../hooks/use-playback';
-import { adjacentMoment, stepAfterKey } from '../lib/step-navigation';
+import { adjacentMomentStep, stepAfterKey } from '../lib/step-navigation';
 import { nearestStep } from '../lib/time-scale';
 
 export interface ScrubberProps {
   times: ArrayLike<number>;
   step: number;
   onStep: (step: number) => void;
-  /** Flag starts and event times (s), for the previous/next jumps. */
+  /** Flag starts, event and bookmark times (s), for the previous/next jumps. */
   moments: number[];
 }
 
@@ -29,11 +29,11 @@ export function Scrubber({ times, step, onStep, moments }: ScrubberProps) {
   const last = Math.max(0, times.length - 1);
   const t = times[step] ?? 0;
   const jump = (direction: 1 | -1) => {
-    const target = adjacentMoment(moments, t, direction);
-    if (target !== null) onStep(nearestStep(times, target));
+    const target = adjacentMomentStep(moments, times, step, direction);
+    if (target !== null) onStep(target);
   };
-  const hasPrevious = adjacentMoment(moments, t, -1) !== null;
-  const hasNext = adjacentMoment(moments, t, 1) !== null;
+  const hasPrevious = adjacentMomentStep(moments, times, step, -1) !== null;
+  const hasNext = adjacentMomentStep(moments, times, step, 1) !== null;
 
   const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
     if (event.key === ' ') {
@@ -82,7 +82,7 @@ export function Scrubber({ times, step, onStep, moments }: ScrubberProps) {
         icon={SkipBack}
         onClick={() => jump(-1)}
         disabled={!hasPrevious}
-        title="Previous flag or event ( [ )"
+        title="Previous flag, event or bookmark ( [ )"
       >
         Previous moment
       </Button>
@@ -91,7 +91,7 @@ export function Scrubber({ times, step, onStep, moments }: ScrubberProps) {
         icon={SkipForward}
         onClick={() => jump(1)}
         disabled={!hasNext}
-        title="Next flag or event ( ] )"
+        title="Next flag, event or bookmark ( ] )"
       >
         Next moment
       </Button>
@@ -111,7 +111,11 @@ export function Scrubber({ times, step, onStep, moments }: ScrubberProps) {
           data-testid="scrubber"
           onKeyDown={onKeyDown}
           onPointerDown={(event) => {
-            event.currentTarget.setPointerCapture(event.pointerId);
+            try {
+              event.currentTarget.setPointerCapture(event.pointerId);
+            } catch {
+              // A pointer the browser no longer tracks cannot be captured; seeking still works.
+            }
             seekPointer(event);
           }}
           onPointerMove={(event) => event.buttons === 1 && seekPointer(event)}

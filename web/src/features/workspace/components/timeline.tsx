@@ -2,7 +2,7 @@ import type { TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/replays';
 import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
 import { useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
@@ -30,7 +30,8 @@ const formatValue = (v: number) =>
   Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(1) : v.toFixed(2);
 
 /** Stacked diagnostic tracks over the replay's time, with events, flags, zoom brush and cursor. */
-export function Timeline({
+// Memoised: the workspace re-renders on every cursor move, these only when their inputs change.
+export const Timeline = memo(function Timeline({
   series,
   tracks,
   clearance,
@@ -251,4 +252,4 @@ export function Timeline({
       )}
     </div>
   );
-}
+});

@@ -1,6 +1,7 @@
 import type { Footprint } from '@shared/bundle/types';
 import type { TReplayStepResponse } from '@shared/contracts/replays';
 import { confidenceEllipse } from './covariance-ellipse';
+import { cellRgb, heatRgb } from './map-palette';
 import { type MapViewport, mapToScreen } from './map-viewport';
 
 export const SERIES_COLOURS = {
@@ -13,13 +14,6 @@ export const SERIES_COLOURS = {
   scan: '#56B4E9',
 } as const;
 
-/** RGBA per map.json cell character: occupied near-black, free white, unknown light grey. */
-const CELL_RGBA: Record<string, [number, number, number, number]> = {
-  '#': [34, 38, 44, 255],
-  '.': [255, 255, 255, 255],
-  '?': [214, 217, 221, 255],
-};
-
 /** Pixels (one per cell, row 0 northmost) of the occupancy grid, optionally tinted by a heat map. */
 export function gridImage(rows: string[], width: number, heat?: Uint32Array): ImageData {
   const image = new ImageData(width, rows.length);
@@ -29,23 +23,22 @@ export function gridImage(rows: string[], width: number, heat?: Uint32Array): Im
     const row = rows[i];
     for (let j = 0; j < width; j++) {
       const o = (i * width + j) * 4;
-      const rgba = CELL_RGBA[row[j]] ?? CELL_RGBA['?'];
-      let [r, g, b] = rgba;
+      let rgb = cellRgb(row[j], i, j);
       const count = heat && heatMax > 0 ? heat[i * width + j] : 0;
-      if (count > 0) {
-        // Square root keeps a few disagreeing cells visible next to a very hot one.
-        const strength = 0.25 + 0.75 * Math.sqrt(count / heatMax);
-        r = Math.round(r * (1 - strength) + 213 * strength);
-        g = Math.round(g * (1 - strength) + 94 * strength);
-        b = Math.round(b * (1 - strength) + 0 * strength);
-      }
-      image.data[o] = r;
-      image.data[o + 1] = g;
-      image.data[o + 2] = b;
+      // Square root keeps a few disagreeing cells visible next to a very hot one.
+      if (count > 0) rgb = heatRgb(rgb, heatStrength(count, heatMax));
+      image.data[o] = rgb[0];
+      image.data[o + 1] = rgb[1];
+      image.data[o + 2] = rgb[2];
       image.data[o + 3] = 255;
     }
   }
   return image;
+}
+
+/** Heat strength of a cell with `count` disagreeing beams, the hottest having `max`. */
+export function heatStrength(count: number, max: number): number {
+  return 0.25 + 0.75 * Math.sqrt(count / max);
 }
 
 type Context = CanvasRenderingContext2D;

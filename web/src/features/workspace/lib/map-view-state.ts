@@ -11,3 +11,8 @@ export interface MapViewState {
 }
 
 export const HEATMAP_LAYER = 'heatmap';
+/** The map-disagreement heat map of the step on screen only. */
+export const HEATMAP_MOMENT_LAYER = 'heatmap-moment';
+
+/** Which map disagreement the map shades: none, the step on screen, or the whole replay. */
+export type HeatMode = 'off' | 'moment' | 'replay';

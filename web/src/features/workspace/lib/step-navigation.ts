@@ -31,16 +31,24 @@ export function stepAfterKey(
 }
 
 /**
- * Time (s) of the next (direction +1) or previous (-1) moment of interest strictly after/before
- * `t`, or null when there is none. Moments are flag starts and event times, in any order.
+ * The step of the next (direction +1) or previous (-1) moment of interest, or null when there is
+ * none. Each moment (flag start, event or bookmark time, s) lands on its nearest step, and the
+ * comparison is made in steps, not seconds: a moment between two steps (an event at 55.767 s with
+ * 0.1 s steps) lands on 55.8 s, and from there "previous" moves to the moment before it rather
+ * than back onto the same step.
  */
-export function adjacentMoment(moments: readonly number[], t: number, direction: 1 | -1): number | null {
-  // Half a millisecond of slack so jumping onto a moment and pressing again moves on.
-  const slack = 5e-4;
+export function adjacentMomentStep(
+  moments: readonly number[],
+  times: ArrayLike<number>,
+  currentStep: number,
+  direction: 1 | -1,
+): number | null {
   let best: number | null = null;
   for (const m of moments) {
-    if (direction > 0 && m > t + slack && (best === null || m < best)) best = m;
-    if (direction < 0 && m < t - slack && (best === null || m > best)) best = m;
+    const k = nearestStep(times, m);
+    if (k < 0) continue;
+    if (direction > 0 && k > currentStep && (best === null || k < best)) best = k;
+    if (direction < 0 && k < currentStep && (best === null || k > best)) best = k;
   }
   return best;
 }
