@@ -1,5 +1,9 @@
-import type { TCaseStatus } from './contracts/cases';
-import type { Role } from './roles';
+import { CASE_STATUS_LABELS, type TCaseStatus } from './contracts/cases';
+import { ROLE_LABELS, type Role } from './roles';
+
+// Messages are read by people (the case page shows them), so states and roles go in their words.
+const said = (state: TCaseStatus) => `“${CASE_STATUS_LABELS[state]}”`;
+const roleWords = (roles: readonly Role[]) => roles.map((role) => ROLE_LABELS[role]).join(' or ');
 
 /**
  * The case lifecycle as a pure state machine: which state follows which, who may move it, and
@@ -107,10 +111,10 @@ export function transitionsFrom(state: TCaseStatus): CaseTransition[] {
 }
 
 function describeAllowed(state: TCaseStatus): string {
-  const options = transitionsFrom(state).map((t) => `${t.to} (${t.roles.join('/')}: ${t.cause})`);
+  const options = transitionsFrom(state).map((t) => `${said(t.to)} (${roleWords(t.roles)}: ${t.cause})`);
   return options.length
-    ? `From ${state} the case can go to: ${options.join('; ')}.`
-    : `No move leaves ${state}.`;
+    ? `From ${said(state)} the case can go to: ${options.join('; ')}.`
+    : `No move leaves ${said(state)}.`;
 }
 
 /**
@@ -129,28 +133,28 @@ export function checkTransition(
     return {
       ok: false,
       reason: 'no_such_transition',
-      message: `A case cannot go from ${from} to ${to}. ${describeAllowed(from)}`,
+      message: `A case cannot go from ${said(from)} to ${said(to)}. ${describeAllowed(from)}`,
     };
   }
   if (!transition.roles.includes(role)) {
     return {
       ok: false,
       reason: 'role',
-      message: `Moving a case from ${from} to ${to} needs one of these roles: ${transition.roles.join(', ')}.`,
+      message: `Moving a case from ${said(from)} to ${said(to)} needs the role ${roleWords(transition.roles)}.`,
     };
   }
   if (options.direct && !transition.isDirect) {
     return {
       ok: false,
       reason: 'not_direct',
-      message: `A case goes from ${from} to ${to} only by ${transition.cause}, not by a status change.`,
+      message: `A case goes from ${said(from)} to ${said(to)} only by ${transition.cause}, not by a status change.`,
     };
   }
   if (transition.event === 'close' && context.unverifiedFixes > 0) {
     return {
       ok: false,
       reason: 'guard',
-      message: `The case cannot close: ${context.unverifiedFixes} linked fix(es) are not verified yet.`,
+      message: `The case cannot close: ${context.unverifiedFixes === 1 ? '1 linked fix is' : `${context.unverifiedFixes} linked fixes are`} not verified yet.`,
     };
   }
   return { ok: true, transition };

@@ -50,8 +50,8 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'saved_query.create': 'Query saved',
   'archive.export': 'Evidence archive exported',
   'archive.verify': 'Evidence archive checked',
-  'key.rotate': 'Signing key rotated',
-  'audit.checkpoint': 'Audit checkpoint signed',
+  'key.rotate': 'Signing key replaced',
+  'audit.checkpoint': 'Audit trail checkpoint recorded',
 };
 
 /** The buttons and history lines of the lifecycle's moves, in the review words of design.md. */

@@ -19,6 +19,15 @@ const SPEC: Record<string, { roles: Role[]; isDirect: boolean }> = {
 };
 
 const NO_FIXES = { unverifiedFixes: 0 };
+/** The product's words for the states, as the case page shows them. */
+const STATE_WORDS: Record<TCaseStatus, string> = {
+  open: 'Open',
+  analysing: 'Under analysis',
+  in_review: 'In review',
+  changes_requested: 'Changes requested',
+  signed_off: 'Signed off',
+  closed: 'Closed',
+};
 const pairs = CASE_STATUSES.flatMap((from) =>
   CASE_STATUSES.map((to) => [from, to] as [TCaseStatus, TCaseStatus]),
 );
@@ -31,9 +40,9 @@ describe('case lifecycle', () => {
       const shouldPass = !!spec && spec.roles.includes(role);
       expect(check.ok, `${from} → ${to} as ${role}`).toBe(shouldPass);
       if (!check.ok) {
-        // The message names both states so a 409 tells the user what was refused.
-        expect(check.message).toContain(from);
-        expect(check.message).toContain(to);
+        // The message names both states, in words, so a 409 tells the user what was refused.
+        expect(check.message).toContain(`“${STATE_WORDS[from]}”`);
+        expect(check.message).toContain(`“${STATE_WORDS[to]}”`);
         expect(check.reason).toBe(spec ? 'role' : 'no_such_transition');
       }
     }
@@ -49,7 +58,7 @@ describe('case lifecycle', () => {
   it('lists the allowed moves when a transition does not exist', () => {
     const check = checkTransition('open', 'closed', 'admin', NO_FIXES, { direct: true });
     expect(check.ok).toBe(false);
-    if (!check.ok) expect(check.message).toContain('analysing');
+    if (!check.ok) expect(check.message).toContain('“Under analysis”');
   });
 
   it('refuses to close while a linked fix is unverified', () => {

@@ -6,6 +6,7 @@ import type {
   TUpdateBookmarkRequest,
 } from '../../../../shared/contracts/bookmarks';
 import { AppError } from '../../../../shared/errors';
+import { REPLAY_STATUS_LABELS } from '../../../../shared/human-labels';
 import type { Database, Transaction } from '../../db/client';
 import { type BookmarkRow, bookmarks, bundles, replays } from '../../db/schema';
 import type { Actor } from '../actor';
@@ -63,7 +64,10 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
     if (!replay || replay.caseId !== caseId)
       throw invalid('replayId', `No replay ${request.replayId} in this case`);
     if (replay.status !== 'done' || !replay.digest || replay.steps === null) {
-      throw invalid('replayId', `Replay ${request.replayId} is ${replay.status}; pin a finished replay`);
+      throw invalid(
+        'replayId',
+        `Replay ${request.replayId} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}; pin a finished replay`,
+      );
     }
     if (request.step >= replay.steps) {
       throw invalid('step', `Step ${request.step} is outside the replay (steps 0 to ${replay.steps - 1})`);

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { canEditFindings } from '../../../../shared/case-lifecycle';
+import { CASE_STATUS_LABELS } from '../../../../shared/contracts/cases';
 import {
   type TFindingsDiff,
   type TFindingsDraft,
@@ -65,7 +66,7 @@ export function createFindingsService(deps: {
     const { status } = await loadCaseState(executor, caseId);
     return canEditFindings(status)
       ? null
-      : `Findings cannot be edited while the case is ${status}; ${
+      : `Findings cannot be edited while the case is “${CASE_STATUS_LABELS[status]}”; ${
           status === 'in_review' ? 'wait for the review' : 'reopen the case to start a new version'
         }.`;
   }

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
+import { CASE_STATUS_LABELS } from '../../../../shared/contracts/cases';
 import type { TFindingsVersion, TSignatureStatus } from '../../../../shared/contracts/findings';
 import { AppError } from '../../../../shared/errors';
 import { SAFETY_CAUTION } from '../../../../shared/safety-caution';
@@ -85,7 +86,7 @@ export function createReviewService(deps: {
     if (status !== 'in_review' || latest !== version) {
       throw new AppError(
         'illegal_transition',
-        `Version ${version} cannot be ${verb}: the case is ${status} and the version under review is ${
+        `Version ${version} cannot be ${verb}: the case is “${CASE_STATUS_LABELS[status]}” and the version under review is ${
           status === 'in_review' ? latest : 'none'
         }.`,
       );

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { TCaseHold, TPlaceHoldRequest, TReleaseHoldRequest } from '../../../../shared/contracts/holds';
 import { AppError } from '../../../../shared/errors';
+import { formatUtcInstant } from '../../../../shared/site-time';
 import type { Database } from '../../db/client';
 import { type CaseHoldRow, caseHolds, users } from '../../db/schema';
 import type { Actor } from '../actor';
@@ -39,7 +40,7 @@ export async function describeHold(db: Database, hold: TCaseHold): Promise<strin
     .from(users)
     .where(eq(users.id, hold.placedBy));
   const who = placer ? `${placer.name} (${placer.email})` : `user ${hold.placedBy}`;
-  return `under legal hold placed by ${who} on ${hold.placedAt} (${hold.reason})`;
+  return `under legal hold placed by ${who} on ${formatUtcInstant(hold.placedAt)} (${hold.reason})`;
 }
 
 /**

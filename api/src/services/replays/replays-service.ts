@@ -13,6 +13,7 @@ import {
 } from '../../../../shared/contracts/replays';
 import { type ReplaySettings, resolveReplaySettings } from '../../../../shared/engine/settings';
 import { AppError } from '../../../../shared/errors';
+import { REPLAY_STATUS_LABELS } from '../../../../shared/human-labels';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
 import { readSafety, replayDir } from '../../replays/replay-files';
@@ -247,7 +248,7 @@ export function createReplaysService({
     if (!state)
       throw new AppError(
         'conflict',
-        `Replay ${id} is ${replay.status}; only a queued or running replay can be cancelled.`,
+        `Replay ${id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}; only a waiting or running replay can be cancelled.`,
       );
     await audit.appendAlone({
       actor,
@@ -269,7 +270,10 @@ export function createReplaysService({
   async function requireDone(id: string): Promise<TReplay> {
     const replay = await getReplay(id);
     if (replay.status !== 'done')
-      throw new AppError('conflict', `Replay ${id} is ${replay.status}, not done.`);
+      throw new AppError(
+        'conflict',
+        `Replay ${id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}, not finished.`,
+      );
     return replay;
   }
 
