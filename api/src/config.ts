@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { isKnownTimeZone } from '../../shared/site-time';
 
 const ZFlag = z
   .enum(['0', '1', 'true', 'false', 'yes', 'no'])
@@ -39,6 +40,10 @@ const ZEnvironment = z.object({
   MAX_RUNNING_REPLAYS_PER_USER: z.coerce.number().int().min(1).default(3),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   PUBLIC_URL: z.string().url().optional(),
+  SITE_TIME_ZONE: z
+    .string()
+    .default('UTC')
+    .refine(isKnownTimeZone, 'SITE_TIME_ZONE must be an IANA time zone such as Europe/Berlin or UTC'),
   NODE_ENV: z.string().default('production'),
 });
 
@@ -59,6 +64,8 @@ export interface AppConfig {
   maxRunningReplaysPerUser: number;
   logLevel: string;
   publicUrl: string;
+  /** IANA zone every time is shown in (screens, mails, report.html); RFC 3339 stays in the data. */
+  siteTimeZone: string;
   /** Cookies get `Secure` only behind HTTPS, so local http use keeps working. */
   secureCookies: boolean;
 }
@@ -87,6 +94,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     maxRunningReplaysPerUser: e.MAX_RUNNING_REPLAYS_PER_USER,
     logLevel: e.LOG_LEVEL,
     publicUrl,
+    siteTimeZone: e.SITE_TIME_ZONE,
     secureCookies: publicUrl.startsWith('https://'),
   };
 }

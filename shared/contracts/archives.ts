@@ -33,7 +33,9 @@ export const ZArchiveManifest = z.object({
     .object({ chain: z.string(), entries: z.number().int().nonnegative(), headHash: z.string() })
     .optional(),
   /** Each findings version in the archive with the number of sign-off signatures it carries. */
-  findings: z.array(z.object({ version: z.number().int().positive(), signatures: z.number().int() })).optional(),
+  findings: z
+    .array(z.object({ version: z.number().int().positive(), signatures: z.number().int() }))
+    .optional(),
 });
 export type TArchiveManifest = z.infer<typeof ZArchiveManifest>;
 

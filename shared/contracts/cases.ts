@@ -58,6 +58,45 @@ export const ZUpdateCaseRequest = z
   .refine((body) => Object.keys(body).length > 0, { message: 'Change at least one field' });
 export type TUpdateCaseRequest = z.infer<typeof ZUpdateCaseRequest>;
 
+/** Driftcase's own stages of a case, in the order a case passes them. */
+export const CASE_STAGES = [
+  'evidence_in',
+  'replayed',
+  'findings_drafted',
+  'signed',
+  'fix_verified',
+  'closed',
+] as const;
+export const ZCaseStage = z.enum(CASE_STAGES);
+export type TCaseStage = z.infer<typeof ZCaseStage>;
+
+/**
+ * Where a case stands on its path (see shared/case-path.ts): each stage reached or not and when,
+ * the furthest stage reached, who holds the case now, what they do next, and since when.
+ */
+export const ZCasePath = z.object({
+  stages: z.array(
+    z.object({
+      stage: ZCaseStage,
+      /** `done`: reached; `now`: being worked towards; `todo`: not reached; `skipped`: not needed. */
+      state: z.enum(['done', 'now', 'todo', 'skipped']),
+      /** RFC 3339; when the stage was reached. */
+      at: z.string().nullable(),
+    }),
+  ),
+  /** The furthest stage reached; null before any evidence is in. */
+  standing: ZCaseStage.nullable(),
+  /** Where it stands, in words: `Findings awaiting sign-off`. */
+  summary: z.string(),
+  /** Roles that hold the case now (empty once closed). */
+  holders: z.array(z.string()),
+  /** What the holders do next. */
+  task: z.string(),
+  /** RFC 3339; since when the case stands where it does. */
+  since: z.string(),
+});
+export type TCasePath = z.infer<typeof ZCasePath>;
+
 export const ZCase = z.object({
   id: z.string(),
   reference: z.string(),
@@ -71,6 +110,7 @@ export const ZCase = z.object({
   createdBy: z.object({ id: z.string(), name: z.string() }),
   createdAt: z.string(),
   updatedAt: z.string(),
+  path: ZCasePath,
 });
 export type TCase = z.infer<typeof ZCase>;
 

@@ -10,6 +10,7 @@ import { SAFETY_CAUTION } from '../../shared/safety-caution';
 import { archivedCase, downloadArchive } from '../support/archive-samples';
 import { makeTempDir } from '../support/bundle-fixtures';
 import { as } from '../support/case-work-fixtures';
+import { findRawValues, htmlTextPieces } from '../support/raw-values';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /** Every entry of a zip as name → bytes (yauzl checks sizes; the CRC is checked by `unzip -t` below). */
@@ -33,7 +34,7 @@ let first: string;
 let second: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
+  t = await createTestApp({ SITE_TIME_ZONE: 'Europe/Berlin' });
   dir = await makeTempDir('driftcase-archive-test-');
   ({ caseId } = await archivedCase(t));
   first = await downloadArchive(t, caseId, dir, 'first.zip');
@@ -110,6 +111,19 @@ describe('GET /api/cases/:id/archive', () => {
     // One CSV row per step plus the header.
     expect(entries.get(csvName)!.toString('utf8').trim().split('\n')).toHaveLength(replay.body.steps + 1);
     expect(entries.get(`replays/${replayId}/digest`)!.toString('utf8').trim()).toBe(replay.body.digest);
+  });
+
+  it('report.html reads in human values: site times with the zone named, words for every code', async () => {
+    const report = (await readZip(first)).get('report.html')!.toString('utf8');
+    const pieces = htmlTextPieces(report);
+    expect(findRawValues(pieces)).toEqual([]);
+    // Times in Berlin carry CET or CEST (Directive 2000/84/EC); the footer names the zone in full.
+    expect(report).toMatch(/\d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} CES?T/);
+    expect(report).toContain('Times are shown in Europe/Berlin');
+    // Machines still get RFC 3339 in each <time datetime>.
+    expect(report).toMatch(/<time datetime="\d{4}-\d{2}-\d{2}T[^"]+">/);
+    expect(report).toContain('aria-label="Case path"');
+    expect(report).toMatch(/role="img" aria-label="Severity: (Low|Medium|High|Critical)"/);
   });
 
   it('gives identical content files for an unchanged case, except the custody record of the earlier export', async () => {

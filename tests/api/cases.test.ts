@@ -116,4 +116,33 @@ describe('cases', () => {
       .expect(400);
     expect(malformed.body.error.message).toMatch(/not valid JSON/);
   });
+  it('gives each case its path: where it stands, who holds it and since when', async () => {
+    const created = await request(t.app).post('/api/cases').set(auth()).send(newCase()).expect(201);
+    // A new case has no evidence: the first stage is the one being worked towards, by an investigator.
+    expect(created.body.path.standing).toBeNull();
+    expect(created.body.path.summary).toBe('Waiting for evidence');
+    expect(created.body.path.holders).toEqual(['investigator']);
+    expect(created.body.path.since).toBe(created.body.createdAt);
+    expect(created.body.path.stages.map((s: { state: string }) => s.state)).toEqual([
+      'now',
+      'todo',
+      'todo',
+      'todo',
+      'todo',
+      'todo',
+    ]);
+    // A status change through PATCH is a move on the path: "since" follows its audit entry.
+    const moved = await request(t.app)
+      .patch(`/api/cases/${created.body.id}`)
+      .set(auth())
+      .send({ status: 'analysing' })
+      .expect(200);
+    expect(Date.parse(moved.body.path.since)).toBeGreaterThan(Date.parse(created.body.createdAt));
+    const listed = await request(t.app)
+      .get('/api/cases')
+      .query({ q: created.body.reference })
+      .set(auth())
+      .expect(200);
+    expect(listed.body.items[0].path).toEqual(moved.body.path);
+  });
 });

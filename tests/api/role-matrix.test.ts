@@ -50,6 +50,7 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
   ...evidenceSamples(() => t),
   ...bundleViewSamples(),
   'get /health': () => ({ path: '/api/health' }),
+  'get /site': () => ({ path: '/api/site' }),
   'post /auth/login': () => ({
     path: '/api/auth/login',
     body: { email: 'legal@driftcase.example', password: 'driftcase-demo' },

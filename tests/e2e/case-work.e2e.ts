@@ -163,7 +163,10 @@ describe('case work', () => {
     await saveScreenshot(reviewer, 'case-work-case-page');
     await reviewer.goto(`/cases/${caseId}/audit`);
     await reviewer.getByRole('table').waitFor();
-    const actions = await reviewer.locator('tbody td:nth-child(5)').allInnerTexts();
+    // People read the actions' labels; the recorded codes stay in a data attribute for machines.
+    const actions = await reviewer
+      .locator('tbody td:nth-child(5) [data-action]')
+      .evaluateAll((cells) => cells.map((cell) => cell.getAttribute('data-action')));
     for (const action of [
       'findings.submit',
       'findings.return',
@@ -174,6 +177,9 @@ describe('case work', () => {
       expect(actions).toContain(action);
     }
     expect(actions.filter((action) => action === 'findings.submit')).toHaveLength(2);
+    const labels = await reviewer.locator('tbody td:nth-child(5)').allInnerTexts();
+    expect(labels).toContain('Findings submitted for sign-off');
+    expect(labels).not.toContain('findings.submit');
     await reviewer.getByRole('button', { name: 'Verify chain' }).click();
     await reviewer.getByText(/Chain intact: \d+ entries verified/).waitFor();
     await saveScreenshot(reviewer, 'case-work-audit');

@@ -11,9 +11,10 @@ describe('cases', () => {
   const browser = useBrowser();
 
   it('an investigator opens a case and finds it in the list', async () => {
-    // Berlin is on CET (UTC+01:00) on 14 March 2026: EU summer time starts on the last Sunday of March
-    // (Directive 2000/84/EC, article 2), which is 29 March in 2026.
-    const page = await browser.open({ timezoneId: 'Europe/Berlin' });
+    // The site's zone is Berlin (global setup); this browser runs on Chicago time, so every time typed
+    // and shown must follow the site, not the browser. Berlin is on CET (UTC+01:00) on 14 March 2026:
+    // EU summer time starts on the last Sunday of March (Directive 2000/84/EC, article 2), 29 March.
+    const page = await browser.open({ timezoneId: 'America/Chicago' });
     await signInAs(page, 'investigator');
     await page.getByRole('link', { name: 'New case' }).first().click();
     await page.getByRole('heading', { name: 'New case' }).waitFor();
@@ -33,17 +34,26 @@ describe('cases', () => {
 
     await page.getByRole('heading', { name: title }).waitFor();
     await saveScreenshot(page, 'case-detail');
-    const incident = await page.getByText('UTC', { exact: false }).first().textContent();
-    expect(incident).toContain('2026-03-14 08:12:00 UTC');
+    const facts = page.getByRole('region', { name: 'Incident' });
+    expect(await facts.innerText()).toContain('14 Mar 2026, 09:12 CET');
+    expect(await facts.innerText()).toContain('14 Mar 2026, 08:12:00 UTC');
+    expect(await facts.locator('time').first().getAttribute('datetime')).toBe('2026-03-14T08:12:00.000Z');
+    // A new case waits for evidence, held by an investigator.
+    const path = page.getByRole('region', { name: 'Case path' });
+    expect(await path.getByTestId('case-standing').innerText()).toBe('Waiting for evidence');
+    expect(await path.innerText()).toMatch(
+      /held by Investigator since \d{1,2} [A-Z][a-z]{2} 2026, \d{2}:\d{2} CES?T/,
+    );
 
     await page.getByRole('link', { name: 'All cases' }).click();
     await page.getByLabel('Search').fill(title);
     const row = page.getByRole('row', { name: new RegExp(title) });
     await row.waitFor();
     const cells = (await row.getByRole('cell').allInnerTexts()).map((text) => text.trim());
-    expect(cells.slice(1, 5)).toEqual([title, 'Quayside cold store', 'TUG-31', '2026-03-14 09:12']);
+    expect(cells.slice(1, 5)).toEqual([title, 'Quayside cold store', 'TUG-31', '14 Mar 2026, 09:12 CET']);
     expect(cells[5]).toBe('High');
-    expect(cells[6]).toBe('Open');
+    expect(cells[6]).toContain('Waiting for evidence');
+    expect(cells[6]).toContain('Investigator');
     await page.context().close();
   });
 

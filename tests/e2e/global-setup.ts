@@ -9,6 +9,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     /** Where the Driftcase server under test listens, e.g. `http://127.0.0.1:41234`. */
     baseUrl: string;
+    /** The server's SITE_TIME_ZONE: every screen, mail and report shows times in it. */
+    siteTimeZone: string;
   }
 }
 
@@ -36,6 +38,12 @@ function buildWebIfNeeded() {
   if (result.status !== 0) throw new Error('e2e setup: `vite build` failed; see its output above.');
 }
 
+/**
+ * The site's zone for the browser tests: Berlin, while each test's browser runs in another zone
+ * (UTC unless it says otherwise), so a time shown in the browser's own zone would be caught.
+ */
+export const E2E_SITE_TIME_ZONE = 'Europe/Berlin';
+
 /** Starts one real server (fresh data directory, demo seed, fake SMTP) for all browser tests. */
 export default async function setup(project: TestProject) {
   buildWebIfNeeded();
@@ -43,7 +51,9 @@ export default async function setup(project: TestProject) {
   const server = await startServer({
     label: 'e2e',
     logFile: path.join(ROOT, 'tests', 'output', 'e2e-server.log'),
+    env: { SITE_TIME_ZONE: E2E_SITE_TIME_ZONE },
   });
   project.provide('baseUrl', server.baseUrl);
+  project.provide('siteTimeZone', E2E_SITE_TIME_ZONE);
   return server.stop;
 }

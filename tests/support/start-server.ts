@@ -31,7 +31,9 @@ export interface StartedServer {
  * browser tests and the browser benchmarks.
  */
 export async function startServer(
-  options: { label: string; logFile?: string; timeoutMs?: number } = { label: 'server' },
+  options: { label: string; logFile?: string; timeoutMs?: number; env?: Record<string, string> } = {
+    label: 'server',
+  },
 ): Promise<StartedServer> {
   const port = await findFreePort();
   // The fake SMTP server gets its own free port too, so parallel runs on one machine do not clash.
@@ -48,6 +50,7 @@ export async function startServer(
       DEMO_SEED: '1',
       SMTP_FAKE_PORT: String(smtpPort),
       LOG_LEVEL: 'warn',
+      ...options.env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
     detached: true,

@@ -16,6 +16,7 @@ import { lifecycleRoutes } from '../routes/lifecycle';
 import { outboxRoutes } from '../routes/outbox';
 import { replayRoutes } from '../routes/replays';
 import { savedQueryRoutes } from '../routes/saved-queries';
+import { siteRoutes } from '../routes/site';
 import { userRoutes } from '../routes/users';
 import type { Services } from './create-services';
 
@@ -28,6 +29,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
   const uploads = { incomingDir: services.evidence.incoming, maxUploadBytes: config.maxUploadBytes };
   return [
     ...healthRoutes(),
+    ...siteRoutes({ timeZone: config.siteTimeZone }),
     ...authRoutes(services.auth, sessionCookieOptions(config)),
     ...userRoutes(services.users),
     ...caseRoutes(services.cases),

@@ -92,7 +92,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       jwks: keys.jwks,
       workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
     },
-    ...{ keys, audit, notify, maxUnpackedBytes },
+    ...{ keys, audit, notify, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
   });
 
   return {

@@ -1,5 +1,5 @@
 import { SEVERITIES } from '@shared/contracts/cases';
-import { SEVERITY_LABELS } from './severity-badge';
+import { SEVERITY_LABELS } from '@shared/human-labels';
 
 /** The `<option>`s of a severity select, mildest first, after an optional empty choice. */
 export function SeverityOptions({

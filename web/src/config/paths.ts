@@ -72,6 +72,7 @@ export const paths = {
 
 export const apiPaths = {
   health: '/api/health',
+  site: '/api/site',
   login: '/api/auth/login',
   logout: '/api/auth/logout',
   me: '/api/auth/me',

@@ -1,10 +1,22 @@
 import { verifyAuditChain } from '../../../../shared/audit-chain';
 import type { Bundle } from '../../../../shared/bundle/types';
 import { CAUSE_CATEGORY_LABELS, INCIDENT_CLASS_LABELS } from '../../../../shared/contracts/findings';
+import {
+  AUDIT_ACTION_LABELS,
+  BUNDLE_STATUS_LABELS,
+  countOf,
+  FINDINGS_VERSION_STATE_LABELS,
+  labelFor,
+  SEVERITY_LABELS,
+} from '../../../../shared/human-labels';
+import { renderSeverityMarkSvg } from '../../../../shared/severity-mark';
+import { describeTimeZone } from '../../../../shared/site-time';
 import type { CaseEvidence } from '../collect-case-evidence';
 import { renderReplaySection } from './replay-section';
+import { REPORT_BRAND_MARK } from './report-brand';
 import { escapeHtml } from './report-colours';
 import { reportStyles } from './report-styles';
+import { createReportText, type ReportText } from './report-text';
 
 export interface ReportInput {
   evidence: CaseEvidence;
@@ -14,17 +26,19 @@ export interface ReportInput {
   safetyCaution: string;
   /** RFC 7638 thumbprint of the key that signs this archive's manifest. */
   signingKeyThumbprint: string;
+  /** IANA zone the report shows times in, named beside each (`SITE_TIME_ZONE`). */
+  siteTimeZone: string;
 }
 
 const row = (label: string, value: string) => `<tr><th>${escapeHtml(label)}</th><td>${value}</td></tr>`;
 
-function findingsSection(evidence: CaseEvidence): string {
+function findingsSection(evidence: CaseEvidence, text: ReportText): string {
   const latestSigned = [...evidence.findings].reverse().find((v) => v.signature);
   const shown = latestSigned ?? evidence.findings.at(-1);
   if (!shown) return '<p>No findings have been submitted.</p>';
   const status = shown.signature
     ? shown.signature.valid
-      ? `<span class="ok">✓ Signature valid</span> — signed by ${escapeHtml(shown.signature.signedBy)} at ${escapeHtml(shown.signature.signedAt)} (key ${escapeHtml(shown.signature.kid)})`
+      ? `<span class="ok">✓ Signature valid</span> — signed by ${escapeHtml(shown.signature.signedBy)} on ${text.time(shown.signature.signedAt, { withSeconds: true })} (key ${escapeHtml(shown.signature.kid)})`
       : `<span class="bad">✗ Signature invalid</span>: ${escapeHtml(shown.signature.error)}`
     : '<span class="bad">✗ Not signed</span>';
   const c = shown.content;
@@ -39,26 +53,26 @@ function findingsSection(evidence: CaseEvidence): string {
   const versions = evidence.findings
     .map(
       (v) =>
-        `<tr><td>${v.version}</td><td>${escapeHtml(v.state)}</td><td>${escapeHtml(v.author.name)}</td><td>${escapeHtml(v.submittedAt)}</td><td class="hash">${escapeHtml(v.sha256)}</td></tr>`,
+        `<tr><td>${v.version}</td><td>${escapeHtml(FINDINGS_VERSION_STATE_LABELS[v.state])}</td><td>${escapeHtml(v.author.name)}</td><td>${text.time(v.submittedAt)}</td><td class="hash">${escapeHtml(v.sha256)}</td></tr>`,
     )
     .join('');
-  return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${escapeHtml(shown.submittedAt)}. ${status}</p>
-<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}${row('Evidence cited', `${c.evidence.length} item(s)`)}</tbody></table>
+  return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${text.time(shown.submittedAt)}. ${status}</p>
+<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}${row('Evidence cited', countOf(c.evidence.length, 'item'))}</tbody></table>
 <h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>`;
 }
 
-function fixesSection(evidence: CaseEvidence): string {
+function fixesSection(evidence: CaseEvidence, text: ReportText): string {
   if (evidence.fixes.length === 0) return '<p>No fixes are linked.</p>';
   const digests = new Map(evidence.replays.map((r) => [r.replay.id, r.result]));
   return `<table><thead><tr><th>Fix</th><th>Link</th><th>Verification replay</th><th>Verified</th></tr></thead><tbody>${evidence.fixes
     .map((fix) => {
       const replay = fix.verificationReplayId ? digests.get(fix.verificationReplayId) : undefined;
-      return `<tr><td>${escapeHtml(fix.description)}<br><span class="unit">linked by ${escapeHtml(fix.linkedBy.name)} at ${escapeHtml(fix.linkedAt)}</span></td><td class="hash">${escapeHtml(fix.url ?? '')} ${escapeHtml(fix.commitId ?? '')}</td><td>${fix.verificationReplayId ? `<span class="hash">${escapeHtml(fix.verificationReplayId)}</span>${replay ? `<br>${replay.flags.length} flag(s), RMSE ${replay.metrics.rmse_reference?.toFixed(3) ?? '–'} m` : ''}` : 'none'}</td><td>${fix.verifiedAt ? `<span class="ok">✓</span> ${escapeHtml(fix.verifiedBy?.name)} at ${escapeHtml(fix.verifiedAt)}` : 'not yet'}</td></tr>`;
+      return `<tr><td>${escapeHtml(fix.description)}<br><span class="unit">linked by ${escapeHtml(fix.linkedBy.name)} on ${text.time(fix.linkedAt)}</span></td><td class="hash">${escapeHtml(fix.url ?? '')} ${escapeHtml(fix.commitId ?? '')}</td><td>${fix.verificationReplayId ? `<span class="hash">${escapeHtml(fix.verificationReplayId)}</span>${replay ? `<br>${countOf(replay.flags.length, 'flag')}, RMSE ${replay.metrics.rmse_reference?.toFixed(3) ?? '–'} m` : ''}` : 'none'}</td><td>${fix.verifiedAt ? `<span class="ok">✓</span> ${escapeHtml(fix.verifiedBy?.name)} on ${text.time(fix.verifiedAt)}` : 'not yet'}</td></tr>`;
     })
     .join('')}</tbody></table>`;
 }
 
-function custodySection(evidence: CaseEvidence): string {
+function custodySection(evidence: CaseEvidence, text: ReportText): string {
   const exports = evidence.auditChain.filter((e) => e.action === 'archive.export');
   const chain = verifyAuditChain(evidence.auditChain);
   const counts = new Map<string, number>();
@@ -66,15 +80,19 @@ function custodySection(evidence: CaseEvidence): string {
   const exportRows = exports
     .map(
       (e) =>
-        `<tr><td>${escapeHtml(e.at)}</td><td>${escapeHtml(e.actorEmail)}</td><td class="hash">${escapeHtml(e.details.sha256)}</td></tr>`,
+        `<tr><td>${text.time(e.at, { withSeconds: true })}</td><td>${escapeHtml(e.actorEmail)}</td><td class="hash">${escapeHtml(e.details.sha256)}</td></tr>`,
     )
     .join('');
   const actionRows = [...counts.entries()]
+    .map(([action, n]) => [labelFor(AUDIT_ACTION_LABELS, action), action, n] as const)
     .sort(([a], [b]) => a.localeCompare(b))
-    .map(([action, n]) => `<tr><td>${escapeHtml(action)}</td><td>${n}</td></tr>`)
+    .map(
+      ([label, action, n]) =>
+        `<tr><td title="${escapeHtml(action)}">${escapeHtml(label)}</td><td>${n}</td></tr>`,
+    )
     .join('');
   return `<h3>Earlier exports</h3>${exports.length ? `<table><thead><tr><th>When</th><th>Who</th><th>Archive SHA-256</th></tr></thead><tbody>${exportRows}</tbody></table>` : '<p>This is the first export of the case.</p>'}
-<h3>Audit trail</h3><p>${evidence.auditChain.length} entries; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'none')}</span>.</p>
+<h3>Audit trail</h3><p>${countOf(evidence.auditChain.length, 'entry', 'entries')}; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'none')}</span>.</p>
 <table><thead><tr><th>Action</th><th>Entries</th></tr></thead><tbody>${actionRows}</tbody></table>`;
 }
 
@@ -86,27 +104,28 @@ function custodySection(evidence: CaseEvidence): string {
 export function renderReport(input: ReportInput): string {
   const { evidence } = input;
   const c = evidence.caseRecord;
+  const text = createReportText(input.siteTimeZone);
   const bundleRows = evidence.bundles
     .map(
       ({ record }) =>
-        `<tr><td>${escapeHtml(record.originalName)}</td><td>${escapeHtml(record.status)}</td><td>${record.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(record.sha256)}</td></tr>`,
+        `<tr><td>${escapeHtml(record.originalName)}</td><td>${escapeHtml(BUNDLE_STATUS_LABELS[record.status])}</td><td>${record.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(record.sha256)}</td></tr>`,
     )
     .join('');
   const replays = evidence.replays
-    .map((entry) => renderReplaySection(entry, input.bundles.get(entry.bundleSha256) ?? null))
+    .map((entry) => renderReplaySection(entry, input.bundles.get(entry.bundleSha256) ?? null, text))
     .join('');
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
 <title>Evidence report ${escapeHtml(c.reference)}</title><style>${reportStyles()}</style></head><body>
-<header><h1>Evidence report — ${escapeHtml(c.reference)}</h1><p>${escapeHtml(c.title)}</p></header>
+<header class="brand"><div class="brand-line">${REPORT_BRAND_MARK}<span class="wordmark">Drift<span>case</span></span><span class="kind">Evidence report</span></div><h1><span class="ref">${escapeHtml(c.reference)}</span> ${escapeHtml(c.title)}</h1></header>
 <p class="caution" role="note">⚠ ${escapeHtml(input.safetyCaution)}</p>
-<section><h2>Case</h2><table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', escapeHtml(c.incidentTime))}${row('Severity', escapeHtml(c.severity))}${row('Status', escapeHtml(c.status))}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
+<section><h2>Case</h2>${text.casePath(c.path)}<table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', text.time(c.incidentTime))}${row('Severity', `<span class="severity">${renderSeverityMarkSvg(c.severity, 18)} ${escapeHtml(SEVERITY_LABELS[c.severity])}</span>`)}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
 <section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}</section>
 <section><h2>Replays and flags</h2>${replays ? `${REPLAY_RERUN_NOTE}${replays}` : '<p>No finished replays.</p>'}</section>
-<section><h2>Findings</h2>${findingsSection(evidence)}</section>
-<section><h2>Fixes and verification</h2>${fixesSection(evidence)}</section>
-<section><h2>Custody</h2>${custodySection(evidence)}</section>
+<section><h2>Findings</h2>${findingsSection(evidence, text)}</section>
+<section><h2>Fixes and verification</h2>${fixesSection(evidence, text)}</section>
+<section><h2>Custody</h2>${custodySection(evidence, text)}</section>
 <section><h2>Signing key</h2><p>This archive is signed with the key whose RFC 7638 thumbprint is <code class="thumbprint">${escapeHtml(input.signingKeyThumbprint)}</code>. Compare it with the thumbprint your site publishes outside Driftcase: a key found only inside the archive proves nothing, since whoever edits an archive can replace it.</p></section>
-<footer><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip --trusted-thumbprint ${escapeHtml(input.signingKeyThumbprint)}</code> checks every file against manifest.json, the signatures against that trusted key, the audit chain and its checkpoints, and re-runs every replay from the included original bundle.</p></footer>
+<footer><p class="unit">Times are shown in ${escapeHtml(describeTimeZone(input.siteTimeZone, new Date(c.incidentTime)))}, the site's time zone; the archive's JSON files keep every time in RFC 3339.</p><p class="unit">Check this archive offline: <code>npm run cli -- verify-archive FILE.zip --trusted-thumbprint ${escapeHtml(input.signingKeyThumbprint)}</code> checks every file against manifest.json, the signatures against that trusted key, the audit chain and its checkpoints, and re-runs every replay from the included original bundle.</p></footer>
 </body></html>
 `;
 }

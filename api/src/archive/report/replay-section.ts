@@ -1,7 +1,15 @@
 import type { Bundle, PoseColumns } from '../../../../shared/bundle/types';
+import {
+  countOf,
+  EVENT_KIND_LABELS,
+  FLAG_KIND_LABELS,
+  FLAG_SEVERITY_LABELS,
+  labelFor,
+} from '../../../../shared/human-labels';
 import type { CaseEvidence } from '../collect-case-evidence';
 import { renderMapPictureSvg } from './map-picture-svg';
 import { escapeHtml, formatNumber, SERIES_COLOURS } from './report-colours';
+import type { ReportText } from './report-text';
 import { renderSafetySection } from './safety-section';
 import { renderTimelineSvg } from './timeline-svg';
 
@@ -39,7 +47,7 @@ function mapPictures(entry: ReplayEvidence, bundle: Bundle | null): string {
     }
     const replay =
       x[step] === null ? null : { x: x[step] as number, y: y[step] as number, theta: theta[step] ?? 0 };
-    const caption = `${flag.kind} at ${formatNumber(flag.start, 1)} s (step ${step})`;
+    const caption = `${labelFor(FLAG_KIND_LABELS, flag.kind)} at ${formatNumber(flag.start, 1)} s (step ${step})`;
     const svg = renderMapPictureSvg({
       grid,
       caption,
@@ -54,16 +62,24 @@ function mapPictures(entry: ReplayEvidence, bundle: Bundle | null): string {
 }
 
 /** One replay: settings, digest, RMSE, the ESS and error timelines, flags with evidence, map pictures. */
-export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null): string {
+export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null, text: ReportText): string {
   const { replay, result, series } = entry;
   const settings = result.settings;
   const particles = series.particles ?? [];
   const essFraction = (series.ess ?? []).map((ess, i) =>
     ess === null || !particles[i] ? null : ess / (particles[i] as number),
   );
-  const flags = result.flags.map((f) => ({ start: f.start, end: f.end, kind: f.kind }));
+  // The charts' hover titles read the kinds in words, like every other text of the report.
+  const flags = result.flags.map((f) => ({
+    start: f.start,
+    end: f.end,
+    kind: labelFor(FLAG_KIND_LABELS, f.kind),
+  }));
   const events = bundle?.events
-    ? Array.from(bundle.events.t, (t, i) => ({ t, kind: bundle.events?.kind[i] ?? '' }))
+    ? Array.from(bundle.events.t, (t, i) => ({
+        t,
+        kind: labelFor(EVENT_KIND_LABELS, bundle.events?.kind[i]),
+      }))
     : [];
   const essChart = renderTimelineSvg({
     title: 'Effective sample size',
@@ -87,12 +103,13 @@ export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null
   const flagRows = result.flags
     .map(
       (f) =>
-        `<tr><td>${escapeHtml(f.kind)}</td><td>${escapeHtml(f.severity)}</td><td>${formatNumber(f.start, 1)}–${formatNumber(f.end, 1)} <span class="unit">s</span></td><td>${escapeHtml(f.evidence)}</td></tr>`,
+        `<tr><td>${escapeHtml(labelFor(FLAG_KIND_LABELS, f.kind))}</td><td>${escapeHtml(FLAG_SEVERITY_LABELS[f.severity])}</td><td>${formatNumber(f.start, 1)}–${formatNumber(f.end, 1)} <span class="unit">s</span></td><td>${escapeHtml(f.evidence)}</td></tr>`,
     )
     .join('');
   return `<section><h3>Replay ${escapeHtml(replay.label || replay.id)}</h3>
 <table><tbody>
 <tr><th>Replay id</th><td class="hash">${escapeHtml(replay.id)}</td></tr>
+<tr><th>Started</th><td>${text.time(replay.createdAt)} by ${escapeHtml(replay.createdBy.name)}</td></tr>
 <tr><th>Bundle SHA-256</th><td class="hash">${escapeHtml(entry.bundleSha256)}</td></tr>
 <tr><th>Settings</th><td>${settings.particles} particles, seed ${settings.seed}, resampling ${escapeHtml(settings.resampling.method)} below ESS ${formatNumber(settings.resampling.threshold, 2)} N; overrides ${escapeHtml(JSON.stringify(replay.overrides))}</td></tr>
 <tr><th>Digest</th><td class="hash">${escapeHtml(result.digest)}</td></tr>
@@ -102,7 +119,7 @@ export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null
 </tbody></table>
 <figure>${essChart}<figcaption>Shaded: flag intervals. Ticks on the time axis: recorded events.</figcaption></figure>
 <figure>${errorChart}<figcaption><span style="color:${SERIES_COLOURS.reference}">reference</span> and <span style="color:${SERIES_COLOURS.onboard}">onboard</span> error; shaded: flags.</figcaption></figure>
-${result.flags.length ? `<table><thead><tr><th>Flag</th><th>Severity</th><th>When</th><th>Evidence</th></tr></thead><tbody>${flagRows}</tbody></table>` : '<p>No flags were raised.</p>'}
+${result.flags.length ? `<p>${countOf(result.flags.length, 'flag')} raised.</p><table><thead><tr><th>Flag</th><th>Severity</th><th>When</th><th>Evidence</th></tr></thead><tbody>${flagRows}</tbody></table>` : '<p>No flags were raised.</p>'}
 ${entry.safety ? renderSafetySection(entry.safety, events) : '<p>No separation and stopping analysis: this replay was made before Driftcase had one; run it again to get it.</p>'}
 ${mapPictures(entry, bundle)}
 </section>`;

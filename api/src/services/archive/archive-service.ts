@@ -44,6 +44,8 @@ export function createArchiveService(deps: {
   audit: AuditService;
   notify: Notifications;
   maxUnpackedBytes: number;
+  /** The zone report.html shows times in (`SITE_TIME_ZONE`). */
+  siteTimeZone: string;
 }) {
   const productVersion = readProductVersion();
 
@@ -80,6 +82,7 @@ export function createArchiveService(deps: {
           bundles: await parseForReport(evidence),
           productVersion,
           safetyCaution: SAFETY_CAUTION,
+          siteTimeZone: deps.siteTimeZone,
         });
         entries.unshift({ path: 'report.html', data: Buffer.from(report, 'utf8') });
         const exportedAt = new Date().toISOString();

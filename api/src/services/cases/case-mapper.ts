@@ -1,7 +1,7 @@
-import type { TCase } from '../../../../shared/contracts/cases';
+import type { TCase, TCasePath } from '../../../../shared/contracts/cases';
 import type { CaseRow } from '../../db/schema';
 
-export function toCase(row: CaseRow, createdBy: { id: string; name: string }): TCase {
+export function toCase(row: CaseRow, createdBy: { id: string; name: string }, path: TCasePath): TCase {
   return {
     id: row.id,
     reference: row.reference,
@@ -15,5 +15,6 @@ export function toCase(row: CaseRow, createdBy: { id: string; name: string }): T
     createdBy,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
+    path,
   };
 }

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, count, desc, eq, ilike, or, type SQL, sql } from 'drizzle-orm';
+import { deriveCasePath } from '../../../../shared/case-path';
 import type {
   TCase,
   TCaseList,
@@ -10,12 +11,13 @@ import type {
 import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../../shared/contracts/cases';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
-import { caseReferenceSeq, cases, users } from '../../db/schema';
+import { type CaseRow, caseReferenceSeq, cases, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { toCase } from './case-mapper';
+import { loadCasePathFacts } from './case-path-facts';
 
 // Severity sorts by rank, not alphabetically.
 const SEVERITY_RANK = sql`case ${cases.severity} when 'low' then 1 when 'medium' then 2 when 'high' then 3 else 4 end`;
@@ -46,6 +48,19 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
       .from(cases)
       .innerJoin(users, eq(users.id, cases.createdBy));
 
+  /** Case rows with their authors as the API gives them, each with its path worked out. */
+  async function withPaths(found: { row: CaseRow; authorName: string }[]): Promise<TCase[]> {
+    const facts = await loadCasePathFacts(
+      db,
+      found.map(({ row }) => row),
+    );
+    return found.map(({ row, authorName }) => {
+      const caseFacts = facts.get(row.id);
+      if (!caseFacts) throw new Error(`case path facts missing for ${row.id}`);
+      return toCase(row, { id: row.createdBy, name: authorName }, deriveCasePath(caseFacts));
+    });
+  }
+
   async function listCases(rawQuery: TCaseListQuery): Promise<TCaseList> {
     const query = ZCaseListQuery.parse(rawQuery);
     const filters: SQL[] = [];
@@ -71,7 +86,7 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
       .offset((query.page - 1) * query.pageSize);
     const [{ total }] = await db.select({ total: count() }).from(cases).where(where);
     return {
-      items: rows.map(({ row, authorName }) => toCase(row, { id: row.createdBy, name: authorName })),
+      items: await withPaths(rows),
       total,
       page: query.page,
       pageSize: query.pageSize,
@@ -81,7 +96,8 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
   async function getCase(id: string): Promise<TCase> {
     const [found] = await selectWithAuthor().where(eq(cases.id, id));
     if (!found) throw new AppError('not_found', `No case with id ${id}.`);
-    return toCase(found.row, { id: found.row.createdBy, name: found.authorName });
+    const [item] = await withPaths([found]);
+    return item;
   }
 
   async function createCase(request: TCreateCaseRequest, actor: Actor): Promise<TCase> {

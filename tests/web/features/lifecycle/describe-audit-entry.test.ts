@@ -12,7 +12,10 @@ describe('case history lines', () => {
         details: { from: 'in_review', to: 'changes_requested' },
       }),
     ).toBe('Status changed from In review to Changes requested');
-    expect(describeAuditEntry({ action: 'something.new', details: {} })).toBe('something.new');
+    // Actions without a detailed line take their shared label; one unknown to this build reads as words.
+    expect(describeAuditEntry({ action: 'saved_query.create', details: {} })).toBe('Query saved');
+    expect(describeAuditEntry({ action: 'bookmark.create', details: {} })).toBe('Moment pinned');
+    expect(describeAuditEntry({ action: 'something.new', details: {} })).toBe('Something new');
   });
 
   it('folds runs of draft saves into one line with a count, keeping other steps in order', () => {

@@ -45,7 +45,7 @@ describe('map disagreement at one step', () => {
     height: 2,
     rows: ['.#.', '..#'],
     landmarks: [],
-    footprint: { type: 'circle', radius: 0.3 } as TBundleMap['footprint'],
+    footprint: { shape: 'circle', radius: 0.3 },
     scanMount: null,
   };
 

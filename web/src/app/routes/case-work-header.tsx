@@ -1,12 +1,13 @@
+import { describeHolders } from '@web/components/case-path';
 import { PageHeader } from '@web/components/page-header';
-import { CaseStatusBadge } from '@web/components/status-badge';
+import { SeverityBadge } from '@web/components/severity-badge';
 import { paths } from '@web/config/paths';
 import { useCase } from '@web/features/cases/api/get-case';
 import { ArrowLeft } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 
-/** The header of every case-work page: back to the case, its reference and status. */
+/** The header of every case-work page: back to the case, its reference, severity and where it stands. */
 export function CaseWorkHeader({
   caseId,
   title,
@@ -34,7 +35,17 @@ export function CaseWorkHeader({
       actions={
         <>
           {actions}
-          {item && <CaseStatusBadge status={item.status} />}
+          {item && (
+            <span className="flex items-center gap-3 text-sm">
+              <SeverityBadge severity={item.severity} />
+              <span className="text-right">
+                <span className="block font-bold">{item.path.summary}</span>
+                <span className="block text-xs text-ink-muted">
+                  held by {describeHolders(item.path.holders)}
+                </span>
+              </span>
+            </span>
+          )}
         </>
       }
     />

@@ -1,3 +1,4 @@
+import { ARCHIVE_CHECK_KIND_LABELS } from '@shared/human-labels';
 import { Button } from '@web/components/button';
 import { CheckCircle2, ShieldCheck, XCircle } from 'lucide-react';
 import { type FormEvent, useId, useState } from 'react';
@@ -64,9 +65,9 @@ export function VerifyArchiveForm() {
             {checks.map((check) => (
               <li key={`${check.kind}-${check.file ?? ''}-${check.message}`} className="flex gap-2 py-0.5">
                 <span className={`font-bold ${check.ok ? 'text-state-ok' : 'text-state-bad'}`}>
-                  {check.ok ? 'ok' : 'FAIL'}
+                  {check.ok ? 'Passed' : 'Failed'}
                 </span>
-                <span className="text-ink-muted">{check.kind}</span>
+                <span className="text-ink-muted">{ARCHIVE_CHECK_KIND_LABELS[check.kind]}</span>
                 <span className="break-all">{check.message}</span>
               </li>
             ))}

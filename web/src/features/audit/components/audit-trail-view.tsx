@@ -1,4 +1,5 @@
 import type { TAuditEntry } from '@shared/contracts/audit';
+import { AUDIT_ACTION_LABELS, labelFor } from '@shared/human-labels';
 import { ROLE_LABELS, type Role } from '@shared/roles';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
@@ -46,13 +47,14 @@ function EntryRow({ entry }: { entry: TAuditEntry }) {
     <tr className="border-t border-canvas-line align-top">
       <td className="py-2 pr-3 tabular-nums">{entry.chainSeq}</td>
       <td className="py-2 pr-3">
-        <code className="block text-xs">{entry.at}</code>
-        <LocalTime iso={entry.at} className="text-xs text-ink-muted" />
+        <LocalTime iso={entry.at} withSeconds className="text-xs" />
       </td>
       <td className="py-2 pr-3 break-all">{entry.actorEmail ?? 'system'}</td>
       <td className="py-2 pr-3">{role ?? '—'}</td>
       <td className="py-2 pr-3">
-        <code>{entry.action}</code>
+        <span title={`Recorded as ${entry.action}`} data-action={entry.action}>
+          {labelFor(AUDIT_ACTION_LABELS, entry.action)}
+        </span>
       </td>
       <td className="py-2 pr-3 text-xs">
         {entry.targetType.replaceAll('_', ' ')}{' '}
@@ -96,10 +98,10 @@ export function AuditTrailView({ caseId }: { caseId: string }) {
             <thead className="text-left text-xs text-ink-muted uppercase">
               <tr>
                 <th className="w-12 py-1">#</th>
-                <th className="w-52">Time (RFC 3339 / local)</th>
+                <th className="w-52">Time</th>
                 <th className="w-52">Actor</th>
                 <th className="w-28">Role</th>
-                <th className="w-36">Action</th>
+                <th className="w-48">Action</th>
                 <th>Target</th>
                 <th className="w-28">Payload hash</th>
               </tr>

@@ -1,14 +1,14 @@
 import type { TCase } from '@shared/contracts/cases';
+import { formatUtcInstant } from '@shared/site-time';
+import { CasePathTrack } from '@web/components/case-path';
 import { LocalTime } from '@web/components/local-time';
 import { PageHeader } from '@web/components/page-header';
 import { Panel } from '@web/components/panel';
 import { SeverityBadge } from '@web/components/severity-badge';
 import { EmptyState, ErrorState, SkeletonBar } from '@web/components/states';
-import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
 import { isApiError } from '@web/lib/api-client';
-import { formatUtcDateTime } from '@web/lib/date-time';
-import { ArrowLeft, FileArchive, FileQuestion } from 'lucide-react';
+import { ArrowLeft, FileQuestion } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { useCase } from '../api/get-case';
@@ -30,9 +30,9 @@ function CaseFacts({ item }: { item: TCase }) {
         <span className="tabular-nums">{item.robotId}</span>
       </Fact>
       <Fact label="Incident time">
-        <LocalTime iso={item.incidentTime} /> <span className="text-ink-muted">local</span>
+        <LocalTime iso={item.incidentTime} />
         <span className="block text-xs text-ink-muted tabular-nums">
-          {formatUtcDateTime(item.incidentTime)}
+          {formatUtcInstant(item.incidentTime)}
         </span>
       </Fact>
       <Fact label="Severity">
@@ -112,8 +112,11 @@ export function CaseDetailView({ caseId, banner, evidence, sections }: { caseId:
           </span>
         }
         title={item.title}
-        actions={<CaseStatusBadge status={item.status} />}
+        actions={<SeverityBadge severity={item.severity} size="lg" />}
       />
+      <div className="mb-5">
+        <CasePathTrack path={item.path} />
+      </div>
       {banner}
       <div className="mb-5 grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
         <Panel id="case-facts" title="Incident">

@@ -2,10 +2,12 @@ import { PageHeader } from '@web/components/page-header';
 import { Pagination } from '@web/components/pagination';
 import { EmptyState, ErrorState } from '@web/components/states';
 import { paths } from '@web/config/paths';
-import { FolderOpen, Plus } from 'lucide-react';
+import { classNames } from '@web/lib/class-names';
+import { Columns3, FolderOpen, Plus, Rows3 } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { useCases } from '../api/get-cases';
-import { useCaseListParams } from '../hooks/use-case-list-params';
+import { useCaseListParams, type CaseListView as ViewName } from '../hooks/use-case-list-params';
+import { CaseBoard } from './case-board';
 import { CaseFilters } from './case-filters';
 import { CasesTable } from './cases-table';
 
@@ -21,8 +23,40 @@ function NewCaseLink() {
   );
 }
 
+function ViewSwitch({ view, onChange }: { view: ViewName; onChange: (view: ViewName) => void }) {
+  const options = [
+    { value: 'table' as const, label: 'Table', icon: Rows3 },
+    { value: 'board' as const, label: 'Board', icon: Columns3 },
+  ];
+  return (
+    <fieldset className="inline-flex rounded-md border border-canvas-line bg-canvas-raised p-0.5">
+      <legend className="sr-only">Show the cases as</legend>
+      {options.map(({ value, label, icon: Icon }) => (
+        <label
+          key={value}
+          className={classNames(
+            'inline-flex cursor-pointer items-center gap-1.5 rounded px-3 py-1.5 text-sm has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-accent',
+            view === value ? 'bg-chrome-800 font-bold text-white' : 'text-ink-muted hover:text-ink',
+          )}
+        >
+          <input
+            type="radio"
+            name="case-view"
+            value={value}
+            checked={view === value}
+            onChange={() => onChange(value)}
+            className="sr-only"
+          />
+          <Icon aria-hidden className="size-4" />
+          {label}
+        </label>
+      ))}
+    </fieldset>
+  );
+}
+
 export function CaseListView({ canCreateCase }: { canCreateCase: boolean }) {
-  const { params, update, toggleSort } = useCaseListParams();
+  const { params, update, toggleSort, view, setView } = useCaseListParams();
   const casesQuery = useCases(params);
   const hasFilters = Boolean(params.q || params.status || params.severity || params.site);
   const list = casesQuery.data;
@@ -31,8 +65,13 @@ export function CaseListView({ canCreateCase }: { canCreateCase: boolean }) {
     <>
       <PageHeader
         title="Cases"
-        description="Incidents under investigation and their records."
-        actions={canCreateCase && <NewCaseLink />}
+        description="Incidents under investigation: where each stands on its path and who holds it."
+        actions={
+          <>
+            <ViewSwitch view={view} onChange={setView} />
+            {canCreateCase && <NewCaseLink />}
+          </>
+        }
       />
       <CaseFilters params={params} onChange={update} />
       <section
@@ -55,6 +94,8 @@ export function CaseListView({ canCreateCase }: { canCreateCase: boolean }) {
               ? 'Change or clear the filters to see more cases.'
               : 'Cases appear here once an investigator opens one.'}
           </EmptyState>
+        ) : view === 'board' ? (
+          <CaseBoard cases={list?.items} isRefreshing={casesQuery.isPlaceholderData} />
         ) : (
           <CasesTable
             cases={list?.items}

@@ -1,9 +1,9 @@
 import type { TCase } from '@shared/contracts/cases';
+import { CasePathCompact } from '@web/components/case-path';
 import { LocalTime } from '@web/components/local-time';
 import { SeverityBadge } from '@web/components/severity-badge';
 import { SortableHeader } from '@web/components/sortable-header';
 import { SkeletonBar } from '@web/components/states';
-import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
 import { Link } from 'react-router-dom';
 import type { CaseListParams, CaseSortField } from '../hooks/case-list-params';
@@ -16,6 +16,15 @@ interface CasesTableProps {
   isRefreshing: boolean;
 }
 
+const SORT_WORDS: Record<CaseSortField, string> = {
+  incidentTime: 'incident time',
+  createdAt: 'opening time',
+  title: 'title',
+  severity: 'severity',
+  status: 'path',
+  site: 'site',
+};
+
 const HEAD = 'px-3 py-2 text-left text-xs font-bold text-ink-muted';
 const CELL = 'px-3 py-2.5 align-middle';
 // Below 1280 px the robot id moves under the title, so the title keeps room to be read.
@@ -25,7 +34,7 @@ function SkeletonRows({ count }: { count: number }) {
   return Array.from({ length: count }, (_, row) => (
     // biome-ignore lint/suspicious/noArrayIndexKey: placeholder rows have no identity
     <tr key={row} className="border-t border-canvas-line">
-      {['w-16', 'w-48', 'w-24', 'w-14', 'w-28', 'w-16', 'w-20'].map((width) => (
+      {['w-16', 'w-48', 'w-24', 'w-14', 'w-28', 'w-16', 'w-40'].map((width) => (
         <td key={width} className={width === 'w-14' ? `${CELL} ${WIDE_ONLY}` : CELL}>
           <SkeletonBar className={width} />
         </td>
@@ -44,16 +53,16 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
   return (
     <table className="w-full table-fixed border-collapse text-sm" aria-busy={!cases || isRefreshing}>
       <caption className="sr-only">
-        Cases, sorted by {params.sort} ({params.order === 'asc' ? 'ascending' : 'descending'})
+        Cases, sorted by {SORT_WORDS[params.sort]} ({params.order === 'asc' ? 'ascending' : 'descending'})
       </caption>
       <colgroup>
         <col className="w-[6.5rem]" />
         <col />
         <col className="w-[8.5rem] xl:w-[10rem]" />
         <col className="hidden w-[6.5rem] xl:table-column" />
-        <col className="w-[9.25rem]" />
+        <col className="w-[10.5rem]" />
         <col className="w-[6.5rem]" />
-        <col className="w-[10rem]" />
+        <col className="w-[15rem] xl:w-[17rem]" />
       </colgroup>
       <thead className="bg-canvas-sunk/60">
         <tr>
@@ -67,7 +76,7 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
           </th>
           <SortableHeader label="Incident time" {...sortProps('incidentTime')} />
           <SortableHeader label="Severity" {...sortProps('severity')} />
-          <SortableHeader label="Status" {...sortProps('status')} />
+          <SortableHeader label="Path" {...sortProps('status')} />
         </tr>
       </thead>
       <tbody className={isRefreshing ? 'opacity-60 transition-opacity' : undefined}>
@@ -100,7 +109,7 @@ export function CasesTable({ cases, params, onSort, isRefreshing }: CasesTablePr
                 <SeverityBadge severity={item.severity} />
               </td>
               <td className={CELL}>
-                <CaseStatusBadge status={item.status} />
+                <CasePathCompact path={item.path} />
               </td>
             </tr>
           ))

@@ -1,21 +1,22 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { TCase } from '@shared/contracts/cases';
+import { describeTimeZone } from '@shared/site-time';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextArea, TextInput } from '@web/components/inputs';
 import { SeverityOptions } from '@web/components/severity-options';
-import { describeLocalTimeZone } from '@web/lib/date-time';
 import { applyServerErrors } from '@web/lib/form-errors';
+import { useSiteTimeZone } from '@web/lib/site-time-zone';
 import { Save } from 'lucide-react';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { useCreateCase } from '../api/create-case';
 import {
   CREATE_CASE_FIELDS,
+  createCaseFormSchema,
   type TCreateCaseFormInput,
   type TCreateCaseFormOutput,
-  ZCreateCaseForm,
 } from '../hooks/create-case-form-schema';
 
 interface CreateCaseFormProps {
@@ -26,8 +27,10 @@ interface CreateCaseFormProps {
 export function CreateCaseForm({ onCreated, onCancel }: CreateCaseFormProps) {
   const createCase = useCreateCase();
   const [formError, setFormError] = useState<string>();
+  const siteTimeZone = useSiteTimeZone();
+  const schema = useMemo(() => createCaseFormSchema(siteTimeZone), [siteTimeZone]);
   const form = useForm<TCreateCaseFormInput, unknown, TCreateCaseFormOutput>({
-    resolver: zodResolver(ZCreateCaseForm),
+    resolver: zodResolver(schema),
     defaultValues: { title: '', site: '', robotId: '', incidentTime: '', severity: '' as never, summary: '' },
   });
   const { errors } = form.formState;
@@ -67,7 +70,7 @@ export function CreateCaseForm({ onCreated, onCancel }: CreateCaseFormProps) {
       <div className="grid grid-cols-2 gap-4">
         <FormField
           label="Incident time"
-          hint={`Local time (${describeLocalTimeZone()}); stored with its UTC offset.`}
+          hint={`Site time, ${describeTimeZone(siteTimeZone)}; stored with its UTC offset.`}
           error={errors.incidentTime?.message}
         >
           {(control) => (

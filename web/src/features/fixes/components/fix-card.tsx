@@ -1,4 +1,5 @@
 import type { TFix } from '@shared/contracts/fixes';
+import { REPLAY_STATUS_LABELS } from '@shared/human-labels';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import type { CaseReplays } from '@web/components/case-replays-query';
@@ -16,7 +17,7 @@ function VerificationReplay({ fix, replays }: { fix: TFix; replays?: CaseReplays
   if (verification.status !== 'done')
     return (
       <p className="text-sm text-ink-muted" aria-live="polite">
-        Verification replay {verification.status}
+        Verification replay: {REPLAY_STATUS_LABELS[verification.status].toLowerCase()}
         {verification.progress && ` (${verification.progress.step} / ${verification.progress.steps} steps)`}…
       </p>
     );

@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { type TLinkFixRequest, ZLinkFixRequest } from '@shared/contracts/fixes';
+import { REPLAY_STATUS_LABELS } from '@shared/human-labels';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { type CaseReplays, describeReplay } from '@web/components/case-replays-query';
@@ -112,7 +113,7 @@ export function LinkFixForm({
             {choosable.map((r) => (
               <option key={r.id} value={r.id}>
                 {describeReplay(r, replays?.bundles ?? [])}
-                {r.status !== 'done' ? ` (${r.status})` : ''}
+                {r.status !== 'done' ? ` (${REPLAY_STATUS_LABELS[r.status].toLowerCase()})` : ''}
               </option>
             ))}
           </SelectInput>

@@ -1,11 +1,11 @@
-import { CASE_STATUS_LABELS } from '@shared/contracts/cases';
-import { ROLE_LABELS, type Role } from '@shared/roles';
+import type { CaseEvent } from '@shared/case-lifecycle';
+import { CASE_EVENT_LABELS } from '@shared/human-labels';
+import type { Role } from '@shared/roles';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { FormField } from '@web/components/form-field';
 import { TextInput } from '@web/components/inputs';
 import { ErrorState, SkeletonBar } from '@web/components/states';
-import { CaseStatusBadge } from '@web/components/status-badge';
 import { paths } from '@web/config/paths';
 import { ArrowRight, ClipboardList, FileSignature, ScrollText, UserRoundCheck, Wrench } from 'lucide-react';
 import { useState } from 'react';
@@ -38,7 +38,10 @@ function CaseWorkLinks({ caseId, role }: { caseId: string; role: Role }) {
   );
 }
 
-/** State, who acts next, the moves this person may make, and the history for those who may read it. */
+/**
+ * Whether it is this person's move, the moves they may make, and the history for those who may
+ * read it; where the case stands and who holds it is the case path above.
+ */
 export function CaseWorkSection({ caseId, role }: { caseId: string; role: Role }) {
   const lifecycle = useLifecycle(caseId);
   const transition = useTransitionCase(caseId);
@@ -63,23 +66,16 @@ export function CaseWorkSection({ caseId, role }: { caseId: string; role: Role }
 
   // Only plain status moves are buttons; submitting, returning and signing happen on the findings pages.
   const moves = state.transitions.filter((t) => t.isDirect && t.roles.includes(role));
-  const nextRoles = state.nextActor.roles.map((r) => ROLE_LABELS[r as Role] ?? r).join(' or ');
   const isMyTurn = state.nextActor.roles.includes(role);
 
   return (
     <div className="space-y-4">
-      <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-        <CaseStatusBadge status={state.status} />
-        <p className="flex items-center gap-1.5 text-sm">
-          <UserRoundCheck aria-hidden className="size-4 text-ink-muted" />
-          <span className="text-ink-muted">Next:</span>
-          <span className="font-bold">{nextRoles || 'nobody'}</span>
-          <span>— {state.nextActor.action}</span>
-          {isMyTurn && (
-            <span className="rounded bg-accent-soft px-1.5 text-xs font-bold text-accent-strong">you</span>
-          )}
+      {isMyTurn && (
+        <p className="flex items-center gap-1.5 rounded-md bg-accent-soft px-3 py-2 text-sm text-accent-strong">
+          <UserRoundCheck aria-hidden className="size-4" />
+          <span className="font-bold">Your move:</span> {state.nextActor.action}.
         </p>
-      </div>
+      )}
       <CaseWorkLinks caseId={caseId} role={role} />
       {moves.length > 0 && (
         <div className="flex flex-wrap items-end gap-2">
@@ -101,7 +97,7 @@ export function CaseWorkSection({ caseId, role }: { caseId: string; role: Role }
                 )
               }
             >
-              Move to {CASE_STATUS_LABELS[move.to]}
+              {CASE_EVENT_LABELS[move.event as CaseEvent] ?? move.event}
             </Button>
           ))}
         </div>

@@ -1,4 +1,5 @@
 import { CASE_STATUS_LABELS, type TCaseStatus } from '@shared/contracts/cases';
+import { AUDIT_ACTION_LABELS, labelFor } from '@shared/human-labels';
 
 /** The fields of an audit entry the history needs; the full entry type satisfies it. */
 export interface HistoryEntry {
@@ -31,10 +32,13 @@ const PLAIN: Record<string, (details: Record<string, unknown>) => string> = {
   'hold.release': () => 'Legal hold lifted',
 };
 
-/** One line of plain English for an audit action; unknown actions show their code. */
+/**
+ * One line of plain English for an audit entry: the detailed line above where there is one, else
+ * the action's shared label; an action unknown to this build still reads as words, never as a code.
+ */
 export function describeAuditEntry(entry: HistoryEntry): string {
   const describe = PLAIN[entry.action];
-  return describe ? describe(entry.details) : entry.action;
+  return describe ? describe(entry.details) : labelFor(AUDIT_ACTION_LABELS, entry.action);
 }
 
 /**

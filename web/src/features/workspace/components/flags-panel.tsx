@@ -1,4 +1,5 @@
 import type { TReplayFlag } from '@shared/contracts/replays';
+import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
 import { EmptyState } from '@web/components/states';
 import { Flag, ShieldCheck } from 'lucide-react';
 
@@ -34,8 +35,10 @@ export function FlagsPanel({ flags, onOpen }: FlagsPanelProps) {
           >
             <span className="flex items-center gap-1.5 font-bold">
               <Flag aria-hidden className="size-4 text-series-flag" />
-              {flag.kind.replaceAll('_', ' ')}
-              <span className="ml-auto text-xs font-normal uppercase text-ink-muted">{flag.severity}</span>
+              {labelFor(FLAG_KIND_LABELS, flag.kind)}
+              <span className="ml-auto text-xs font-normal uppercase text-ink-muted">
+                {FLAG_SEVERITY_LABELS[flag.severity]}
+              </span>
             </span>
             <span className="block text-xs tabular-nums text-ink-muted">
               {flag.start.toFixed(1)}–{flag.end.toFixed(1)} s

@@ -1,5 +1,6 @@
 import type { TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayFlag } from '@shared/contracts/replays';
+import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
 import { eventKindLabel, eventSymbolPath } from '../lib/event-symbols';
 import type { TimeDomain } from '../lib/time-scale';
 
@@ -48,7 +49,7 @@ export function TimelineMarkers({
               key={`${flag.kind}-${flag.start}-${flag.end}`}
               role="button"
               tabIndex={0}
-              aria-label={`Flag ${flag.kind.replaceAll('_', ' ')}, ${flag.severity}, ${flag.start.toFixed(1)} to ${flag.end.toFixed(1)} s: ${flag.evidence}`}
+              aria-label={`Flag ${labelFor(FLAG_KIND_LABELS, flag.kind)}, ${FLAG_SEVERITY_LABELS[flag.severity]}, ${flag.start.toFixed(1)} to ${flag.end.toFixed(1)} s: ${flag.evidence}`}
               onMouseEnter={() => onHover(flag)}
               onMouseLeave={() => onHover(null)}
               onFocus={() => onHover(flag)}
@@ -69,7 +70,7 @@ export function TimelineMarkers({
               />
               {x1 - x0 > 60 && (
                 <text x={x0 + 4} y={16} className="pointer-events-none fill-ink text-xs">
-                  {flag.kind.replaceAll('_', ' ')} · {flag.severity}
+                  {labelFor(FLAG_KIND_LABELS, flag.kind)} · {FLAG_SEVERITY_LABELS[flag.severity]}
                 </text>
               )}
             </g>

@@ -1,5 +1,6 @@
 import type { TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayFlag, TReplaySeriesResponse } from '@shared/contracts/replays';
+import { FLAG_KIND_LABELS, FLAG_SEVERITY_LABELS, labelFor } from '@shared/human-labels';
 import { axisBottom, brushX, scaleLinear, select } from 'd3';
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useElementWidth } from '../hooks/use-element-width';
@@ -240,8 +241,9 @@ export const Timeline = memo(function Timeline({
           className="pointer-events-none absolute top-6 left-36 z-10 max-w-md rounded-md border border-canvas-line bg-canvas-raised p-2 text-xs shadow-md"
         >
           <p className="font-bold">
-            {hovered.kind.replaceAll('_', ' ')} · {hovered.severity} · {hovered.start.toFixed(1)}–
-            {hovered.end.toFixed(1)} <span className="font-normal text-ink-muted">s</span>
+            {labelFor(FLAG_KIND_LABELS, hovered.kind)} · {FLAG_SEVERITY_LABELS[hovered.severity]} ·{' '}
+            {hovered.start.toFixed(1)}–{hovered.end.toFixed(1)}{' '}
+            <span className="font-normal text-ink-muted">s</span>
           </p>
           <p className="mt-1 text-ink-muted">{hovered.evidence}</p>
         </div>
