@@ -62,16 +62,30 @@ const csvRows = (file: string) => {
     .map((line) => Object.fromEntries(line.split(',').map((v, i) => [names[i], Number(v)])));
 };
 
-export async function writeMcap(
+export interface EncodedMessage {
+  topic: string;
+  logTime: bigint;
+  data: Uint8Array;
+}
+
+export const TOPIC_TYPES: [string, string][] = [
+  ['/tf_static', 'tf2_msgs/msg/TFMessage'],
+  ['/tf', 'tf2_msgs/msg/TFMessage'],
+  ['/scan', 'sensor_msgs/msg/LaserScan'],
+  ['/amcl_pose', 'geometry_msgs/msg/PoseWithCovarianceStamped'],
+  ['/cmd_vel', 'geometry_msgs/msg/Twist'],
+  ['/map', 'nav_msgs/msg/OccupancyGrid'],
+];
+
+/** The bundle's rows as CDR messages in log-time order. */
+export function encodeBundleMessages(
   bundleFolder: string,
-  out: string,
-  options: McapWriteOptions,
-): Promise<string> {
-  await zstd.isLoaded;
+  options: Omit<McapWriteOptions, 'compression'>,
+): EncodedMessage[] {
   const manifest = JSON.parse(readFileSync(path.join(bundleFolder, 'manifest.json'), 'utf8'));
   const startNs = BigInt(Date.parse(manifest.start_time)) * 1_000_000n;
   const at = (t: number) => startNs + BigInt(Math.round(t * 1e9));
-  const messages: { topic: string; logTime: bigint; data: Uint8Array }[] = [];
+  const messages: EncodedMessage[] = [];
   const scan = manifest.scan;
   messages.push({
     topic: '/tf_static',
@@ -134,6 +148,16 @@ export async function writeMcap(
     messages.push({ topic: '/cmd_vel', logTime: at(row.t), data: w.data });
   }
   messages.sort((a, b) => (a.logTime < b.logTime ? -1 : a.logTime > b.logTime ? 1 : 0));
+  return messages;
+}
+
+export async function writeMcap(
+  bundleFolder: string,
+  out: string,
+  options: McapWriteOptions,
+): Promise<string> {
+  await zstd.isLoaded;
+  const messages = encodeBundleMessages(bundleFolder, options);
 
   const buffer = new TempBuffer();
   const writer = new McapWriter({
@@ -145,16 +169,8 @@ export async function writeMcap(
         : undefined,
   });
   await writer.start({ profile: 'ros2', library: 'driftcase tests' });
-  const topics: [string, string][] = [
-    ['/tf_static', 'tf2_msgs/msg/TFMessage'],
-    ['/tf', 'tf2_msgs/msg/TFMessage'],
-    ['/scan', 'sensor_msgs/msg/LaserScan'],
-    ['/amcl_pose', 'geometry_msgs/msg/PoseWithCovarianceStamped'],
-    ['/cmd_vel', 'geometry_msgs/msg/Twist'],
-    ['/map', 'nav_msgs/msg/OccupancyGrid'],
-  ];
   const channelIds = new Map<string, number>();
-  for (const [topic, type] of topics) {
+  for (const [topic, type] of TOPIC_TYPES) {
     const text = topic === '/cmd_vel' && options.omitCommandSchema ? '' : SCHEMAS[type];
     const schemaId = await writer.registerSchema({
       name: type,
