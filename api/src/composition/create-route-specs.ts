@@ -14,6 +14,7 @@ import { holdRoutes } from '../routes/holds';
 import { keyRoutes } from '../routes/keys';
 import { lifecycleRoutes } from '../routes/lifecycle';
 import { outboxRoutes } from '../routes/outbox';
+import { recordingRoutes } from '../routes/recordings';
 import { replayRoutes } from '../routes/replays';
 import { savedQueryRoutes } from '../routes/saved-queries';
 import { userRoutes } from '../routes/users';
@@ -32,6 +33,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...userRoutes(services.users),
     ...caseRoutes(services.cases),
     ...bundleRoutes(services.bundles, uploads),
+    ...recordingRoutes(services.recordings, uploads),
     ...replayRoutes(services.replays),
     ...lifecycleRoutes(services.lifecycle),
     ...findingsRoutes(services.findings, services.reviews),

@@ -18,6 +18,7 @@ import { createLifecycleService } from '../services/lifecycle/lifecycle-service'
 import { createMailQueue } from '../services/mail/mail-queue';
 import { createNotifications } from '../services/mail/notifications';
 import { createOutboxService } from '../services/mail/outbox-service';
+import { createRecordingsService } from '../services/recordings/recordings-service';
 import { createReplaysService } from '../services/replays/replays-service';
 import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
 import { createSigningKeyStore } from '../services/signing/signing-key';
@@ -53,6 +54,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
+  const recordings = createRecordingsService({ audit, bundles, evidence });
   const replayWorkers = replayPool ?? createReplayPool();
   const replays = createReplaysService({
     ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },
@@ -101,6 +103,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     cases,
     evidence,
     bundles,
+    recordings,
     replays,
     replayWorkers,
     mailQueue,
