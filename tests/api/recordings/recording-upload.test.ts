@@ -44,7 +44,7 @@ describe('POST /cases/:id/recordings', () => {
     expect(inspection.bundle?.events?.kind).toEqual(['incident']);
     const history = await bed.t.app.locals.services.audit.listCaseEntries(bed.caseId, { pageSize: 100 });
     const entry = history.items.find((item: { action: string }) => item.action === 'bundle.upload');
-    expect((entry?.details as { derivedFrom: unknown[] }).derivedFrom[0]).toMatchObject({
+    expect((entry?.details as { derivedFrom?: unknown[] } | undefined)?.derivedFrom?.[0]).toMatchObject({
       name: 'plover.mcap',
       sha256,
     });
