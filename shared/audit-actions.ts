@@ -11,6 +11,7 @@ export const AUDIT_ACTIONS = [
   'case.update',
   'case.transition',
   'bundle.upload',
+  'recording.import_failed',
   'replay.start',
   'replay.delete',
   'findings.save',

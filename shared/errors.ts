@@ -16,6 +16,8 @@ export const ERROR_STATUS = {
   payload_too_large: 413,
   unsupported_media_type: 415,
   invalid_bundle: 422,
+  /** A robot recording that could not be read into a bundle (the originals stay stored). */
+  invalid_recording: 422,
   too_many_requests: 429,
   internal: 500,
   /** The audit entry of a write could not be stored, so the write was rolled back with it. */

@@ -34,6 +34,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.update': 'Case details edited',
   'case.transition': 'Case moved on',
   'bundle.upload': 'Log bundle uploaded',
+  'recording.import_failed': 'Robot recording could not be read',
   'replay.start': 'Replay started',
   'replay.delete': 'Replay deleted',
   'findings.save': 'Findings draft saved',

@@ -1,3 +1,4 @@
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { gt, max } from 'drizzle-orm';
 import request from 'supertest';
@@ -10,6 +11,7 @@ import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-
 import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { evidenceSamples } from '../support/evidence-samples';
+import { writeMcap } from '../support/recordings/write-mcap';
 import { replayToEnd } from '../support/replay-runs';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -84,6 +86,20 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
   'post /cases/:id/bundles': async (f) => ({
     path: `/api/cases/${f.caseId}/bundles`,
     attach: { field: 'bundle', file: await f.freshBundleZip() },
+  }),
+  'post /cases/:id/recordings': async (f) => ({
+    path: `/api/cases/${f.caseId}/recordings`,
+    attach: {
+      field: 'recording',
+      file: await writeMcap(
+        path.resolve('sample-logs/wheel-slip'),
+        path.join(tmpdir(), `matrix-${unique()}.mcap`),
+        {
+          compression: 'none',
+          scanLimit: 20,
+        },
+      ),
+    },
   }),
   'get /cases/:id/bundles': (f) => ({ path: `/api/cases/${f.caseId}/bundles` }),
   'get /bundles/:id': (f) => ({ path: `/api/bundles/${f.bundleId}` }),

@@ -214,7 +214,8 @@ const BODIES: BodyCase[] = [
 ];
 
 /** Uploads: multipart with a file and no text field (the file name is checked with the upload). */
-const MULTIPART_ROUTES = ['post /cases/:id/bundles', 'post /archives/verify'];
+const MULTIPART_ROUTES = ['post /cases/:id/bundles', 'post /archives/verify', 'post /cases/:id/recordings'];
+// The recording upload's text fields (from, to, incident) are checked in tests/api/recordings/recording-upload.test.ts.
 
 let t: TestApp;
 let specs: RouteSpec[];

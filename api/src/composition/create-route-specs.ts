@@ -15,6 +15,7 @@ import { holdRoutes } from '../routes/holds';
 import { keyRoutes } from '../routes/keys';
 import { lifecycleRoutes } from '../routes/lifecycle';
 import { outboxRoutes } from '../routes/outbox';
+import { recordingRoutes } from '../routes/recordings';
 import { replayRoutes } from '../routes/replays';
 import { savedQueryRoutes } from '../routes/saved-queries';
 import { siteRoutes } from '../routes/site';
@@ -36,6 +37,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...caseRoutes(services.cases),
     ...bundleRoutes(services.bundles, uploads),
     ...evidenceOrphanRoutes(services.evidenceOrphans),
+    ...recordingRoutes(services.recordings, uploads),
     ...replayRoutes(services.replays),
     ...lifecycleRoutes(services.lifecycle),
     ...findingsRoutes(services.findings, services.reviews),

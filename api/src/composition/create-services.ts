@@ -22,6 +22,7 @@ import { createLifecycleService } from '../services/lifecycle/lifecycle-service'
 import { createMailQueue } from '../services/mail/mail-queue';
 import { createNotifications } from '../services/mail/notifications';
 import { createOutboxService } from '../services/mail/outbox-service';
+import { createRecordingsService } from '../services/recordings/recordings-service';
 import { createReplaysService } from '../services/replays/replays-service';
 import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
 import { createKeysService } from '../services/signing/keys-service';
@@ -65,6 +66,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
+  const recordings = createRecordingsService({ audit, bundles, evidence });
   const replayWorkers = replayPool ?? createReplayPool();
   const replays = createReplaysService({
     ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },
@@ -119,6 +121,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     evidence,
     evidenceOrphans,
     bundles,
+    recordings,
     replays,
     replayWorkers,
     mailQueue,

@@ -1,4 +1,4 @@
-import { mkdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import type { FilterConfig, Manifest, ProvenanceSource, RobotInfo } from '../../../shared/bundle/types';
@@ -90,7 +90,20 @@ export async function importRecording(
   const reader = await openRecording(request.source);
   const folder = `${request.out}.parts`;
   try {
-    await addSource('recording', request.source, reader.format);
+    if ((await stat(request.source)).isDirectory()) {
+      // A rosbag2 folder: every file in it is part of the original, each hashed on its own.
+      const folderName = displayName('recording', request.source);
+      for (const name of (await readdir(request.source)).sort()) {
+        const file = path.join(request.source, name);
+        if (!(await stat(file)).isFile()) continue;
+        sources.push({
+          role: 'recording',
+          name: `${folderName}/${name}`,
+          sha256: (await hashFile(file)).sha256,
+          format: reader.format,
+        });
+      }
+    } else await addSource('recording', request.source, reader.format);
     const assumed: string[] = [];
     const approximated: string[] = [];
     const warnings: string[] = [];

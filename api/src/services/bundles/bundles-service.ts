@@ -82,6 +82,8 @@ export function createBundlesService(options: BundlesServiceOptions) {
     tempFile: string;
     originalName: string;
     actor: Actor;
+    /** Originals (a robot recording and its files) this bundle was derived from, already stored. */
+    derivedFrom?: { role: string; name: string; sha256: string }[];
   }): Promise<UploadOutcome> {
     const { actor } = upload;
     const auditUpload = (tx: Transaction, bundle: TBundleRecord, isDuplicate: boolean) =>
@@ -95,8 +97,14 @@ export function createBundlesService(options: BundlesServiceOptions) {
           sha256: bundle.sha256,
           status: bundle.status,
           ...(isDuplicate ? { duplicate: true } : {}),
+          ...(upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {}),
         },
-        payload: { originalName: upload.originalName, sha256: bundle.sha256, sizeBytes: bundle.sizeBytes },
+        payload: {
+          originalName: upload.originalName,
+          sha256: bundle.sha256,
+          sizeBytes: bundle.sizeBytes,
+          ...(upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {}),
+        },
       });
     await requireCase(upload.caseId).catch(async (error) => {
       await fs.promises.rm(upload.tempFile, { force: true });
