@@ -13,8 +13,10 @@ export default defineConfig({
   test: {
     include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
     exclude: ['tests/e2e/**', 'tests/pg/**', 'node_modules/**'],
-    testTimeout: 60_000,
-    hookTimeout: 60_000,
+    // Starting a test app (PGlite + migrations) takes seconds on a quiet machine but can take a
+    // minute or more on a shared CI runner; a hang still fails, just later.
+    testTimeout: 120_000,
+    hookTimeout: 240_000,
     pool: 'forks',
   },
 });

@@ -10,8 +10,10 @@ export default defineConfig({
   },
   test: {
     include: ['tests/pg/**/*.test.ts'],
-    testTimeout: 60_000,
-    hookTimeout: 60_000,
+    // Starting a test app (PGlite + migrations) takes seconds on a quiet machine but can take a
+    // minute or more on a shared CI runner; a hang still fails, just later.
+    testTimeout: 120_000,
+    hookTimeout: 240_000,
     fileParallelism: false,
     pool: 'forks',
   },
