@@ -131,8 +131,14 @@ describe('GET /api/cases/:id/archive', () => {
     const b = await readZip(second);
     const differing = [...a.keys()].filter((name) => !b.get(name)?.equals(a.get(name)!));
     // manifest.json/.jws carry the export time; the audit chain and the report's custody section
-    // gain the first export's entry.
-    expect(differing.sort()).toEqual(['audit/chain.json', 'manifest.json', 'manifest.jws', 'report.html']);
+    // gain the first export's entry; the checkpoint file gains the checkpoint signed at that export.
+    expect(differing.sort()).toEqual([
+      'audit/chain.json',
+      'audit/checkpoints.jsonl',
+      'manifest.json',
+      'manifest.jws',
+      'report.html',
+    ]);
     const chainA = JSON.parse(a.get('audit/chain.json')!.toString('utf8'));
     const chainB = JSON.parse(b.get('audit/chain.json')!.toString('utf8'));
     expect(chainB.slice(0, chainA.length)).toEqual(chainA);

@@ -82,7 +82,10 @@ describe('verify-archive finds tampering at the right file', () => {
   }, 60_000);
 
   it('fails at each file when one byte of it is flipped', async () => {
-    const names = [...entries.keys()].filter((n) => n !== 'manifest.json' && n !== 'manifest.jws');
+    // An empty entry (e.g. no audit checkpoints yet) has no byte to flip.
+    const names = [...entries.keys()].filter(
+      (n) => n !== 'manifest.json' && n !== 'manifest.jws' && entries.get(n)!.length > 0,
+    );
     expect(names.length).toBeGreaterThan(10);
     for (const name of names) {
       const file = await tampered((copy) => {

@@ -1,12 +1,13 @@
+import { EVENT_KIND_LABELS, labelFor } from '../../../../shared/human-labels';
 import type { SafetyEvent, SafetyReport } from '../../../../shared/safety/safety-report';
 import { ISO_13855_EDITION, ISO_TS_15066_EDITION } from '../../../../shared/safety/separation-formulas';
 import { escapeHtml, formatNumber, SERIES_COLOURS } from './report-colours';
 import { renderTimelineSvg } from './timeline-svg';
 
 const CLASS_WORDS: Record<string, string> = {
-  contact: 'contact',
-  near_miss: 'near miss',
-  no_hazard: 'no hazard',
+  contact: 'Contact',
+  near_miss: 'Near miss',
+  no_hazard: 'No hazard',
 };
 
 const metres = (value: number | null | undefined, digits = 2) =>
@@ -18,7 +19,7 @@ function eventRow(event: SafetyEvent): string {
   const separation = event.separation
     ? `${metres(event.separation.total)} (short by ${metres(event.separation.shortfall)})`
     : '–';
-  return `<tr><td>${seconds(event.t)}</td><td>${escapeHtml(event.kind)}</td><td><b>${escapeHtml(CLASS_WORDS[event.suggested_class] ?? event.suggested_class)}</b> (suggested)<br><small>${escapeHtml(event.reason)}</small></td><td>${metres(event.speed)}/s</td><td>${metres(event.clearance)}</td><td>${metres(event.clearance_believed)}</td><td>${metres(event.stopping_distance)}</td><td>${metres(event.margin)}</td><td>${seconds(event.margin_negative_since)}</td><td>${metres(event.localization_gap)} / ${metres(event.map_gap)}</td><td>${separation}</td></tr>`;
+  return `<tr><td>${seconds(event.t)}</td><td>${escapeHtml(labelFor(EVENT_KIND_LABELS, event.kind))}</td><td><b>${escapeHtml(CLASS_WORDS[event.suggested_class] ?? event.suggested_class)}</b> (suggested)<br><small>${escapeHtml(event.reason)}</small></td><td>${metres(event.speed)}/s</td><td>${metres(event.clearance)}</td><td>${metres(event.clearance_believed)}</td><td>${metres(event.stopping_distance)}</td><td>${metres(event.margin)}</td><td>${seconds(event.margin_negative_since)}</td><td>${metres(event.localization_gap)} / ${metres(event.map_gap)}</td><td>${separation}</td></tr>`;
 }
 
 /**

@@ -75,6 +75,7 @@ function summaryLine(result: TArchiveVerification, outcome: 0 | 2 | 3): string {
       'SIGNATURES NOT ANCHORED: no trusted key was given, so nothing shows who signed this archive (see the WARN lines; verify again with --trusted-keys or --trusted-thumbprint)',
     olderNote,
   ].filter(Boolean);
+  if (result.signaturesAnchored && unconfirmed === older) return `ALL OTHER CHECKS PASSED; ${olderNote}`;
   return `NO CHECK FAILED, BUT ${unconfirmed} OF ${total} ARE NOT CONFIRMED. ${notes.join('; ')}`;
 }
 
