@@ -24,7 +24,7 @@ const STATE_WORDS: Record<TCaseStatus, string> = {
   open: 'Open',
   analysing: 'Under analysis',
   in_review: 'In review',
-  changes_requested: 'Changes requested',
+  changes_requested: 'Returned with comments', // the review words of design.md
   signed_off: 'Signed off',
   closed: 'Closed',
 };
