@@ -39,8 +39,8 @@ describe('separation and stopping analysis', () => {
     // Jump to the moment the margin went negative: the readout says so.
     await stop.getByTestId('margin-negative-since').getByRole('button').click();
     await expect
-      .poll(async () => (await scrubber.getAttribute('aria-valuetext'))?.split(' ')[0])
-      .toBe(since?.split(' ')[0]);
+      .poll(async () => Number((await scrubber.getAttribute('aria-valuetext'))?.split(' ')[0]))
+      .toBe(Number(since?.split(' ')[0]));
     expect(
       Number(
         (await panel.getByTestId('safety-now').textContent())?.match(/Stopping margin(-?[\d.]+) m/)?.[1],

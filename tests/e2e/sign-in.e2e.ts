@@ -5,11 +5,12 @@ import { DEMO_PASSWORD, demoEmail, fillSignIn, signInAs } from './support/sign-i
 
 // The navigation each role must see, as the foundation issue's role table specifies it.
 const EXPECTED_NAVIGATION: Record<Role, string[]> = {
-  investigator: ['Cases', 'New case'],
-  reviewer: ['Cases', 'Review queue'],
-  legal: ['Cases'],
-  engineer: ['Cases'],
-  admin: ['Cases', 'Users', 'Outbox'],
+  // Help (the glossary page) is for every role.
+  investigator: ['Cases', 'New case', 'Help'],
+  reviewer: ['Cases', 'Review queue', 'Help'],
+  legal: ['Cases', 'Help'],
+  engineer: ['Cases', 'Help'],
+  admin: ['Cases', 'Users', 'Outbox', 'Help'],
 };
 
 const ROLE_NAMES: Record<Role, string> = {
