@@ -3,7 +3,6 @@ import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import yauzl from 'yauzl';
 import { verifyArchive } from '../../api/src/archive/verify-archive';
 import { ARCHIVE_FORMAT, type TArchiveManifest } from '../../shared/contracts/archives';
 import { SAFETY_CAUTION } from '../../shared/safety-caution';
@@ -11,20 +10,10 @@ import { archivedCase, downloadArchive } from '../support/archive-samples';
 import { makeTempDir } from '../support/bundle-fixtures';
 import { as } from '../support/case-work-fixtures';
 import { findRawValues, htmlTextPieces } from '../support/raw-values';
+import { readZip } from '../support/read-zip';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /** Every entry of a zip as name → bytes (yauzl checks sizes; the CRC is checked by `unzip -t` below). */
-async function readZip(file: string): Promise<Map<string, Buffer>> {
-  const zip = await yauzl.openPromise(file, { lazyEntries: true });
-  const out = new Map<string, Buffer>();
-  for await (const entry of zip.eachEntry()) {
-    const chunks: Buffer[] = [];
-    for await (const chunk of await zip.openReadStreamPromise(entry)) chunks.push(chunk as Buffer);
-    out.set(entry.fileName, Buffer.concat(chunks));
-  }
-  return out;
-}
-
 const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
 let t: TestApp;
