@@ -89,6 +89,24 @@ describe('case path', () => {
     expect(deriveCasePath(facts).holders).toEqual(['engineer', 'reviewer']);
   });
 
+  it('a signed case whose fixes are all verified waits for the reviewer to close it', () => {
+    // Closing a signed case is the reviewer's (or an admin's) move in the lifecycle table.
+    const facts: CasePathFacts = {
+      ...base,
+      status: 'signed_off',
+      statusChangedAt: '2026-11-13T08:00:00.000Z',
+      firstValidBundleAt: '2026-11-10T09:00:00.000Z',
+      firstFinishedReplayAt: '2026-11-10T09:05:00.000Z',
+      findingsStartedAt: '2026-11-11T10:00:00.000Z',
+      lastSignedAt: '2026-11-13T08:00:00.000Z',
+      fixesLinked: 1,
+      fixesUnverified: 0,
+      lastFixVerifiedAt: '2026-11-15T08:00:00.000Z',
+    };
+    expect(deriveCasePath(facts).summary).toBe('Fix verified; ready to close');
+    expect(deriveCasePath(facts).holders).toEqual(['reviewer']);
+  });
+
   it('a case closed without a linked fix skips that stage and is held by nobody', () => {
     const facts: CasePathFacts = {
       ...base,
