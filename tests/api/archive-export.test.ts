@@ -6,11 +6,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyArchive } from '../../api/src/archive/verify-archive';
 import { ARCHIVE_FORMAT, type TArchiveManifest } from '../../shared/contracts/archives';
 import { SAFETY_CAUTION } from '../../shared/safety-caution';
+import { readZipEntries } from '../archive/rewrite-zip';
 import { archivedCase, downloadArchive } from '../support/archive-samples';
 import { makeTempDir } from '../support/bundle-fixtures';
 import { as } from '../support/case-work-fixtures';
 import { findRawValues, htmlTextPieces } from '../support/raw-values';
-import { readZip } from '../support/read-zip';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /** Every entry of a zip as name → bytes (yauzl checks sizes; the CRC is checked by `unzip -t` below). */
@@ -39,7 +39,7 @@ describe('GET /api/cases/:id/archive', () => {
   });
 
   it('lists every other file in manifest.json with the size and SHA-256 of its bytes', async () => {
-    const entries = await readZip(first);
+    const entries = await readZipEntries(first);
     const manifest = JSON.parse(entries.get('manifest.json')!.toString('utf8')) as TArchiveManifest;
     expect(manifest.format).toBe(ARCHIVE_FORMAT);
     expect(manifest.safetyCaution).toBe(SAFETY_CAUTION);
@@ -56,7 +56,7 @@ describe('GET /api/cases/:id/archive', () => {
   });
 
   it('holds the original bundle byte for byte, the replay files, signed findings, keys, fixes and the audit chain', async () => {
-    const entries = await readZip(first);
+    const entries = await readZipEntries(first);
     const token = await t.tokenFor('investigator');
     const bundles = await request(t.app)
       .get(`/api/cases/${caseId}/bundles`)
@@ -103,7 +103,7 @@ describe('GET /api/cases/:id/archive', () => {
   });
 
   it('report.html reads in human values: site times with the zone named, words for every code', async () => {
-    const report = (await readZip(first)).get('report.html')!.toString('utf8');
+    const report = (await readZipEntries(first)).get('report.html')!.toString('utf8');
     const pieces = htmlTextPieces(report);
     expect(findRawValues(pieces)).toEqual([]);
     // Times in Berlin carry CET or CEST (Directive 2000/84/EC); the footer names the zone in full.
@@ -116,8 +116,8 @@ describe('GET /api/cases/:id/archive', () => {
   });
 
   it('gives identical content files for an unchanged case, except the custody record of the earlier export', async () => {
-    const a = await readZip(first);
-    const b = await readZip(second);
+    const a = await readZipEntries(first);
+    const b = await readZipEntries(second);
     const differing = [...a.keys()].filter((name) => !b.get(name)?.equals(a.get(name)!));
     // manifest.json/.jws carry the export time; the audit chain and the report's custody section
     // gain the first export's entry; the checkpoint file gains the checkpoint signed at that export.

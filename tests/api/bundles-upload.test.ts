@@ -4,7 +4,7 @@ import path from 'node:path';
 import { tableFromIPC } from 'apache-arrow';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeBundleFiles, makeTempDir, withFile, writeBundleZip } from '../support/bundle-fixtures';
+import { makeBundleFiles, withFile, writeBundleZip } from '../support/bundle-fixtures';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
 import { createTestApp } from '../support/test-app';
 

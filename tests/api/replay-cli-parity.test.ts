@@ -5,7 +5,6 @@ import { promisify } from 'node:util';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { zipFolder } from '../../api/src/bundles/zip-folder';
-import type { TReplay } from '../../shared/contracts/replays';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
 import { replayToEnd } from '../support/replay-runs';
 

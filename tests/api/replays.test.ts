@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -7,7 +6,7 @@ import type { TReplay, TReplayStepResponse } from '../../shared/contracts/replay
 import { DIGEST_LAYOUT, ENGINE_VERSION, replayFromFiles } from '../../shared/engine';
 import { runReplay } from '../../shared/engine/filter';
 import { resolveReplaySettings } from '../../shared/engine/settings';
-import { makeBundleFiles, makeTempDir, withFile, writeBundleZip } from '../support/bundle-fixtures';
+import { makeBundleFiles, withFile, writeBundleZip } from '../support/bundle-fixtures';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
 import { waitForReplay } from '../support/replay-runs';
 

@@ -1,7 +1,5 @@
-import { execFile } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { promisify } from 'node:util';
 import { calculateJwkThumbprint, type JSONWebKeySet } from 'jose';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -13,6 +11,7 @@ import { makeTempDir } from '../support/bundle-fixtures';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { forgeArchive } from './forge-archive';
 import { readZipEntries, writeZipEntries } from './rewrite-zip';
+import { runVerifyArchive } from './run-verify-archive';
 
 let t: TestApp;
 let dir: string;
@@ -195,20 +194,7 @@ describe('pins in the signed manifest', () => {
 });
 
 describe('npm run cli -- verify-archive with a trust anchor', () => {
-  const run = async (...args: string[]) => {
-    try {
-      const { stdout } = await promisify(execFile)('npx', [
-        'tsx',
-        'api/src/cli/main.ts',
-        'verify-archive',
-        ...args,
-      ]);
-      return { code: 0, stdout };
-    } catch (error) {
-      const e = error as { code: number; stdout: string };
-      return { code: e.code, stdout: e.stdout };
-    }
-  };
+  const run = runVerifyArchive;
 
   it('exits 0 for the genuine archive with --trusted-keys, 2 for a forgery, 3 for a forgery without an anchor', async () => {
     const forged = await write(await forgeArchive(entries, FORGERIES[0][1]));

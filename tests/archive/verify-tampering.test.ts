@@ -1,9 +1,7 @@
-import { execFile } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { promisify } from 'node:util';
 import type { JSONWebKeySet } from 'jose';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -13,6 +11,7 @@ import { archivedCase, downloadArchive } from '../support/archive-samples';
 import { makeTempDir } from '../support/bundle-fixtures';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { readZipEntries, writeZipEntries } from './rewrite-zip';
+import { runVerifyArchive } from './run-verify-archive';
 
 let t: TestApp;
 let dir: string;
@@ -218,20 +217,7 @@ describe('an archive exported before engine 2.0.0 (digest layout 1)', () => {
 });
 
 describe('npm run cli -- verify-archive', () => {
-  const run = async (...args: string[]) => {
-    try {
-      const { stdout } = await promisify(execFile)('npx', [
-        'tsx',
-        'api/src/cli/main.ts',
-        'verify-archive',
-        ...args,
-      ]);
-      return { code: 0, stdout };
-    } catch (error) {
-      const e = error as { code: number; stdout: string };
-      return { code: e.code, stdout: e.stdout };
-    }
-  };
+  const run = runVerifyArchive;
 
   it('exits 0 for an intact archive, printing one ok line per check', async () => {
     const { code, stdout } = await run(good, '--trusted-keys', publishedFile);

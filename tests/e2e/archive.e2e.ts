@@ -1,27 +1,14 @@
-import { execFile } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import { SAFETY_CAUTION } from '../../shared/safety-caution';
-import { readZip } from '../support/read-zip';
+import { readZipEntries } from '../archive/rewrite-zip';
+import { runVerifyArchive } from '../archive/run-verify-archive';
 import { saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
-const run = promisify(execFile);
-
-async function verifyWithCli(file: string): Promise<{ code: number; stdout: string }> {
-  try {
-    const { stdout } = await run('npx', ['tsx', 'api/src/cli/main.ts', 'verify-archive', file], {
-      timeout: 180_000,
-    });
-    return { code: 0, stdout };
-  } catch (error) {
-    const failed = error as { code: number; stdout: string };
-    return { code: failed.code, stdout: failed.stdout };
-  }
-}
+const verifyWithCli = (file: string) => runVerifyArchive(file);
 
 describe('evidence archive', () => {
   const browser = useBrowser();
@@ -57,7 +44,7 @@ describe('evidence archive', () => {
 
     // The report is self-contained: it renders from a file with no request leaving the page, shows
     // the safety caution, and prints to PDF on A4 and Letter.
-    const entries = await readZip(archive);
+    const entries = await readZipEntries(archive);
     const reportFile = path.join(dir, 'report.html');
     fs.writeFileSync(reportFile, entries.get('report.html')!);
     const reportPage = await browser.open();

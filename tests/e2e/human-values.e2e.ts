@@ -6,8 +6,8 @@ import type { Role } from '@shared/roles';
 import type { Page } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
 import { queryResultSha256 } from '../../shared/query-result-hash';
+import { readZipEntries } from '../archive/rewrite-zip';
 import { findRawValues, htmlTextPieces } from '../support/raw-values';
-import { readZip } from '../support/read-zip';
 import { saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
@@ -187,7 +187,7 @@ describe('human values on every page, mail and report', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-human-values-'));
     const archive = path.join(dir, 'archive.zip');
     fs.writeFileSync(archive, await archiveResponse.body());
-    const reportHtml = (await readZip(archive)).get('report.html')!.toString('utf8');
+    const reportHtml = (await readZipEntries(archive)).get('report.html')!.toString('utf8');
     expect(findRawValues(htmlTextPieces(reportHtml))).toEqual([]);
     const reportFile = path.join(dir, 'report.html');
     fs.writeFileSync(reportFile, reportHtml);

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readZip } from '../support/read-zip';
+import { readZipEntries } from '../archive/rewrite-zip';
 import { saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
@@ -60,7 +60,7 @@ describe('separation and stopping analysis', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-safety-e2e-'));
     const archive = path.join(dir, 'archive.zip');
     await download.saveAs(archive);
-    const entries = await readZip(archive);
+    const entries = await readZipEntries(archive);
     const report = entries.get('report.html')!.toString();
     expect(report).toContain('Separation and stopping');
     expect(report).toMatch(/orientation only/);

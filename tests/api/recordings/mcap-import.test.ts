@@ -2,13 +2,13 @@ import { copyFileSync, mkdtempSync, readFileSync, rmSync, statSync, truncateSync
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inspectBundle } from '../../../api/src/bundles/inspect-bundle';
 import { readBundleSourceFiles } from '../../../api/src/bundles/read-bundle-files';
 import { importRecording } from '../../../api/src/recordings/import-recording';
 import { RecordingError } from '../../../api/src/recordings/recording-error';
 import { analyseReplay } from '../../../api/src/replays/analyse-replay';
 import { replayFromFiles } from '../../../shared/engine';
 import { writeMcap } from '../../support/recordings/write-mcap';
+import { importedBundle } from './imported-bundle';
 
 /**
  * MCAP recordings written with the MCAP library's own writer (@mcap/core McapWriter, zstd chunks
@@ -22,12 +22,7 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-async function typed(source: { kind: 'zip' | 'folder'; path: string }) {
-  const inspection = await inspectBundle(source);
-  expect(inspection.issues.filter((issue) => issue.severity !== 'warning')).toEqual([]);
-  if (!inspection.bundle) throw new Error('no bundle');
-  return inspection.bundle;
-}
+const typed = importedBundle;
 
 describe('MCAP import', () => {
   it('reads an indexed zstd MCAP into the written values and replays like the bundle written directly', async () => {

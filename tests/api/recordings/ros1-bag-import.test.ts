@@ -2,12 +2,12 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inspectBundle } from '../../../api/src/bundles/inspect-bundle';
 import { readBundleSourceFiles } from '../../../api/src/bundles/read-bundle-files';
 import { importRecording } from '../../../api/src/recordings/import-recording';
 import { analyseReplay } from '../../../api/src/replays/analyse-replay';
 import { replayFromFiles } from '../../../shared/engine';
 import { writeRos1Bag } from '../../support/recordings/reference-writers';
+import { importedBundle } from './imported-bundle';
 
 /**
  * ROS 1 bags written by Debian's python3-rosbag (the ROS 1 reference implementation) from the
@@ -20,12 +20,7 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-async function typed(source: { kind: 'zip' | 'folder'; path: string }) {
-  const inspection = await inspectBundle(source);
-  expect(inspection.issues.filter((issue) => issue.severity !== 'warning')).toEqual([]);
-  if (!inspection.bundle) throw new Error('no bundle');
-  return inspection.bundle;
-}
+const typed = importedBundle;
 
 // The sample's filter in the ROS 1 flat parameter form (diff-corrected reads alphas as variances).
 const PARAMS = `min_particles: 1000
