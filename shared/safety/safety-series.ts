@@ -4,6 +4,7 @@
  * the scans; "believed" = the onboard pose against the map only, as the robot saw it.
  */
 import type { Bundle, Footprint } from '../bundle/types';
+import type { ReplaySeries } from '../engine/replay-series';
 import { buildStepTimeline } from '../engine/step-timeline';
 import { travelOnGrid } from './clearance-ahead';
 import { buildObstacleField, footprintToGrid, type ObstacleField } from './grid-clearance';
@@ -14,15 +15,7 @@ import { stoppingDistance } from './stopping-distance';
 import { commandSpeedAtSteps, odometrySpeedAtSteps } from './travel-speed';
 
 /** The replay series columns the analysis reads (map frame; m, rad, m^2). */
-export interface BeliefSeries {
-  t: Float64Array;
-  x: Float64Array;
-  y: Float64Array;
-  theta: Float64Array;
-  cov_xx: Float64Array;
-  cov_xy: Float64Array;
-  cov_yy: Float64Array;
-}
+export type BeliefSeries = Pick<ReplaySeries, 't' | 'x' | 'y' | 'theta' | 'cov_xx' | 'cov_xy' | 'cov_yy'>;
 
 /** Scans older than this (s) at a step are not used for it. */
 const MAX_SCAN_AGE = 0.3;

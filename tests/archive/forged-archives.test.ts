@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import path from 'node:path';
 import { calculateJwkThumbprint, type JSONWebKeySet } from 'jose';
 import request from 'supertest';
@@ -6,11 +5,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type VerifyOptions, verificationOutcome, verifyArchive } from '../../api/src/archive/verify-archive';
 import { jwkThumbprint } from '../../api/src/services/signing/jwk-thumbprint';
 import { type AuditChainEntry, computeAuditEntryHash, GENESIS_HASH } from '../../shared/audit-chain';
-import { archivedCase, downloadArchive } from '../support/archive-samples';
-import { makeTempDir } from '../support/bundle-fixtures';
+import { genuineArchive } from '../support/archive-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { forgeArchive } from './forge-archive';
-import { readZipEntries, writeZipEntries } from './rewrite-zip';
+import { writeZipEntries } from './rewrite-zip';
 import { runVerifyArchive } from './run-verify-archive';
 
 let t: TestApp;
@@ -70,13 +68,7 @@ const FORGERIES: [string, (copy: Map<string, Buffer>) => void][] = [
 
 beforeAll(async () => {
   t = await createTestApp();
-  dir = await makeTempDir('driftcase-forged-');
-  const { caseId } = await archivedCase(t);
-  good = await downloadArchive(t, caseId, dir);
-  entries = await readZipEntries(good);
-  published = (await request(t.app).get('/api/keys').expect(200)).body;
-  publishedFile = path.join(dir, 'published-keys.json');
-  fs.writeFileSync(publishedFile, JSON.stringify(published));
+  ({ dir, file: good, entries, published, publishedFile } = await genuineArchive(t, 'driftcase-forged-'));
 }, 180_000);
 afterAll(() => t.close());
 

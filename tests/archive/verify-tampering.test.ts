@@ -3,14 +3,12 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { JSONWebKeySet } from 'jose';
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyArchive } from '../../api/src/archive/verify-archive';
 import { hashFile } from '../../api/src/bundles/sha256-file';
-import { archivedCase, downloadArchive } from '../support/archive-samples';
-import { makeTempDir } from '../support/bundle-fixtures';
+import { archivedCase, downloadArchive, genuineArchive } from '../support/archive-samples';
 import { createTestApp, type TestApp } from '../support/test-app';
-import { readZipEntries, writeZipEntries } from './rewrite-zip';
+import { writeZipEntries } from './rewrite-zip';
 import { runVerifyArchive } from './run-verify-archive';
 
 let t: TestApp;
@@ -34,13 +32,7 @@ const failures = async (file: string, skipReplays = true) =>
 
 beforeAll(async () => {
   t = await createTestApp();
-  dir = await makeTempDir('driftcase-tamper-');
-  const { caseId } = await archivedCase(t);
-  good = await downloadArchive(t, caseId, dir);
-  entries = await readZipEntries(good);
-  published = (await request(t.app).get('/api/keys').expect(200)).body;
-  publishedFile = path.join(dir, 'published-keys.json');
-  fs.writeFileSync(publishedFile, JSON.stringify(published));
+  ({ dir, file: good, entries, published, publishedFile } = await genuineArchive(t, 'driftcase-tamper-'));
 }, 120_000);
 afterAll(() => t.close());
 

@@ -1,7 +1,9 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import type { JSONWebKeySet } from 'jose';
 import request from 'supertest';
 import type { Role } from '../../shared/roles';
+import { readZipEntries } from '../archive/rewrite-zip';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from './bundle-fixtures';
 import { as, caseWithDraft, signedCase } from './case-work-fixtures';
 import { replayToEnd } from './replay-runs';
@@ -48,6 +50,21 @@ export async function archivedCase(t: TestApp): Promise<{ caseId: string; replay
   });
   if (fix.status !== 201) throw new Error(`fix: ${fix.status} ${JSON.stringify(fix.body)}`);
   return { caseId, replayId: replay.id };
+}
+
+/**
+ * A genuine archive of `archivedCase` in a new temp folder, its entries, and the server's published
+ * keys (GET /api/keys) saved beside it: what a third party holds before checking an archive.
+ */
+export async function genuineArchive(t: TestApp, prefix: string) {
+  const dir = await makeTempDir(prefix);
+  const { caseId } = await archivedCase(t);
+  const file = await downloadArchive(t, caseId, dir);
+  const entries = await readZipEntries(file);
+  const published: JSONWebKeySet = (await request(t.app).get('/api/keys').expect(200)).body;
+  const publishedFile = path.join(dir, 'published-keys.json');
+  fs.writeFileSync(publishedFile, JSON.stringify(published));
+  return { dir, file, entries, published, publishedFile };
 }
 
 /** Role-matrix samples for the archive routes. */
