@@ -49,9 +49,13 @@ beforeAll(async () => {
 afterAll(() => bed.close());
 
 describe('a derived replay file removed in turn', () => {
-  const routes = () => [`/api/replays/${replay.id}/series`, `/api/replays/${replay.id}/disagreement`];
+  const routes = () => [
+    `/api/replays/${replay.id}/series`,
+    `/api/replays/${replay.id}/disagreement`,
+    `/api/replays/${replay.id}`,
+  ];
 
-  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'result.json'])(
+  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'safety.json', 'result.json'])(
     'rebuilds %s from the original and answers the same bytes',
     async (name) => {
       const before = await Promise.all(routes().map((url) => get(url).expect(200)));

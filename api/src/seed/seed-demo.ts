@@ -2,7 +2,6 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { TCreateCaseRequest } from '../../../shared/contracts/cases';
-import { AppError } from '../../../shared/errors';
 import { zipFolder } from '../bundles/zip-folder';
 import type { Services } from '../composition/create-services';
 import type { Actor } from '../services/actor';
@@ -37,12 +36,10 @@ export async function seedDemoData(
   const investigator: Actor = { id, email, role };
   const { sampleDir } = options;
   const zipDir = sampleDir ? fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-seed-')) : '';
-  // Replays this seed started that may still be running (see startWithinLimit).
-  const started: string[] = [];
   try {
     for (const { sampleFolder, ...demoCase } of DEMO_CASES) {
       const folder = sampleDir ? path.join(sampleDir, sampleFolder) : undefined;
-      await seedCase(services, demoCase, investigator, { folder, zipDir, started });
+      await seedCase(services, demoCase, investigator, { folder, zipDir });
     }
   } finally {
     if (zipDir) fs.rmSync(zipDir, { recursive: true, force: true });
@@ -54,7 +51,7 @@ async function seedCase(
   services: DemoSeedServices,
   demoCase: TCreateCaseRequest,
   actor: Actor,
-  { folder, zipDir, started }: { folder?: string; zipDir: string; started: string[] },
+  { folder, zipDir }: { folder?: string; zipDir: string },
 ) {
   const created = await services.cases.createCase(demoCase, actor);
   if (!folder || !fs.existsSync(folder)) return;
@@ -66,32 +63,9 @@ async function seedCase(
     originalName: `${name}.zip`,
     actor,
   });
-  if (bundle.status === 'valid') await startWithinLimit(services, bundle.id, actor, started);
-}
-
-const isLive = (status: string) => status === 'queued' || status === 'running';
-
-/**
- * Starts the demo replay of a bundle. The seed runs as one investigator, and one person may have
- * only a few replays running (MAX_RUNNING_REPLAYS_PER_USER): when that limit answers, it waits for
- * one of its earlier replays to end and tries again, so start-up never fails on its own demo data.
- */
-async function startWithinLimit(
-  services: DemoSeedServices,
-  bundleId: string,
-  actor: Actor,
-  started: string[],
-) {
-  for (;;) {
-    try {
-      const replay = await services.replays.startReplay(bundleId, { label: "Robot's own settings" }, actor);
-      started.push(replay.id);
-      return;
-    } catch (error) {
-      if (!(error instanceof AppError && error.code === 'too_many_requests')) throw error;
-      await new Promise((resolve) => setTimeout(resolve, 250));
-      const states = await Promise.all(started.map((id) => services.replays.getReplay(id)));
-      started.splice(0, started.length, ...states.filter((r) => isLive(r.status)).map((r) => r.id));
-    }
-  }
+  // The demo data is the system's own work, not one person's: the per-person cap does not apply.
+  if (bundle.status === 'valid')
+    await services.replays.startReplay(bundle.id, { label: "Robot's own settings" }, actor, {
+      capped: false,
+    });
 }

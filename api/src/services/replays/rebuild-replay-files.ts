@@ -11,6 +11,7 @@ export const REPLAY_DERIVED_FILES = [
   'keyframes.bin',
   'disagreement.bin',
   'series.json',
+  'safety.json',
   'result.json',
 ] as const;
 

@@ -88,7 +88,9 @@ export function createReplaysService({
   /** One replay with its separation and stopping analysis (read from the result files). */
   async function getReplayWithSafety(id: string): Promise<TReplay> {
     const replay = await getReplay(id);
-    return { ...replay, safety: replay.status === 'done' ? readSafety(replayDir(derivedDir, id)) : null };
+    if (replay.status !== 'done') return { ...replay, safety: null };
+    const { dir } = await requireResultFiles(id);
+    return { ...replay, safety: readSafety(dir) };
   }
 
   async function listBundleReplays(bundleId: string): Promise<TReplay[]> {
@@ -172,7 +174,13 @@ export function createReplaysService({
     }
   }
 
-  async function startReplay(bundleId: string, request: TStartReplayRequest, actor: Actor): Promise<TReplay> {
+  /** `capped: false` is for start-up's own demo replays; every request from a person is capped. */
+  async function startReplay(
+    bundleId: string,
+    request: TStartReplayRequest,
+    actor: Actor,
+    { capped = true }: { capped?: boolean } = {},
+  ): Promise<TReplay> {
     const body = ZStartReplayRequest.parse(request);
     const [bundle] = await db.select().from(bundles).where(eq(bundles.id, bundleId));
     if (!bundle) throw new AppError('not_found', `No bundle with id ${bundleId}.`);
@@ -190,7 +198,7 @@ export function createReplaysService({
         resolved.issues.map((i) => ({ path: `overrides.${i.field}`, message: i.message })),
       );
     }
-    if (runningOf(actor.id) >= maxRunningPerUser) {
+    if (capped && runningOf(actor.id) >= maxRunningPerUser) {
       throw new AppError(
         'too_many_requests',
         `You already have ${maxRunningPerUser} replays queued or running, the most one person may run at once. Wait for one to finish, or cancel one, then start this one again.`,

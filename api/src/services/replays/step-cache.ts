@@ -37,6 +37,10 @@ function createLru<V>(capacity: number) {
       entries.set(key, value);
       while (entries.size > capacity) entries.delete(entries.keys().next().value as string);
     },
+    /** Removes the entry only if it still holds this value (a newer one may have replaced it). */
+    deleteIf(key: string, value: V) {
+      if (entries.get(key) === value) entries.delete(key);
+    },
   };
 }
 
@@ -70,8 +74,12 @@ export function createStepCache(loadBundle: (bundleId: string) => Promise<Bundle
   function sourceFor(replayId: string, bundleId: string, dir: string): Promise<StepSource> {
     let pending = sources.get(replayId);
     if (!pending) {
-      pending = buildSource(bundleId, dir);
-      sources.set(replayId, pending);
+      const built = buildSource(bundleId, dir);
+      // A failed load (files removed mid-read and since rebuilt, a bundle briefly unreadable) must
+      // not be remembered: the next request loads again instead of failing for good.
+      built.catch(() => sources.deleteIf(replayId, built));
+      sources.set(replayId, built);
+      pending = built;
     }
     return pending;
   }
