@@ -37,19 +37,20 @@ const TWO_POW_32 = 4294967296;
 const UNIFORM_SCALE = 1 / TWO_POW_32;
 const TWO_PI = 2 * Math.PI;
 
-const TWO_POW_MINUS_16 = 1 / 65536;
-
 /**
- * High 32 bits of the 64-bit product a * m (a a 32-bit word, m = mHigh 2^16 + mLow) in double
- * arithmetic that is exact throughout: a mHigh and a mLow are below 2^48, scaling by 2^-16 is
- * exact, and floor((a mHigh + floor(a mLow 2^-16)) 2^-16) equals floor(a m / 2^32) because the
- * first summand is an integer. Fewer operations than four 16 x 16-bit integer products (JavaScript
- * has no 64-bit integer multiply on numbers). Returned as a signed 32-bit integer with the right
- * bit pattern.
+ * High 32 bits of the 64-bit product a * m (a a 32-bit word, m = mHigh 2^16 + mLow) from four
+ * 16 x 16-bit partial products with Math.imul, all in 32-bit integer arithmetic (JavaScript has no
+ * 64-bit integer multiply on numbers; staying in integers avoids float round trips). Returned as
+ * a signed 32-bit integer with the right bit pattern.
  */
 function multiplyHigh(a: number, mHigh: number, mLow: number): number {
-  const word = a >>> 0;
-  return Math.floor((word * mHigh + Math.floor(word * mLow * TWO_POW_MINUS_16)) * TWO_POW_MINUS_16) | 0;
+  const aHigh = a >>> 16;
+  const aLow = a & 0xffff;
+  const lowLow = Math.imul(aLow, mLow);
+  const highLow = Math.imul(aHigh, mLow);
+  const lowHigh = Math.imul(aLow, mHigh);
+  const middle = (lowLow >>> 16) + (highLow & 0xffff) + (lowHigh & 0xffff);
+  return (Math.imul(aHigh, mHigh) + (highLow >>> 16) + (lowHigh >>> 16) + (middle >>> 16)) | 0;
 }
 
 /**
