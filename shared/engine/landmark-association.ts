@@ -5,9 +5,8 @@
  * particle looks only at the few candidates left.
  */
 import { queryLandmarks } from './landmark-index';
-import { bearingResidual, type LandmarkModel } from './landmark-model';
-import { exp, log, sinCos } from './numerics';
-import { SMALL_ATAN_LIMIT, smallAtan } from './numerics/small-atan';
+import { type LandmarkModel, termFromResiduals } from './landmark-model';
+import { log, sinCos } from './numerics';
 
 /** The particles' poses and the cos/sin of their headings (map frame, m and rad). */
 export interface PoseArrays {
@@ -21,12 +20,6 @@ export interface PoseArrays {
 /** Per-thread buffers of the detection stage. */
 export interface DetectionScratch {
   candidates: Int32Array;
-  /** Position and confusion factor of each candidate (the same length as candidates). */
-  candidateX: Float64Array;
-  candidateY: Float64Array;
-  candidateConfusion: Float64Array;
-  /** The particle loop's numbers for the detection being applied (see particleTerms). */
-  loopConstants: Float64Array;
   /** Per-particle running product of detection likelihoods, flushed into the log-likelihood. */
   product: Float64Array;
   /** Per-particle best association term of the detection being applied. */
@@ -37,10 +30,6 @@ export interface DetectionScratch {
 export function createDetectionScratch(model: LandmarkModel | undefined, capacity: number): DetectionScratch {
   return {
     candidates: new Int32Array(model?.count ?? 0),
-    candidateX: new Float64Array(model?.count ?? 0),
-    candidateY: new Float64Array(model?.count ?? 0),
-    candidateConfusion: new Float64Array(model?.count ?? 0),
-    loopConstants: new Float64Array(9),
     product: new Float64Array(model ? capacity : 0),
     best: new Float64Array(model ? capacity : 0),
     trig: new Float64Array(2),
@@ -108,14 +97,9 @@ function cloudBounds({ x, y, theta }: PoseArrays, from: number, to: number): Clo
   return { minX, maxX, minY, maxY, headingRef, headingSpread };
 }
 
-/**
- * The particle loop of one detection. With `product`, multiplies product[i] by the detection's
- * likelihood factor (hitWeight best + clutterTerm) instead of storing best[i]: the same numbers,
- * one pass over the particles fewer.
- */
 function bestTermsForCloud(
   model: LandmarkModel,
-  poses: PoseArrays,
+  { x, y, cosTheta, sinTheta }: PoseArrays,
   from: number,
   to: number,
   cloud: CloudBounds,
@@ -124,7 +108,6 @@ function bestTermsForCloud(
   bearing: number,
   best: Float64Array,
   scratch: DetectionScratch,
-  product?: Float64Array,
 ): void {
   const rangeGate = model.gateSigmas * model.rangeSigma;
   const candidates = scratch.candidates;
@@ -147,66 +130,15 @@ function bestTermsForCloud(
     },
     candidates,
   );
-  const hitWeight = 1 - model.clutter;
-  const clutterTerm = model.clutter * model.clutterDensity;
   if (count === 0) {
-    if (product) for (let i = from; i < to; i++) product[i] *= hitWeight * 0 + clutterTerm;
-    else best.fill(0, from, to);
+    best.fill(0, from, to);
     return;
   }
-  // Each candidate's position and confusion factor in local arrays, read once per particle.
-  const { candidateX, candidateY, candidateConfusion } = scratch;
-  for (let k = 0; k < count; k++) {
-    const l = candidates[k];
-    candidateX[k] = model.x[l];
-    candidateY[k] = model.y[l];
-    candidateConfusion[k] = model.confusion[model.classIndex[l] * model.classCount + reportedClass];
-  }
   sinCos(bearing, scratch.trig);
+  const sinB = scratch.trig[0];
+  const cosB = scratch.trig[1];
   const tangent = model.bearingGateTangent;
-  // 0: no bearing gate; 1: gated; 2: gated within smallAtan's interval, which then gives the bits of atan.
-  const gate = tangent === Number.POSITIVE_INFINITY ? 0 : tangent < SMALL_ATAN_LIMIT * (1 - 1e-6) ? 2 : 1;
-  const constants = scratch.loopConstants;
-  constants[0] = range;
-  constants[1] = rangeGate;
-  constants[2] = model.maxRange * model.maxRange;
-  constants[3] = tangent;
-  constants[4] = model.gaussianNormaliser;
-  constants[5] = model.inverseRangeSigma;
-  constants[6] = model.inverseBearingSigma;
-  constants[7] = hitWeight;
-  constants[8] = clutterTerm;
-  const isAccumulating = product === undefined ? 0 : 1;
-  particleTerms(poses, from, to, count, gate, isAccumulating, product ?? best, scratch);
-}
-
-/**
- * The particle loop proper. Every number it reads comes from a typed array (scratch.loopConstants,
- * written just before): parameters and object fields reach optimised code boxed, and a loop
- * would unbox them again at every use.
- */
-function particleTerms(
-  { x, y, cosTheta, sinTheta }: PoseArrays,
-  from: number,
-  to: number,
-  count: number,
-  gate: number,
-  isAccumulating: number,
-  target: Float64Array,
-  scratch: DetectionScratch,
-): void {
-  const { candidateX, candidateY, candidateConfusion, loopConstants, trig } = scratch;
-  const sinB = trig[0];
-  const cosB = trig[1];
-  const range = loopConstants[0];
-  const rangeGate = loopConstants[1];
-  const maxRangeSquared = loopConstants[2];
-  const tangent = loopConstants[3];
-  const gaussianNormaliser = loopConstants[4];
-  const inverseRangeSigma = loopConstants[5];
-  const inverseBearingSigma = loopConstants[6];
-  const hitWeight = loopConstants[7];
-  const clutterTerm = loopConstants[8];
+  const maxRangeSquared = model.maxRange * model.maxRange;
   for (let i = from; i < to; i++) {
     const px = x[i];
     const py = y[i];
@@ -217,23 +149,20 @@ function particleTerms(
     const uy = s * cosB + c * sinB;
     let top = 0;
     for (let k = 0; k < count; k++) {
-      const dx = candidateX[k] - px;
-      const dy = candidateY[k] - py;
+      const l = candidates[k];
+      const dx = model.x[l] - px;
+      const dy = model.y[l] - py;
       const distanceSquared = dx * dx + dy * dy;
       if (distanceSquared > maxRangeSquared) continue;
       const residual = range - Math.sqrt(distanceSquared);
       if (residual > rangeGate || residual < -rangeGate) continue;
       const dot = dx * ux + dy * uy;
       const cross = dx * uy - dy * ux;
-      if (gate !== 0 && (dot <= 0 || Math.abs(cross) > tangent * dot)) continue;
-      // termFromResiduals, written out: the same operations in the same order.
-      const r = residual * inverseRangeSigma;
-      const b = (gate === 2 ? smallAtan(cross / dot) : bearingResidual(cross, dot)) * inverseBearingSigma;
-      const term = gaussianNormaliser * exp(-0.5 * (r * r + b * b)) * candidateConfusion[k];
+      if (tangent !== Number.POSITIVE_INFINITY && (dot <= 0 || Math.abs(cross) > tangent * dot)) continue;
+      const term = termFromResiduals(model, model.classIndex[l], reportedClass, residual, cross, dot);
       if (term > top) top = term;
     }
-    if (isAccumulating === 1) target[i] *= hitWeight * top + clutterTerm;
-    else target[i] = top;
+    best[i] = top;
   }
 }
 
@@ -254,6 +183,8 @@ export function accumulateDetectionLogLikelihood(
   if (to <= from || batch.end <= batch.first) return;
   const best = scratch.best;
   const cloud = cloudBounds(poses, from, to);
+  const hitWeight = 1 - model.clutter;
+  const clutterTerm = model.clutter * model.clutterDensity;
   const product = scratch.product;
   product.fill(1, from, to);
   let pending = 0;
@@ -270,8 +201,8 @@ export function accumulateDetectionLogLikelihood(
       batch.bearing[d],
       best,
       scratch,
-      product,
     );
+    for (let i = from; i < to; i++) product[i] *= hitWeight * best[i] + clutterTerm;
     if (++pending === model.detectionsPerLog || d === batch.end - 1) {
       for (let i = from; i < to; i++) out[i] += log(product[i]);
       product.fill(1, from, to);

@@ -146,7 +146,7 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
 }
 
 /** Bearing residual (rad, in [-pi, pi]) from the cross and dot products of landmark direction and detection direction. */
-export function bearingResidual(cross: number, dot: number): number {
+function bearingResidual(cross: number, dot: number): number {
   return dot > 0 ? atan(cross / dot) : atan2(cross, dot);
 }
 
