@@ -2,7 +2,8 @@
  * atan(x) for |x| <= 0.66 only: the branch of Cephes' atan (the stdlib port,
  * `@stdlib/math-base-special-atan`) that needs no range reduction, x + x z P(z) / Q(z) with
  * z = x^2, with Cephes' coefficients. Same operations in the same order, so the same bits as
- * the full function on that interval (tests/shared/engine/numerics.test.ts compares them),
+ * the full function on that interval but for the sign of a zero result, which the squared
+ * residual drops (tests/shared/engine/numerics.test.ts compares them),
  * without its sign, infinity and reduction branches: the association loop's bearing residuals
  * are gated far inside it (bearing gate about 0.3 rad for a 0.03 rad sigma).
  */
