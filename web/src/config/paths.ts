@@ -106,6 +106,7 @@ export const apiPaths = {
   caseBundles: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bundles`,
   caseBookmarks: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bookmarks`,
   caseQueries: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/queries`,
+  caseEvidenceNames: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/evidence-names`,
   bookmark: (bookmarkId: string) => `/api/bookmarks/${encodeURIComponent(bookmarkId)}`,
   savedQuery: (queryId: string) => `/api/queries/${encodeURIComponent(queryId)}`,
   bundleTable: (bundleId: string, table: string) =>
