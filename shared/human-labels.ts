@@ -34,6 +34,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.update': 'Case details edited',
   'case.transition': 'Case moved on',
   'bundle.upload': 'Log bundle uploaded',
+  'bundle.receive': 'Log bundle received and kept as evidence',
   'recording.import_failed': 'Robot recording could not be read',
   'replay.start': 'Replay started',
   'replay.delete': 'Replay deleted',
@@ -68,6 +69,7 @@ export const CASE_EVENT_LABELS: Record<CaseEvent, string> = {
 export const BUNDLE_STATUS_LABELS: Record<TBundleStatus, string> = {
   valid: 'Valid',
   invalid: 'Invalid',
+  validating: 'Being checked',
 };
 
 export const REPLAY_STATUS_LABELS: Record<TReplayStatus, string> = {
