@@ -72,6 +72,15 @@ export const BUNDLE_STATUS_LABELS: Record<TBundleStatus, string> = {
   validating: 'Being checked',
 };
 
+/** The files uploaded with a robot recording (multipart field names of `POST /cases/:id/recordings`). */
+export const RECORDING_FILE_LABELS: Record<string, string> = {
+  recording: 'Recording',
+  map: 'Map description (YAML)',
+  map_image: 'Map image',
+  params: 'Localization parameters',
+  robot: 'Robot description',
+};
+
 export const REPLAY_STATUS_LABELS: Record<TReplayStatus, string> = {
   queued: 'Waiting to start',
   running: 'Running',
