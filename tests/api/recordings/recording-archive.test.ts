@@ -104,4 +104,15 @@ describe('robot recordings in the evidence archive', () => {
     const recordingPath = `recordings/${sha256(fs.readFileSync(mcap))}/wren-aisle_4.mcap`;
     expect(result.checks.filter((check) => check.file === recordingPath).map((c) => c.ok)).toEqual([true]);
   });
+
+  it('does not list the recording originals as orphans: their custody entries account for them', async () => {
+    const admin = await bed.t.tokenFor('admin');
+    const res = await request(bed.t.app)
+      .get('/api/evidence/orphans')
+      .set('Authorization', `Bearer ${admin}`)
+      .expect(200);
+    const listed = res.body.unrecorded.map((file: { sha256: string }) => file.sha256);
+    expect(listed).not.toContain(sha256(fs.readFileSync(mcap)));
+    expect(listed).not.toContain(sha256(fs.readFileSync(unreadable)));
+  });
 });
