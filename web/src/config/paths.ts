@@ -38,6 +38,7 @@ export const paths = {
     href: (caseId: string) => `/cases/${encodeURIComponent(caseId)}/audit`,
   },
   outbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
+  evidenceAdmin: { path: '/admin/evidence', href: () => '/admin/evidence' },
   // Investigator workspace: upload, per-bundle workspace and replay comparison.
   uploadBundle: {
     path: '/cases/:caseId/upload',
@@ -113,6 +114,9 @@ export const apiPaths = {
     `/api/bundles/${encodeURIComponent(bundleId)}/tables/${encodeURIComponent(table)}`,
   bundleReplays: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}/replays`,
   outbox: '/api/outbox',
+  keyThumbprints: '/api/keys/thumbprints',
+  rotateSigningKey: '/api/keys/rotate',
+  evidenceOrphans: '/api/evidence/orphans',
   // Investigator workspace.
   bundle: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}`,
   bundleMap: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}/map`,

@@ -12,6 +12,7 @@ import {
   countOf,
   FINDINGS_VERSION_STATE_LABELS,
   labelFor,
+  RECORDING_FILE_LABELS,
   SEVERITY_LABELS,
 } from '../../../../shared/human-labels';
 import { ROLE_LABELS } from '../../../../shared/roles';
@@ -152,6 +153,15 @@ export function renderReport(input: ReportInput): string {
         `<tr><td>${escapeHtml(record.originalName)}</td><td>${escapeHtml(BUNDLE_STATUS_LABELS[record.status])}</td><td>${record.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(record.sha256)}</td></tr>`,
     )
     .join('');
+  const recordingRows = evidence.recordingOriginals
+    .map(
+      (original) =>
+        `<tr><td>${escapeHtml(original.name)}</td><td>${escapeHtml(labelFor(RECORDING_FILE_LABELS, original.role))}</td><td>${original.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(original.sha256)}</td><td>${original.bundleSha256 ? `<span class="hash">${escapeHtml(original.bundleSha256)}</span>` : 'could not be read'}</td></tr>`,
+    )
+    .join('');
+  const recordings = recordingRows
+    ? `<h3>Robot recording originals</h3><table><thead><tr><th>File</th><th>Role</th><th>Size</th><th>SHA-256</th><th>Read into bundle</th></tr></thead><tbody>${recordingRows}</tbody></table>`
+    : '';
   const replays = evidence.replays
     .map((entry) => renderReplaySection(entry, input.bundles.get(entry.bundleSha256) ?? null, text))
     .join('');
@@ -160,7 +170,7 @@ export function renderReport(input: ReportInput): string {
 <header class="brand"><div class="brand-line">${REPORT_BRAND_MARK}<span class="wordmark">Drift<span>case</span></span><span class="kind">Evidence report</span></div><h1><span class="ref">${escapeHtml(c.reference)}</span> ${escapeHtml(c.title)}</h1></header>
 <p class="caution" role="note">⚠ ${escapeHtml(input.safetyCaution)}</p>
 <section><h2>Case</h2>${text.casePath(c.path)}<table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', text.time(c.incidentTime))}${row('Severity', `<span class="severity">${renderSeverityMarkSvg(c.severity, 18)} ${escapeHtml(SEVERITY_LABELS[c.severity])}</span>`)}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
-<section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}</section>
+<section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}${recordings}</section>
 <section><h2>Replays and flags</h2>${replays ? `${REPLAY_RERUN_NOTE}${replays}` : '<p>No finished replays.</p>'}</section>
 <section><h2>Findings</h2>${findingsSection(evidence, text)}</section>
 <section><h2>Fixes and verification</h2>${fixesSection(evidence, text)}</section>
