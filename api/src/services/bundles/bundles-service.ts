@@ -8,11 +8,12 @@ import { inspectBundle } from '../../bundles/inspect-bundle';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
 import type { Database, Transaction } from '../../db/client';
 import { isUniqueViolation } from '../../db/postgres-errors';
-import { bundles, cases, replays, users } from '../../db/schema';
+import { bundles, replays, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
+import { assertCaseMember, assertMemberOfCaseOf } from '../membership/case-access';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
 import { storableJson } from './storable-json';
@@ -36,6 +37,8 @@ export interface UploadOutcome {
 /** Table names served to the browser; they match the bundle's file stems. */
 const TABLE_NAME = /^[a-z_]{1,40}$/;
 
+const SEE_EVIDENCE = 'see its evidence';
+
 const isFile = (file: string) =>
   fs.promises.stat(file).then(
     (stat) => stat.isFile(),
@@ -53,23 +56,31 @@ export function createBundlesService(options: BundlesServiceOptions) {
       .from(bundles)
       .innerJoin(users, eq(users.id, bundles.uploadedBy));
 
-  async function requireCase(caseId: string) {
-    const [found] = await db.select({ id: cases.id }).from(cases).where(eq(cases.id, caseId));
-    if (!found) throw new AppError('not_found', `No case with id ${caseId}.`);
-  }
+  const assertMemberOfBundleCase = (bundleId: string, actor: Actor) =>
+    assertMemberOfCaseOf(db, 'bundle', bundleId, actor, SEE_EVIDENCE);
 
-  async function getBundle(id: string, executor: Database = db): Promise<TBundleRecord> {
+  async function loadBundle(id: string, executor: Database = db): Promise<TBundleRecord> {
     const [found] = await selectWithUploader(executor).where(eq(bundles.id, id));
     if (!found) throw new AppError('not_found', `No bundle with id ${id}.`);
     return toBundleRecord(found.row, found.uploaderName);
   }
 
-  async function listCaseBundles(caseId: string): Promise<TBundleRecord[]> {
-    await requireCase(caseId);
+  async function getBundle(id: string, actor: Actor): Promise<TBundleRecord> {
+    await assertMemberOfBundleCase(id, actor);
+    return loadBundle(id);
+  }
+
+  /** Every bundle of a case, unchecked: for the archive export, which checks membership once. */
+  async function readCaseBundles(caseId: string): Promise<TBundleRecord[]> {
     const rows = await selectWithUploader()
       .where(eq(bundles.caseId, caseId))
       .orderBy(asc(bundles.uploadedAt));
     return rows.map(({ row, uploaderName }) => toBundleRecord(row, uploaderName));
+  }
+
+  async function listCaseBundles(caseId: string, actor: Actor): Promise<TBundleRecord[]> {
+    await assertCaseMember(db, caseId, actor, SEE_EVIDENCE);
+    return readCaseBundles(caseId);
   }
 
   /**
@@ -106,7 +117,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
           ...(upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {}),
         },
       });
-    await requireCase(upload.caseId).catch(async (error) => {
+    await assertCaseMember(db, upload.caseId, actor, 'add evidence to it').catch(async (error) => {
       await fs.promises.rm(upload.tempFile, { force: true });
       throw error;
     });
@@ -117,7 +128,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
         .from(bundles)
         .where(and(eq(bundles.caseId, upload.caseId), eq(bundles.sha256, stored.sha256)));
       if (!existing) return undefined;
-      const bundle = await getBundle(existing.id);
+      const bundle = await loadBundle(existing.id);
       await db.transaction((tx) => auditUpload(tx, bundle, true));
       return { bundle, isDuplicate: true };
     };
@@ -143,7 +154,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
           manifest: inspection.ok ? storableJson(inspection.bundle?.manifest ?? null) : null,
           tables,
         });
-        const inserted = await getBundle(id, tx);
+        const inserted = await loadBundle(id, tx);
         await auditUpload(tx, inserted, false);
         await lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload');
         return inserted;
@@ -210,8 +221,8 @@ export function createBundlesService(options: BundlesServiceOptions) {
   }
 
   /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */
-  async function tableFile(bundleId: string, name: string): Promise<string> {
-    const bundle = await getBundle(bundleId);
+  async function tableFile(bundleId: string, name: string, actor: Actor): Promise<string> {
+    const bundle = await getBundle(bundleId, actor);
     if (!TABLE_NAME.test(name) || !bundle.tables.some((table) => table.name === name)) {
       const known = bundle.tables.map((table) => table.name).join(', ') || 'none';
       throw new AppError('not_found', `Bundle ${bundleId} has no table "${name}". Tables: ${known}.`);
@@ -253,13 +264,15 @@ export function createBundlesService(options: BundlesServiceOptions) {
     await pending;
   }
 
-  async function originalFile(bundleId: string): Promise<{ path: string; name: string }> {
-    const bundle = await getBundle(bundleId);
+  function storedOriginal(bundle: TBundleRecord): { path: string; name: string } {
     return { path: evidence.pathFor(bundle.sha256), name: bundle.originalName };
   }
 
+  const originalFile = async (bundleId: string, actor: Actor) =>
+    storedOriginal(await getBundle(bundleId, actor));
+
   const views = createBundleViews({
-    originalPath: async (bundleId) => (await originalFile(bundleId)).path,
+    originalPath: async (bundleId) => storedOriginal(await loadBundle(bundleId)).path,
     isReplayOf: async (bundleId, replayId) => {
       const [found] = await db
         .select({ id: replays.id })
@@ -271,7 +284,27 @@ export function createBundlesService(options: BundlesServiceOptions) {
     maxUnpackedBytes,
   });
 
-  return { uploadBundle, listCaseBundles, getBundle, tableFile, originalFile, tablesDir, ...views };
+  /** The workspace views, each checked against the case's membership first. */
+  const checkedViews = {
+    bundleMap: async (bundleId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.bundleMap(bundleId);
+    },
+    bundleTracks: async (bundleId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.bundleTracks(bundleId);
+    },
+    replayClearance: async (bundleId: string, replayId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.replayClearance(bundleId, replayId);
+    },
+  };
+
+  return {
+    ...{ uploadBundle, listCaseBundles, readCaseBundles, getBundle, tableFile, originalFile, tablesDir },
+    ...checkedViews,
+    parsedBundle: views.parsedBundle,
+  };
 }
 
 export type BundlesService = ReturnType<typeof createBundlesService>;
