@@ -13,6 +13,7 @@ export const AUDIT_ACTIONS = [
   'case.member_add',
   'case.member_remove',
   'bundle.upload',
+  'bundle.receive',
   'recording.import_failed',
   'replay.start',
   'replay.delete',

@@ -6,6 +6,7 @@ import type { TBundleStatus } from './contracts/bundles';
 import { CASE_STATUS_LABELS, type TSeverity } from './contracts/cases';
 import type { VERSION_STATES } from './contracts/findings';
 import type { TReplayFlag, TReplayStatus } from './contracts/replays';
+import type { FlagKind } from './engine/flags/flag-types';
 import { ROLE_LABELS } from './roles';
 
 /**
@@ -36,6 +37,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.member_add': 'Member added to the case',
   'case.member_remove': 'Member removed from the case',
   'bundle.upload': 'Log bundle uploaded',
+  'bundle.receive': 'Log bundle received and kept as evidence',
   'recording.import_failed': 'Robot recording could not be read',
   'replay.start': 'Replay started',
   'replay.delete': 'Replay deleted',
@@ -70,6 +72,16 @@ export const CASE_EVENT_LABELS: Record<CaseEvent, string> = {
 export const BUNDLE_STATUS_LABELS: Record<TBundleStatus, string> = {
   valid: 'Valid',
   invalid: 'Invalid',
+  validating: 'Being checked',
+};
+
+/** The files uploaded with a robot recording (multipart field names of `POST /cases/:id/recordings`). */
+export const RECORDING_FILE_LABELS: Record<string, string> = {
+  recording: 'Recording',
+  map: 'Map description (YAML)',
+  map_image: 'Map image',
+  params: 'Localization parameters',
+  robot: 'Robot description',
 };
 
 export const REPLAY_STATUS_LABELS: Record<TReplayStatus, string> = {
@@ -94,7 +106,7 @@ export const FLAG_SEVERITY_LABELS: Record<TReplayFlag['severity'], string> = {
 };
 
 /** The replay analysis's flag kinds (shared/engine/flags/); an unknown kind falls back to plain words. */
-export const FLAG_KIND_LABELS: Record<string, string> = {
+export const FLAG_KIND_LABELS: Record<FlagKind, string> = {
   belief_collapsed: 'Belief collapsed',
   belief_split: 'Belief split in two',
   input_gap: 'Gap in the inputs',
@@ -102,6 +114,8 @@ export const FLAG_KIND_LABELS: Record<string, string> = {
   moving_obstacle: 'Something moving past',
   odometry_disagrees_with_scans: 'Odometry disagrees with scans',
   odometry_jump: 'Odometry jump',
+  onboard_departed_from_reference: "Robot's estimate left the reference",
+  onboard_departed_from_replay: "Robot's estimate left the replay",
   replay_lost_reference: 'Replay lost the reference',
   sensor_evidence_dropped: 'Sensor evidence dropped',
 };

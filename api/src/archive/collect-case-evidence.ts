@@ -9,7 +9,8 @@ import type { TJwkSet } from '../../../shared/contracts/keys';
 import type { TReplay } from '../../../shared/contracts/replays';
 import type { SafetyReport } from '../../../shared/safety/safety-report';
 import type { ReplayResultFile } from '../replays/replay-files';
-import { readReplayResultFile, readSafety, replayDir } from '../replays/replay-files';
+import { readReplayResultFile, readSafety } from '../replays/replay-files';
+import { collectRecordingOriginals, type RecordingOriginal } from './collect-recording-originals';
 
 /**
  * Bookmarks and saved queries of a case, when the workspace services exist. Kept as an optional
@@ -37,6 +38,8 @@ export interface CaseEvidence {
   findings: TFindingsVersion[];
   fixes: TFix[];
   auditChain: AuditChainEntry[];
+  /** Robot-recording originals the case's custody entries name (kept beside the bundles made from them). */
+  recordingOriginals: RecordingOriginal[];
   /** Signed checkpoints of the case's chain, one compact JWS each. */
   checkpointLines: string[];
   jwks: TJwkSet;
@@ -48,7 +51,8 @@ export interface CaseEvidenceSources {
   listCaseBundles(caseId: string): Promise<TBundleRecord[]>;
   originalPathFor(sha256: string): string;
   listBundleReplays(bundleId: string): Promise<TReplay[]>;
-  derivedDir: string;
+  /** The folder of a finished replay's result files, rebuilt from the original when missing. */
+  replayResultDir(replayId: string): Promise<string>;
   listFindingsVersions(caseId: string): Promise<{ version: number }[]>;
   getFindingsVersion(caseId: string, version: number): Promise<TFindingsVersion>;
   listFixes(caseId: string): Promise<TFix[]>;
@@ -72,9 +76,8 @@ export async function collectCaseEvidence(
   for (const record of records) {
     const finished = (await sources.listBundleReplays(record.id)).filter((r) => r.status === 'done');
     for (const replay of finished.sort(byTimeThenId)) {
-      const dir = replayDir(sources.derivedDir, replay.id);
-      // A result folder lost from derived data is skipped; the replay can be run again.
-      if (!fs.existsSync(path.join(dir, 'result.json'))) continue;
+      // Never skipped: a sealed archive that silently lacked a finished replay would mislead.
+      const dir = await sources.replayResultDir(replay.id);
       const series = JSON.parse(fs.readFileSync(path.join(dir, 'series.json'), 'utf8'));
       replays.push({
         replay,
@@ -94,13 +97,15 @@ export async function collectCaseEvidence(
         savedQueries: await sources.workspace.listSavedQueries(caseId),
       }
     : null;
+  const auditChain = await sources.readCaseChain(caseId);
   return {
     caseRecord,
     bundles: records.map((record) => ({ record, originalPath: sources.originalPathFor(record.sha256) })),
     replays,
     findings,
     fixes: await sources.listFixes(caseId),
-    auditChain: await sources.readCaseChain(caseId),
+    auditChain,
+    recordingOriginals: await collectRecordingOriginals(auditChain, sources.originalPathFor),
     checkpointLines: await sources.checkpointLines(auditChainOf(caseId)),
     jwks: await sources.jwks(),
     workspace,

@@ -101,7 +101,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       listCaseBundles: bundles.readCaseBundles,
       originalPathFor: evidence.pathFor,
       listBundleReplays: replays.readBundleReplays,
-      derivedDir,
+      replayResultDir: replays.resultDir,
       listFindingsVersions: findings.readVersions,
       getFindingsVersion: reviews.readVersion,
       listFixes: fixes.readFixes,

@@ -23,6 +23,7 @@ import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
 import { assertCaseMember } from '../membership/case-access';
 import { validateEvidence } from './evidence-citations';
+import { readEvidenceNames } from './evidence-names';
 import { type FindingsDocument, freezeFindings } from './findings-document';
 import { loadPeople } from './people';
 
@@ -255,8 +256,15 @@ export function createFindingsService(deps: {
     return { from, to, changes: diffJson(content(before), content(after)) };
   }
 
+  /** What each citable item of the case is called, so citations read by name. */
+  async function getEvidenceNames(caseId: string) {
+    await loadCaseState(db, caseId);
+    return readEvidenceNames(db, caseId);
+  }
+
   return {
     getFindings,
+    getEvidenceNames,
     saveDraft,
     submit,
     versionRow,

@@ -41,8 +41,8 @@ export interface ReplaysServiceOptions {
 }
 
 interface LiveReplay {
-  /** Who started it: their running replays count against their cap. */
-  userId: string;
+  /** Whose cap the replay counts against; null for the system's own work (the demo seed). */
+  userId: string | null;
   progress: { step: number; steps: number } | null;
   controller: AbortController;
 }
@@ -227,7 +227,8 @@ export function createReplaysService({
     const id = randomUUID();
     try {
       await insertReplay(id, bundleId, bundle.caseId, body, resolved.settings, actor);
-      live.set(id, { userId: actor.id, progress: null, controller: new AbortController() });
+      // Start-up's own replays must not use up the demo person's cap before they start any.
+      live.set(id, { userId: capped ? actor.id : null, progress: null, controller: new AbortController() });
     } finally {
       const left = (starting.get(actor.id) ?? 1) - 1;
       if (left > 0) starting.set(actor.id, left);
@@ -294,32 +295,28 @@ export function createReplaysService({
     return () => notices.off(id, listener);
   }
 
-  async function requireDone(id: string, actor: Actor): Promise<TReplay> {
-    const replay = await getReplay(id, actor);
+  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
+  async function resultFilesOf(replay: TReplay): Promise<{ replay: TReplay; dir: string }> {
     if (replay.status !== 'done')
       throw new AppError(
         'conflict',
-        `Replay ${id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}, not finished.`,
+        `Replay ${replay.id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}, not finished.`,
       );
-    return replay;
-  }
-
-  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
-  async function requireResultFiles(id: string, actor: Actor): Promise<{ replay: TReplay; dir: string }> {
-    const replay = await requireDone(id, actor);
     const [bundle] = await db
       .select({ sha256: bundles.sha256 })
       .from(bundles)
       .where(eq(bundles.id, replay.bundleId));
     if (!bundle) throw new AppError('not_found', `No bundle with id ${replay.bundleId}.`);
     const dir = await rebuilder.ensureFiles({
-      id,
+      id: replay.id,
       bundlePath: evidence.pathFor(bundle.sha256),
       overrides: replay.overrides,
       digest: replay.digest,
     });
     return { replay, dir };
   }
+
+  const requireResultFiles = async (id: string, actor: Actor) => resultFilesOf(await getReplay(id, actor));
 
   async function seriesFile(id: string, actor: Actor): Promise<string> {
     return path.join((await requireResultFiles(id, actor)).dir, 'series.json');
@@ -334,6 +331,11 @@ export function createReplaysService({
       );
     }
     return steps.stepAt(id, replay.bundleId, dir, step);
+  }
+
+  /** A finished replay's result folder, unchecked: for the archive export, which checks membership once. */
+  async function resultDir(id: string): Promise<string> {
+    return (await resultFilesOf(await loadReplay(id))).dir;
   }
 
   async function disagreementFile(id: string, actor: Actor): Promise<string> {
@@ -351,6 +353,7 @@ export function createReplaysService({
     seriesFile,
     stepAt,
     disagreementFile,
+    resultDir,
     failInterruptedReplays,
     isLive: (id: string) => live.has(id),
   };
