@@ -34,6 +34,8 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.create': 'Case opened',
   'case.update': 'Case details edited',
   'case.transition': 'Case moved on',
+  'case.member_add': 'Member added to the case',
+  'case.member_remove': 'Member removed from the case',
   'bundle.upload': 'Log bundle uploaded',
   'bundle.receive': 'Log bundle received and kept as evidence',
   'recording.import_failed': 'Robot recording could not be read',
