@@ -6,6 +6,7 @@ import type { TBundleStatus } from './contracts/bundles';
 import { CASE_STATUS_LABELS, type TSeverity } from './contracts/cases';
 import type { VERSION_STATES } from './contracts/findings';
 import type { TReplayFlag, TReplayStatus } from './contracts/replays';
+import type { FlagKind } from './engine/flags/flag-types';
 import { ROLE_LABELS } from './roles';
 
 /**
@@ -92,7 +93,7 @@ export const FLAG_SEVERITY_LABELS: Record<TReplayFlag['severity'], string> = {
 };
 
 /** The replay analysis's flag kinds (shared/engine/flags/); an unknown kind falls back to plain words. */
-export const FLAG_KIND_LABELS: Record<string, string> = {
+export const FLAG_KIND_LABELS: Record<FlagKind, string> = {
   belief_collapsed: 'Belief collapsed',
   belief_split: 'Belief split in two',
   input_gap: 'Gap in the inputs',
@@ -100,6 +101,8 @@ export const FLAG_KIND_LABELS: Record<string, string> = {
   moving_obstacle: 'Something moving past',
   odometry_disagrees_with_scans: 'Odometry disagrees with scans',
   odometry_jump: 'Odometry jump',
+  onboard_departed_from_reference: "Robot's estimate left the reference",
+  onboard_departed_from_replay: "Robot's estimate left the replay",
   replay_lost_reference: 'Replay lost the reference',
   sensor_evidence_dropped: 'Sensor evidence dropped',
 };

@@ -9,7 +9,7 @@ import type { TJwkSet } from '../../../shared/contracts/keys';
 import type { TReplay } from '../../../shared/contracts/replays';
 import type { SafetyReport } from '../../../shared/safety/safety-report';
 import type { ReplayResultFile } from '../replays/replay-files';
-import { readReplayResultFile, readSafety, replayDir } from '../replays/replay-files';
+import { readReplayResultFile, readSafety } from '../replays/replay-files';
 
 /**
  * Bookmarks and saved queries of a case, when the workspace services exist. Kept as an optional
@@ -48,7 +48,8 @@ export interface CaseEvidenceSources {
   listCaseBundles(caseId: string): Promise<TBundleRecord[]>;
   originalPathFor(sha256: string): string;
   listBundleReplays(bundleId: string): Promise<TReplay[]>;
-  derivedDir: string;
+  /** The folder of a finished replay's result files, rebuilt from the original when missing. */
+  replayResultDir(replayId: string): Promise<string>;
   listFindingsVersions(caseId: string): Promise<{ version: number }[]>;
   getFindingsVersion(caseId: string, version: number): Promise<TFindingsVersion>;
   listFixes(caseId: string): Promise<TFix[]>;
@@ -72,9 +73,8 @@ export async function collectCaseEvidence(
   for (const record of records) {
     const finished = (await sources.listBundleReplays(record.id)).filter((r) => r.status === 'done');
     for (const replay of finished.sort(byTimeThenId)) {
-      const dir = replayDir(sources.derivedDir, replay.id);
-      // A result folder lost from derived data is skipped; the replay can be run again.
-      if (!fs.existsSync(path.join(dir, 'result.json'))) continue;
+      // Never skipped: a sealed archive that silently lacked a finished replay would mislead.
+      const dir = await sources.replayResultDir(replay.id);
       const series = JSON.parse(fs.readFileSync(path.join(dir, 'series.json'), 'utf8'));
       replays.push({
         replay,

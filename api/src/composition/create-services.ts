@@ -98,7 +98,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       listCaseBundles: bundles.listCaseBundles,
       originalPathFor: evidence.pathFor,
       listBundleReplays: replays.listBundleReplays,
-      derivedDir,
+      replayResultDir: replays.resultDir,
       listFindingsVersions: findings.listVersions,
       getFindingsVersion: reviews.getVersion,
       listFixes: fixes.listFixes,

@@ -142,9 +142,10 @@ export async function discoverRecording(
   const laserFrame = firstScan ? frameName(firstScan.header.frame_id) : undefined;
   let baseFrame = firstOdometry ? frameName(firstOdometry.child_frame_id) : undefined;
   let odomFrame = firstOdometry ? frameName(firstOdometry.header.frame_id) : undefined;
-  if (!baseFrame && laserFrame)
-    baseFrame = staticPairs.get(laserFrame)?.parent ?? dynamicParents.get(laserFrame);
-  if (!baseFrame && laserFrame) baseFrame = laserFrame;
+  // Only a static transform mounts the scanner on the robot. A laser frame that moves under a
+  // parent on /tf is itself the moving base frame (a scanner at the robot's origin), and that
+  // parent is the odometry frame, not the robot.
+  if (!baseFrame && laserFrame) baseFrame = staticPairs.get(laserFrame)?.parent ?? laserFrame;
   if (!odomFrame && baseFrame) odomFrame = dynamicParents.get(baseFrame);
   let mount: Discovery['mount'];
   if (laserFrame && baseFrame) {

@@ -9,9 +9,25 @@ import type { ReplaySettings } from '../settings';
 
 export type FlagSeverity = 'info' | 'warning' | 'critical';
 
+/** Every kind a detector can raise (docs/flags.md); each has a label in shared/human-labels.ts. */
+export const FLAG_KINDS = [
+  'belief_collapsed',
+  'belief_split',
+  'input_gap',
+  'map_out_of_date',
+  'moving_obstacle',
+  'odometry_disagrees_with_scans',
+  'odometry_jump',
+  'onboard_departed_from_reference',
+  'onboard_departed_from_replay',
+  'replay_lost_reference',
+  'sensor_evidence_dropped',
+] as const;
+export type FlagKind = (typeof FLAG_KINDS)[number];
+
 export interface ReplayFlag {
   /** snake_case kind, see docs/flags.md */
-  kind: string;
+  kind: FlagKind;
   /** s since the bundle's start_time */
   start: number;
   end: number;

@@ -5,7 +5,7 @@
 import type { Bundle } from '../../bundle/types';
 import { createReplaySeries, type ReplaySeries } from '../replay-series';
 import { computeTrajectoryErrors } from '../trajectory-error';
-import type { ReplayFlag } from './flag-types';
+import type { FlagKind, ReplayFlag } from './flag-types';
 import { findSustainedRuns, fixed, rangeOver, runSeconds } from './intervals';
 
 /** Distance (m) that marks a step (healthy samples: onboard within 0.3 m of the replay throughout). */
@@ -29,7 +29,7 @@ function sharePerStep(values: Float64Array, first: number, last: number, bound: 
 function flagsFromDistance(
   t: Float64Array,
   distance: Float64Array,
-  kind: string,
+  kind: FlagKind,
   against: string,
   nees?: { values: Float64Array; bound: number },
 ): ReplayFlag[] {

@@ -101,3 +101,23 @@ describe.each(['bz2', 'lz4'] as const)('a ROS 1 bag with %s chunks', (compressio
     expect(slipFlag(fromBag.flags)).toBe(true);
   }, 240_000);
 });
+
+describe('a ROS 1 bag whose scans are stamped in the moving base frame', () => {
+  // A scanner at the robot's origin often publishes in base_link itself: /tf then carries
+  // odom -> base_link and there is no static mount. base_link is the base frame (REP 105), not a
+  // laser mounted on odom.
+  it('reads the odometry from /tf and mounts the scanner at the origin', async () => {
+    const bag = await writeRos1Bag(SAMPLE, path.join(dir, 'base-frame.bag'), 'lz4', 200, {
+      scanFrame: 'base_link',
+    });
+    const params = path.join(dir, 'amcl-base.yaml');
+    writeFileSync(params, PARAMS);
+    const out = path.join(dir, 'base-frame.zip');
+    const summary = await importRecording({ source: bag, params, out });
+    expect(summary.topics).toMatchObject({ tf: '/tf', scans: '/scan' });
+    const imported = await typed({ kind: 'zip', path: out });
+    const written = await typed({ kind: 'folder', path: SAMPLE });
+    expect(imported.manifest.scan?.mount).toEqual([0, 0, 0]);
+    expect(imported.odometry.x[50]).toBeCloseTo(written.odometry.x[50], 9);
+  }, 240_000);
+});

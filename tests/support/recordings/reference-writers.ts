@@ -32,9 +32,10 @@ export async function writeRos1Bag(
   out: string,
   compression: 'none' | 'bz2' | 'lz4',
   scanLimit?: number,
+  { scanFrame = 'laser' }: { scanFrame?: 'laser' | 'base_link' } = {},
 ): Promise<string> {
   ensureRosbagPython();
   const args = [SCRIPT, bundleFolder, out, compression, ...(scanLimit ? [String(scanLimit)] : [])];
-  await run('/usr/bin/python3', args, { timeout: 120_000 });
+  await run('/usr/bin/python3', args, { timeout: 120_000, env: { ...process.env, SCAN_FRAME: scanFrame } });
   return out;
 }

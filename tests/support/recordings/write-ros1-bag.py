@@ -8,6 +8,8 @@ Topics: /tf (odom -> base_link from odometry.csv), /tf_static (base_link -> lase
 mount), /scan (LaserScan; null -> +inf), /amcl_pose (PoseWithCovarianceStamped from
 onboard_pose.csv), /cmd_vel (Twist from commands.csv), /map (OccupancyGrid, south row first).
 Every header stamp is manifest.start_time + t; the log time equals the stamp.
+With SCAN_FRAME=base_link in the environment the scans are stamped in the moving base frame itself
+(a scanner at the robot's origin) and no /tf_static is written.
 """
 import csv, json, math, os, sys
 from datetime import datetime
@@ -20,6 +22,7 @@ from tf2_msgs.msg import TFMessage
 folder, out = sys.argv[1], sys.argv[2]
 compression = sys.argv[3] if len(sys.argv) > 3 else 'none'
 scan_limit = int(sys.argv[4]) if len(sys.argv) > 4 else None
+scan_frame = os.environ.get('SCAN_FRAME', 'laser')
 manifest = json.load(open(os.path.join(folder, 'manifest.json')))
 start = datetime.fromisoformat(manifest['start_time'].replace('Z', '+00:00')).timestamp()
 
@@ -41,7 +44,8 @@ static.header.frame_id = 'base_link'
 static.child_frame_id = 'laser'
 static.transform.translation.x, static.transform.translation.y = scan['mount'][0], scan['mount'][1]
 (static.transform.rotation.x, static.transform.rotation.y, static.transform.rotation.z, static.transform.rotation.w) = quat(scan['mount'][2])
-messages.append(('/tf_static', TFMessage(transforms=[static]), stamp(0)))
+if scan_frame == 'laser':
+    messages.append(('/tf_static', TFMessage(transforms=[static]), stamp(0)))
 
 grid_json = json.load(open(os.path.join(folder, 'map.json')))
 grid = OccupancyGrid()
@@ -71,7 +75,7 @@ with open(os.path.join(folder, 'scans.ndjson')) as lines:
         record = json.loads(line)
         msg = LaserScan()
         msg.header.stamp = stamp(record['t'])
-        msg.header.frame_id = 'laser'
+        msg.header.frame_id = scan_frame
         msg.angle_min = scan['angle_min']
         msg.angle_increment = scan['angle_increment']
         msg.angle_max = scan['angle_min'] + scan['angle_increment'] * (scan['beams'] - 1)

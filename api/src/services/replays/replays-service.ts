@@ -317,6 +317,10 @@ export function createReplaysService({
     return steps.stepAt(id, replay.bundleId, dir, step);
   }
 
+  async function resultDir(id: string): Promise<string> {
+    return (await requireResultFiles(id)).dir;
+  }
+
   async function disagreementFile(id: string): Promise<string> {
     return path.join((await requireResultFiles(id)).dir, 'disagreement.bin');
   }
@@ -331,6 +335,7 @@ export function createReplaysService({
     seriesFile,
     stepAt,
     disagreementFile,
+    resultDir,
     failInterruptedReplays,
     isLive: (id: string) => live.has(id),
   };

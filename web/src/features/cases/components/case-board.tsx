@@ -45,7 +45,8 @@ export function CaseBoard({ cases, isRefreshing }: { cases: TCase[] | undefined;
   return (
     <div
       aria-busy={!cases || isRefreshing}
-      className={`grid grid-cols-7 gap-2 p-2 ${isRefreshing ? 'opacity-60 transition-opacity' : ''}`}
+      // Seven stages never fit a narrow window: columns keep a readable width and the board scrolls.
+      className={`grid grid-cols-[repeat(7,minmax(9.5rem,1fr))] gap-2 overflow-x-auto p-2 ${isRefreshing ? 'opacity-60 transition-opacity' : ''}`}
     >
       {COLUMNS.map((column) => {
         const inColumn = cases?.filter((item) => (item.path.standing ?? 'none') === column);
@@ -55,8 +56,9 @@ export function CaseBoard({ cases, isRefreshing }: { cases: TCase[] | undefined;
             aria-label={COLUMN_TITLES[column]}
             className="min-w-0 rounded-md bg-canvas-sunk/70 p-1.5"
           >
-            <h2 className="flex items-baseline justify-between px-1 pb-1.5 text-xs font-bold tracking-wide text-ink-muted uppercase">
-              <span className="truncate">{COLUMN_TITLES[column]}</span>
+            <h2 className="flex items-start justify-between gap-1 px-1 pb-1.5 text-xs leading-tight font-bold tracking-wide text-ink-muted uppercase">
+              {/* Titles wrap rather than cut off: "Findings drafted" must read whole. */}
+              <span className="min-w-0 break-words">{COLUMN_TITLES[column]}</span>
               <span className="tabular-nums">{inColumn ? inColumn.length : ''}</span>
             </h2>
             {!inColumn ? (
