@@ -70,11 +70,14 @@ export interface ProbableCause {
   counterfactuals: CounterfactualRun[];
 }
 
+/** A flag as the causes read it: by its kind's name (stored flags carry it as plain text). */
+export type CauseFlag = Omit<ReplayFlag, 'kind'> & { kind: string };
+
 /** What the cause finder reads: a finished replay, its bundle and its flags. */
 export interface CauseInput {
   bundle: Bundle;
   series: ReplaySeries;
   settings: ReplaySettings;
   context: ReplayContext;
-  flags: ReplayFlag[];
+  flags: CauseFlag[];
 }

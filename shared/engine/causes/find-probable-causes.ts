@@ -3,11 +3,10 @@
  * each scored on its discriminating evidence and tested by counterfactual replays over a window
  * around its interval. Pure and deterministic; rules and thresholds in docs/causes.md.
  */
-import type { ReplayFlag } from '../flags/flag-types';
 import { fixed } from '../flags/intervals';
 import { measureCauseEvidence } from './cause-evidence';
 import { type ScoredCause, scoreCause } from './cause-score';
-import { type CauseInput, NON_FAULT_KINDS, type ProbableCause } from './cause-types';
+import { type CauseFlag, type CauseInput, NON_FAULT_KINDS, type ProbableCause } from './cause-types';
 import { createCounterfactualRunner } from './counterfactual-runner';
 import { explainAway } from './explain-away';
 import { findFilterCauses } from './filter-causes';
@@ -21,10 +20,10 @@ export const MAX_FLAGS_PER_KIND = 4;
 export const FOUND_CONFIDENCE = 0.5;
 
 /** The longest MAX_FLAGS_PER_KIND flags of each kind, in their original order. */
-function pickFlags(flags: ReplayFlag[]): ReplayFlag[] {
-  const byKind = new Map<string, ReplayFlag[]>();
+function pickFlags(flags: CauseFlag[]): CauseFlag[] {
+  const byKind = new Map<string, CauseFlag[]>();
   for (const flag of flags) byKind.set(flag.kind, [...(byKind.get(flag.kind) ?? []), flag]);
-  const kept = new Set<ReplayFlag>();
+  const kept = new Set<CauseFlag>();
   for (const group of byKind.values())
     for (const flag of [...group]
       .sort((a, b) => b.end - b.start - (a.end - a.start) || a.start - b.start)

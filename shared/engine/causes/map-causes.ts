@@ -7,12 +7,11 @@
  */
 
 import { classifyEndpoint } from '../flags/endpoint-class';
-import type { ReplayFlag } from '../flags/flag-types';
 import { fixed } from '../flags/intervals';
 import { OBJECT_STRUCTURE_SIZE } from '../flags/unmapped-objects';
 import { scanEndpointsAt } from '../scan-endpoints';
 import type { ScoredCause } from './cause-score';
-import type { CauseInput, CounterfactualRun } from './cause-types';
+import type { CauseFlag, CauseInput, CounterfactualRun } from './cause-types';
 import {
   compareEvidence,
   type RunCounterfactual,
@@ -34,7 +33,7 @@ const FULL_VIEW_SECONDS = 3;
 const MOVER_STRENGTH = 0.5;
 
 /** Map cells under the object's free-floor endpoints during its first sighting, hit often enough. */
-function objectCells(input: CauseInput, flag: ReplayFlag, start: number, end: number): number[] {
+function objectCells(input: CauseInput, flag: CauseFlag, start: number, end: number): number[] {
   const { context, series } = input;
   const location = flag.location!;
   const reach = (flag.size ?? 0) / 2 + OBJECT_MARGIN;
@@ -56,7 +55,7 @@ function objectCells(input: CauseInput, flag: ReplayFlag, start: number, end: nu
     .sort((a, b) => a - b);
 }
 
-function mapChanged(input: CauseInput, run: RunCounterfactual, flag: ReplayFlag): ScoredCause {
+function mapChanged(input: CauseInput, run: RunCounterfactual, flag: CauseFlag): ScoredCause {
   const first = flag.sightings?.[0] ?? { start: flag.start, end: flag.end };
   const cells = objectCells(input, flag, first.start, first.end);
   const span = windowAround(input.series, first.start, first.end);
@@ -98,7 +97,7 @@ function mapChanged(input: CauseInput, run: RunCounterfactual, flag: ReplayFlag)
   };
 }
 
-function movingObstacles(flag: ReplayFlag): ScoredCause {
+function movingObstacles(flag: CauseFlag): ScoredCause {
   return {
     kind: 'moving_obstacles',
     start: flag.start,

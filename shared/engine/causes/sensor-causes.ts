@@ -3,12 +3,11 @@
  * the sensor frame (the same beams missing or short whatever the pose); with the implausible
  * returns masked, the remaining ones must fit the map again.
  */
-import type { ReplayFlag } from '../flags/flag-types';
 import { fixed } from '../flags/intervals';
 import { hypot } from '../numerics';
 import { measureBeamPersistence, SHORT_RANGE } from './beam-persistence';
 import type { ScoredCause } from './cause-score';
-import type { CauseInput, CounterfactualRun } from './cause-types';
+import type { CauseFlag, CauseInput, CounterfactualRun } from './cause-types';
 import {
   compareEvidence,
   type RunCounterfactual,
@@ -43,7 +42,7 @@ function travelled(input: CauseInput, start: number, end: number): { metres: num
 }
 
 /** Seconds of [start, end] during which an unmapped static object (map_out_of_date) was flagged. */
-function overlapWithObjects(flags: ReplayFlag[], start: number, end: number): number {
+function overlapWithObjects(flags: CauseFlag[], start: number, end: number): number {
   let seconds = 0;
   for (const flag of flags)
     if (flag.kind === 'map_out_of_date')
@@ -52,11 +51,7 @@ function overlapWithObjects(flags: ReplayFlag[], start: number, end: number): nu
   return seconds;
 }
 
-function sensorDegraded(
-  input: CauseInput,
-  run: RunCounterfactual,
-  flag: ReplayFlag,
-): ScoredCause | undefined {
+function sensorDegraded(input: CauseInput, run: RunCounterfactual, flag: CauseFlag): ScoredCause | undefined {
   const { start, end } = flag;
   const beams = measureBeamPersistence(input.context, start, end);
   if (!beams) return undefined;
