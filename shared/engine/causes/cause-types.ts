@@ -79,5 +79,5 @@ export interface CauseInput {
   series: ReplaySeries;
   settings: ReplaySettings;
   context: ReplayContext;
-  flags: CauseFlag[];
+  flags: readonly CauseFlag[];
 }

@@ -11,6 +11,11 @@ import { replayCounterfactual } from './counterfactual-bundle';
 /** Seconds of log kept before and after the interval a counterfactual is about. */
 export const WINDOW_BEFORE = 3;
 export const WINDOW_AFTER = 3;
+/**
+ * Longest span (s) a counterfactual replays: a long interval is judged on its start, where the
+ * cause acts, and the cost of a cause search stays bounded on long logs.
+ */
+export const MAX_SPAN_SECONDS = 20;
 /** Floors (m, rad) on the window's initial spread, so a starved particle set can still move. */
 const MIN_SIGMA_XY = 0.05;
 const MIN_SIGMA_THETA = 0.03;
@@ -27,10 +32,11 @@ export function stepAt(series: ReplaySeries, t: number): number {
   return k;
 }
 
-/** Window [start - WINDOW_BEFORE, end + WINDOW_AFTER] clamped to the log. */
+/** Span [start - WINDOW_BEFORE, end + WINDOW_AFTER], at most MAX_SPAN_SECONDS long, clamped to the log. */
 export function windowAround(series: ReplaySeries, start: number, end: number) {
   const last = series.t[series.t.length - 1];
-  return { start: Math.max(series.t[0], start - WINDOW_BEFORE), end: Math.min(last, end + WINDOW_AFTER) };
+  const first = Math.max(series.t[0], start - WINDOW_BEFORE);
+  return { start: first, end: Math.min(last, end + WINDOW_AFTER, first + MAX_SPAN_SECONDS) };
 }
 
 /**
