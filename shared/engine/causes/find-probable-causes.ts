@@ -20,7 +20,7 @@ export const MAX_FLAGS_PER_KIND = 4;
 export const FOUND_CONFIDENCE = 0.5;
 
 /** The longest MAX_FLAGS_PER_KIND flags of each kind, in their original order. */
-function pickFlags(flags: CauseFlag[]): CauseFlag[] {
+function pickFlags(flags: readonly CauseFlag[]): CauseFlag[] {
   const byKind = new Map<string, CauseFlag[]>();
   for (const flag of flags) byKind.set(flag.kind, [...(byKind.get(flag.kind) ?? []), flag]);
   const kept = new Set<CauseFlag>();

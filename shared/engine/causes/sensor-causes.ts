@@ -42,7 +42,7 @@ function travelled(input: CauseInput, start: number, end: number): { metres: num
 }
 
 /** Seconds of [start, end] during which an unmapped static object (map_out_of_date) was flagged. */
-function overlapWithObjects(flags: CauseFlag[], start: number, end: number): number {
+function overlapWithObjects(flags: readonly CauseFlag[], start: number, end: number): number {
   let seconds = 0;
   for (const flag of flags)
     if (flag.kind === 'map_out_of_date')
