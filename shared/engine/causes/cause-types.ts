@@ -38,6 +38,8 @@ export interface CounterfactualSettings {
   /** Returns shorter than this (m) are removed between mask.start and mask.end. */
   masked_below?: number;
   mask?: { start: number; end: number };
+  /** Odometry's travelled distance multiplied by this over the span (headings unchanged). */
+  odometry_scale?: number;
   /** Map cells (map row order, row 0 northmost) marked occupied. */
   occupied_cells?: number[];
 }

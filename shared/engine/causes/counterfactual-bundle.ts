@@ -57,6 +57,17 @@ function sliceScans(scans: ScanTable | undefined, settings: CounterfactualSettin
   return { t: scans.t.slice(first, last), count: last - first, beams: scans.beams, ranges };
 }
 
+/** Odometry with every increment's travel scaled by `factor` from the first row (headings kept). */
+function scaleOdometry(odometry: Bundle['odometry'], factor: number): Bundle['odometry'] {
+  const x = odometry.x.slice();
+  const y = odometry.y.slice();
+  for (let k = 1; k < x.length; k++) {
+    x[k] = x[k - 1] + factor * (odometry.x[k] - odometry.x[k - 1]);
+    y[k] = y[k - 1] + factor * (odometry.y[k] - odometry.y[k - 1]);
+  }
+  return { ...odometry, x, y };
+}
+
 /** The edited bundle a counterfactual replays (see the file comment). */
 export function buildCounterfactualBundle(bundle: Bundle, settings: CounterfactualSettings): Bundle {
   const { start, end } = settings.span;
@@ -70,7 +81,10 @@ export function buildCounterfactualBundle(bundle: Bundle, settings: Counterfactu
   return {
     ...bundle,
     map,
-    odometry: sliceTable(bundle.odometry, start, end)!,
+    odometry:
+      settings.odometry_scale === undefined
+        ? sliceTable(bundle.odometry, start, end)!
+        : scaleOdometry(sliceTable(bundle.odometry, start, end)!, settings.odometry_scale),
     scans: sliceScans(bundle.scans, settings),
     detections: sliceTable(bundle.detections, start, end),
     onboard: sliceTable(bundle.onboard, start, end),

@@ -12,6 +12,7 @@ import { explainAway } from './explain-away';
 import { findFilterCauses } from './filter-causes';
 import { findMapCauses } from './map-causes';
 import { findOdometryCauses } from './odometry-causes';
+import { findScaleCauses } from './odometry-scale';
 import { findSensorCauses } from './sensor-causes';
 
 /** At most this many flags of one kind are examined (the longest), to bound the counterfactual work. */
@@ -39,6 +40,7 @@ export function findProbableCauses(full: CauseInput): ProbableCause[] {
   const candidates: ScoredCause[] = hasScans
     ? [
         ...findOdometryCauses(input, measureCauseEvidence(input), run),
+        ...findScaleCauses(input, run),
         ...findMapCauses(input, run),
         ...findSensorCauses(input, run),
       ]
