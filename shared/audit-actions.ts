@@ -11,6 +11,7 @@ export const AUDIT_ACTIONS = [
   'case.update',
   'case.transition',
   'bundle.upload',
+  'bundle.receive',
   'recording.import_failed',
   'replay.start',
   'replay.delete',

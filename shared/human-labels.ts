@@ -36,6 +36,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.update': 'Case details edited',
   'case.transition': 'Case moved on',
   'bundle.upload': 'Log bundle uploaded',
+  'bundle.receive': 'Log bundle received and kept as evidence',
   'recording.import_failed': 'Robot recording could not be read',
   'replay.start': 'Replay started',
   'replay.delete': 'Replay deleted',
@@ -70,6 +71,16 @@ export const CASE_EVENT_LABELS: Record<CaseEvent, string> = {
 export const BUNDLE_STATUS_LABELS: Record<TBundleStatus, string> = {
   valid: 'Valid',
   invalid: 'Invalid',
+  validating: 'Being checked',
+};
+
+/** The files uploaded with a robot recording (multipart field names of `POST /cases/:id/recordings`). */
+export const RECORDING_FILE_LABELS: Record<string, string> = {
+  recording: 'Recording',
+  map: 'Map description (YAML)',
+  map_image: 'Map image',
+  params: 'Localization parameters',
+  robot: 'Robot description',
 };
 
 export const REPLAY_STATUS_LABELS: Record<TReplayStatus, string> = {

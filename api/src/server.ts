@@ -54,6 +54,12 @@ async function main() {
       'files under DATA_DIR that no bundle accounts for (left by an interrupted upload?); listed for the admin at GET /api/evidence/orphans (admin), nothing was deleted',
     );
   }
+  const resumedUploads = await services.bundles.finishInterruptedUploads();
+  if (resumedUploads > 0)
+    logger.warn(
+      { resumedUploads },
+      'finished reading uploads the last stop interrupted (originals were kept)',
+    );
   const interrupted = await services.replays.failInterruptedReplays();
   if (interrupted > 0) logger.warn({ interrupted }, 'marked replays interrupted by the last stop as failed');
   if (

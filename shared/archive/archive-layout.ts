@@ -19,6 +19,21 @@ export const SAVED_QUERIES_PATH = 'workspace/saved-queries.json';
 export const bundleOriginalPath = (sha256: string) => `bundles/${sha256}/original.zip`;
 export const bundleValidationPath = (sha256: string) => `bundles/${sha256}/validation.json`;
 
+/** Every robot-recording original (recording, map, parameters, robot file) with its SHA-256 and bundle. */
+export const RECORDING_ORIGINALS_PATH = 'recordings/originals.json';
+/**
+ * A robot-recording original, under its SHA-256 and the name it was uploaded with (reduced to
+ * letters, digits, `.`, `_` and `-`, so no name can climb out of its folder).
+ */
+export const recordingOriginalPath = (sha256: string, uploadedName: string) => {
+  const safe = uploadedName
+    .replace(/^.*[\\/]/, '')
+    .replace(/[^A-Za-z0-9._-]/g, '_')
+    .replace(/^\.+/, '')
+    .slice(-100);
+  return `recordings/${sha256}/${safe || 'original'}`;
+};
+
 export const replayFilePath = (
   replayId: string,
   file:

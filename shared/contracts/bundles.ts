@@ -42,7 +42,11 @@ export const ZBundleSummary = z.object({
 });
 export type TBundleSummary = z.infer<typeof ZBundleSummary>;
 
-export const BUNDLE_STATUSES = ['valid', 'invalid'] as const;
+/**
+ * `validating`: the original is stored and recorded but not yet read (an upload in progress, or
+ * one the last stop interrupted, finished again at start-up).
+ */
+export const BUNDLE_STATUSES = ['valid', 'invalid', 'validating'] as const;
 export const ZBundleStatus = z.enum(BUNDLE_STATUSES);
 export type TBundleStatus = z.infer<typeof ZBundleStatus>;
 

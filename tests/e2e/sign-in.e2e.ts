@@ -10,7 +10,7 @@ const EXPECTED_NAVIGATION: Record<Role, string[]> = {
   reviewer: ['Cases', 'Review queue', 'Help'],
   legal: ['Cases', 'Help'],
   engineer: ['Cases', 'Help'],
-  admin: ['Cases', 'Users', 'Outbox', 'Help'],
+  admin: ['Cases', 'Users', 'Outbox', 'Keys and evidence', 'Help'],
 };
 
 const ROLE_NAMES: Record<Role, string> = {

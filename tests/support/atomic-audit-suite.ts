@@ -180,6 +180,8 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
       expect(res.status).toBe(201);
       const entries = await entriesAfter(before);
       expect(entries.map((e) => [e.action, (e.details as { cause?: string }).cause ?? null])).toEqual([
+        // Received (row and original recorded before reading), then validated, then the case moves.
+        ['bundle.receive', null],
         ['bundle.upload', null],
         ['case.transition', 'bundle.upload'],
       ]);

@@ -30,6 +30,7 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
     const { tables: _derivedTables, ...validation } = record;
     entries.push(json(layout.bundleValidationPath(record.sha256), validation));
   }
+  entries.push(...recordingOriginalEntries(evidence));
   for (const { replay, bundleSha256, result, series, safety } of evidence.replays) {
     const file = (name: Parameters<typeof layout.replayFilePath>[1]) =>
       layout.replayFilePath(replay.id, name);
@@ -84,4 +85,22 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
     text(layout.AUDIT_CHECKPOINTS_PATH, evidence.checkpointLines.map((line) => `${line}\n`).join('')),
   );
   return entries;
+}
+
+/** Robot-recording originals byte for byte, and the list saying which bundle each was read into. */
+function recordingOriginalEntries({ recordingOriginals }: CaseEvidence): ArchiveEntry[] {
+  if (recordingOriginals.length === 0) return [];
+  const listed = recordingOriginals.map(({ storedPath: _, ...original }) => ({
+    ...original,
+    path: layout.recordingOriginalPath(original.sha256, original.name),
+  }));
+  return [
+    ...recordingOriginals.map((original) => ({
+      path: layout.recordingOriginalPath(original.sha256, original.name),
+      file: original.storedPath,
+      expectedSha256: original.sha256,
+      expectedSize: original.sizeBytes,
+    })),
+    json(layout.RECORDING_ORIGINALS_PATH, listed),
+  ];
 }

@@ -10,6 +10,7 @@ import type { TReplay } from '../../../shared/contracts/replays';
 import type { SafetyReport } from '../../../shared/safety/safety-report';
 import type { ReplayResultFile } from '../replays/replay-files';
 import { readReplayResultFile, readSafety } from '../replays/replay-files';
+import { collectRecordingOriginals, type RecordingOriginal } from './collect-recording-originals';
 
 /**
  * Bookmarks and saved queries of a case, when the workspace services exist. Kept as an optional
@@ -37,6 +38,8 @@ export interface CaseEvidence {
   findings: TFindingsVersion[];
   fixes: TFix[];
   auditChain: AuditChainEntry[];
+  /** Robot-recording originals the case's custody entries name (kept beside the bundles made from them). */
+  recordingOriginals: RecordingOriginal[];
   /** Signed checkpoints of the case's chain, one compact JWS each. */
   checkpointLines: string[];
   jwks: TJwkSet;
@@ -94,13 +97,15 @@ export async function collectCaseEvidence(
         savedQueries: await sources.workspace.listSavedQueries(caseId),
       }
     : null;
+  const auditChain = await sources.readCaseChain(caseId);
   return {
     caseRecord,
     bundles: records.map((record) => ({ record, originalPath: sources.originalPathFor(record.sha256) })),
     replays,
     findings,
     fixes: await sources.listFixes(caseId),
-    auditChain: await sources.readCaseChain(caseId),
+    auditChain,
+    recordingOriginals: await collectRecordingOriginals(auditChain, sources.originalPathFor),
     checkpointLines: await sources.checkpointLines(auditChainOf(caseId)),
     jwks: await sources.jwks(),
     workspace,

@@ -24,6 +24,14 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       },
     },
     {
+      method: 'get',
+      path: '/cases/:id/evidence-names',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json(await findings.getEvidenceNames(ZCaseParams.parse(req.params).id));
+      },
+    },
+    {
       method: 'put',
       path: '/cases/:id/findings',
       access: ['investigator'],

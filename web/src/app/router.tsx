@@ -6,6 +6,7 @@ import { BundleSqlConsoleRoute } from './routes/bundle-sql-console';
 import { CaseDetailRoute, caseDetailLoader } from './routes/case-detail';
 import { CasesRoute } from './routes/cases';
 import { CompareRoute } from './routes/compare';
+import { EvidenceAdminRoute, evidenceAdminLoader } from './routes/evidence-admin';
 import { FindingsRoute } from './routes/findings';
 import { FindingsDiffRoute } from './routes/findings-diff';
 import { FindingsVersionRoute } from './routes/findings-version';
@@ -89,6 +90,12 @@ export function createAppRouter(queryClient: QueryClient) {
               loader: outboxLoader(queryClient),
               element: <OutboxRoute />,
               handle: title('Administration / Outbox'),
+            },
+            {
+              path: paths.evidenceAdmin.path,
+              loader: evidenceAdminLoader(queryClient),
+              element: <EvidenceAdminRoute />,
+              handle: title('Administration / Keys and evidence'),
             },
             {
               path: paths.users.path,

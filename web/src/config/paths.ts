@@ -38,6 +38,7 @@ export const paths = {
     href: (caseId: string) => `/cases/${encodeURIComponent(caseId)}/audit`,
   },
   outbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
+  evidenceAdmin: { path: '/admin/evidence', href: () => '/admin/evidence' },
   // Investigator workspace: upload, per-bundle workspace and replay comparison.
   uploadBundle: {
     path: '/cases/:caseId/upload',
@@ -106,12 +107,16 @@ export const apiPaths = {
   caseBundles: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bundles`,
   caseBookmarks: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bookmarks`,
   caseQueries: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/queries`,
+  caseEvidenceNames: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/evidence-names`,
   bookmark: (bookmarkId: string) => `/api/bookmarks/${encodeURIComponent(bookmarkId)}`,
   savedQuery: (queryId: string) => `/api/queries/${encodeURIComponent(queryId)}`,
   bundleTable: (bundleId: string, table: string) =>
     `/api/bundles/${encodeURIComponent(bundleId)}/tables/${encodeURIComponent(table)}`,
   bundleReplays: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}/replays`,
   outbox: '/api/outbox',
+  keyThumbprints: '/api/keys/thumbprints',
+  rotateSigningKey: '/api/keys/rotate',
+  evidenceOrphans: '/api/evidence/orphans',
   // Investigator workspace.
   bundle: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}`,
   bundleMap: (bundleId: string) => `/api/bundles/${encodeURIComponent(bundleId)}/map`,

@@ -20,7 +20,8 @@ export const bundles = pgTable(
       .notNull()
       .references(() => users.id),
     uploadedAt: timestamp('uploaded_at', { withTimezone: true }).notNull().defaultNow(),
-    status: text('status', { enum: ['valid', 'invalid'] }).notNull(),
+    /** `validating` from the moment the original is stored until it has been read. */
+    status: text('status', { enum: ['validating', 'valid', 'invalid'] }).notNull(),
     /** Validation problems (errors and warnings), as `BundleIssue[]`. */
     issues: jsonb('issues').notNull().default([]),
     /** Every file inside the bundle with its size and SHA-256. */

@@ -2,9 +2,7 @@ import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { and, asc, eq } from 'drizzle-orm';
-import type { BundleIssue } from '../../../../shared/bundle/types';
 import { AppError } from '../../../../shared/errors';
-import { inspectBundle } from '../../bundles/inspect-bundle';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
 import type { Database, Transaction } from '../../db/client';
 import { isUniqueViolation } from '../../db/postgres-errors';
@@ -16,6 +14,7 @@ import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
 import { storableJson } from './storable-json';
+import { type InspectBundle, validateStoredBundle } from './validate-stored-bundle';
 
 export interface BundlesServiceOptions {
   db: Database;
@@ -25,6 +24,8 @@ export interface BundlesServiceOptions {
   /** Folder for derived data (Arrow copies); rebuilt from the originals if lost. */
   derivedDir: string;
   maxUnpackedBytes: number;
+  /** The bundle reader; tests pass one that fails to show nothing is lost. */
+  inspect?: InspectBundle;
 }
 
 export interface UploadOutcome {
@@ -32,6 +33,9 @@ export interface UploadOutcome {
   /** True when these exact bytes were already on this case. */
   isDuplicate: boolean;
 }
+
+/** An original a bundle was made from (a robot recording, its map, ...), already stored as evidence. */
+type DerivedFrom = { role: string; name: string; sha256: string }[];
 
 /** Table names served to the browser; they match the bundle's file stems. */
 const TABLE_NAME = /^[a-z_]{1,40}$/;
@@ -43,9 +47,11 @@ const isFile = (file: string) =>
   );
 
 export function createBundlesService(options: BundlesServiceOptions) {
-  const { db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes } = options;
+  const { db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes, inspect } = options;
   const tablesDir = (bundleId: string) => path.join(derivedDir, 'bundles', bundleId, 'tables');
   const rebuilding = new Map<string, Promise<void>>();
+  /** Uploads being read in this process, so a duplicate can wait for the first copy's result. */
+  const validating = new Map<string, Promise<TBundleRecord>>();
 
   const selectWithUploader = (executor: Database = db) =>
     executor
@@ -73,9 +79,11 @@ export function createBundlesService(options: BundlesServiceOptions) {
   }
 
   /**
-   * Keeps the uploaded file as evidence first (content-addressed, read-only), then validates it.
-   * An invalid bundle is still recorded, with its issues, so nothing brought in is lost. The row,
-   * its `bundle.upload` entry and the case's move into analysis commit together.
+   * Keeps the uploaded file as evidence first (content-addressed, read-only), then records its row
+   * (status `validating`) with a `bundle.receive` custody entry, and only then parses it: whatever
+   * fails while reading, the original and its row remain. An invalid bundle is recorded with its
+   * issues. The final status, its `bundle.upload` entry and the case's move into analysis commit
+   * together.
    */
   async function uploadBundle(upload: {
     caseId: string;
@@ -83,29 +91,12 @@ export function createBundlesService(options: BundlesServiceOptions) {
     originalName: string;
     actor: Actor;
     /** Originals (a robot recording and its files) this bundle was derived from, already stored. */
-    derivedFrom?: { role: string; name: string; sha256: string }[];
+    derivedFrom?: DerivedFrom;
   }): Promise<UploadOutcome> {
     const { actor } = upload;
+    const derivedFrom = upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {};
     const auditUpload = (tx: Transaction, bundle: TBundleRecord, isDuplicate: boolean) =>
-      audit.append(tx, {
-        actor,
-        action: 'bundle.upload',
-        targetType: 'bundle',
-        targetId: bundle.id,
-        caseId: upload.caseId,
-        details: {
-          sha256: bundle.sha256,
-          status: bundle.status,
-          ...(isDuplicate ? { duplicate: true } : {}),
-          ...(upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {}),
-        },
-        payload: {
-          originalName: upload.originalName,
-          sha256: bundle.sha256,
-          sizeBytes: bundle.sizeBytes,
-          ...(upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {}),
-        },
-      });
+      appendUploadEntry(tx, { actor, bundle, originalName: upload.originalName, isDuplicate, derivedFrom });
     await requireCase(upload.caseId).catch(async (error) => {
       await fs.promises.rm(upload.tempFile, { force: true });
       throw error;
@@ -117,6 +108,8 @@ export function createBundlesService(options: BundlesServiceOptions) {
         .from(bundles)
         .where(and(eq(bundles.caseId, upload.caseId), eq(bundles.sha256, stored.sha256)));
       if (!existing) return undefined;
+      // A duplicate arriving while the first copy is read is answered with the finished bundle.
+      await validating.get(existing.id)?.catch(() => undefined);
       const bundle = await getBundle(existing.id);
       await db.transaction((tx) => auditUpload(tx, bundle, true));
       return { bundle, isDuplicate: true };
@@ -125,16 +118,128 @@ export function createBundlesService(options: BundlesServiceOptions) {
     if (earlier) return earlier;
 
     const id = randomUUID();
-    const { inspection, issues, tables } = await validateStored(id, stored.path, upload.originalName);
+    const originalName = upload.originalName.slice(0, 255);
     try {
-      const bundle = await db.transaction(async (tx) => {
+      await db.transaction(async (tx) => {
         await tx.insert(bundles).values({
           id,
           caseId: upload.caseId,
           sha256: stored.sha256,
           sizeBytes: stored.sizeBytes,
-          originalName: upload.originalName.slice(0, 255),
+          originalName,
           uploadedBy: actor.id,
+          status: 'validating',
+        });
+        await audit.append(tx, {
+          actor,
+          action: 'bundle.receive',
+          targetType: 'bundle',
+          targetId: id,
+          caseId: upload.caseId,
+          details: { sha256: stored.sha256, sizeBytes: stored.sizeBytes, ...derivedFrom },
+          payload: { originalName: upload.originalName, sha256: stored.sha256, ...derivedFrom },
+        });
+      });
+    } catch (error) {
+      // The same bytes arrived at the same time on another request, which recorded them first:
+      // this upload is a duplicate of that bundle, not a failure.
+      if (!isUniqueViolation(error)) throw error;
+      const concurrent = await existingOutcome();
+      if (!concurrent) throw error;
+      return concurrent;
+    }
+    const finished = finishValidation(id, stored.path, upload.originalName, (tx, bundle) =>
+      auditUpload(tx, bundle, false).then(() =>
+        lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload'),
+      ),
+    );
+    validating.set(id, finished);
+    try {
+      return { bundle: await finished, isDuplicate: false };
+    } finally {
+      validating.delete(id);
+    }
+  }
+
+  /** The `bundle.upload` custody entry: the validated status beside the original's hash. */
+  function appendUploadEntry(
+    tx: Transaction,
+    entry: {
+      actor: Actor;
+      bundle: TBundleRecord;
+      originalName: string;
+      isDuplicate: boolean;
+      derivedFrom: { derivedFrom?: DerivedFrom } | { resumedAfterRestart: true };
+    },
+  ) {
+    const { bundle } = entry;
+    return audit.append(tx, {
+      actor: entry.actor,
+      action: 'bundle.upload',
+      targetType: 'bundle',
+      targetId: bundle.id,
+      caseId: bundle.caseId,
+      details: {
+        sha256: bundle.sha256,
+        status: bundle.status,
+        ...(entry.isDuplicate ? { duplicate: true } : {}),
+        ...entry.derivedFrom,
+      },
+      payload: {
+        originalName: entry.originalName,
+        sha256: bundle.sha256,
+        sizeBytes: bundle.sizeBytes,
+        ...entry.derivedFrom,
+      },
+    });
+  }
+
+  /**
+   * Finishes uploads the last stop interrupted while they were read: their originals and rows are
+   * there (status `validating`), so each is validated again and recorded in the uploader's name.
+   * Returns how many were finished.
+   */
+  async function finishInterruptedUploads(): Promise<number> {
+    const stuck = await db
+      .select({ row: bundles, actor: { id: users.id, email: users.email, role: users.role } })
+      .from(bundles)
+      .innerJoin(users, eq(users.id, bundles.uploadedBy))
+      .where(eq(bundles.status, 'validating'));
+    let finished = 0;
+    for (const { row, actor } of stuck) {
+      if (validating.has(row.id)) continue;
+      await finishValidation(row.id, evidence.pathFor(row.sha256), row.originalName, (tx, bundle) =>
+        appendUploadEntry(tx, {
+          actor,
+          bundle,
+          originalName: row.originalName,
+          isDuplicate: false,
+          derivedFrom: { resumedAfterRestart: true },
+        }).then(() => lifecycle.noteWorkStarted(tx, row.caseId, actor, 'bundle.upload')),
+      );
+      finished += 1;
+    }
+    return finished;
+  }
+
+  /** Reads a received original and records what validation found, with `record` in the same transaction. */
+  async function finishValidation(
+    id: string,
+    storedPath: string,
+    originalName: string,
+    record: (tx: Transaction, bundle: TBundleRecord) => Promise<unknown>,
+  ): Promise<TBundleRecord> {
+    const { inspection, issues, tables } = await validateStoredBundle({
+      storedPath,
+      originalName,
+      tablesDir: tablesDir(id),
+      maxUnpackedBytes,
+      inspect,
+    });
+    return db.transaction(async (tx) => {
+      await tx
+        .update(bundles)
+        .set({
           status: inspection.ok ? 'valid' : 'invalid',
           // Names and messages come from inside the archive: made storable (jsonb refuses NUL).
           issues: storableJson(issues),
@@ -142,71 +247,12 @@ export function createBundlesService(options: BundlesServiceOptions) {
           summary: storableJson(inspection.summary ?? null),
           manifest: inspection.ok ? storableJson(inspection.bundle?.manifest ?? null) : null,
           tables,
-        });
-        const inserted = await getBundle(id, tx);
-        await auditUpload(tx, inserted, false);
-        await lifecycle.noteWorkStarted(tx, upload.caseId, actor, 'bundle.upload');
-        return inserted;
-      });
-      return { bundle, isDuplicate: false };
-    } catch (error) {
-      // The same bytes arrived at the same time on another request, which stored them first:
-      // this upload is a duplicate of that bundle, not a failure.
-      if (!isUniqueViolation(error)) throw error;
-      await fs.promises.rm(tablesDir(id), { recursive: true, force: true });
-      const concurrent = await existingOutcome();
-      if (!concurrent) throw error;
-      return concurrent;
-    }
-  }
-
-  /**
-   * Validates a stored original and writes its derived tables. Never throws for what is in the
-   * file: a reader failure becomes an issue, so the original is always recorded with a row.
-   */
-  async function validateStored(id: string, storedPath: string, originalName: string) {
-    let inspection: Awaited<ReturnType<typeof inspectBundle>>;
-    try {
-      inspection = await inspectBundle(
-        { kind: 'zip', path: storedPath },
-        { maxTotalBytes: maxUnpackedBytes },
-      );
-    } catch (error) {
-      inspection = {
-        ok: false,
-        files: [],
-        issues: [
-          {
-            file: originalName,
-            message: `The archive could not be read: ${String(error)}`,
-            severity: 'error',
-          },
-        ],
-      };
-    }
-    // Issues about the archive itself name the stored copy; show the name the investigator knows.
-    const storedName = path.basename(storedPath);
-    let issues: BundleIssue[] = inspection.issues.map((issue) =>
-      issue.file === storedName ? { ...issue, file: originalName } : issue,
-    );
-    let tables: { name: string; rows: number }[] = [];
-    if (inspection.ok && inspection.bundle) {
-      try {
-        const written = await writeArrowTables(inspection.bundle, tablesDir(id));
-        tables = written.map(({ name, rows }) => ({ name, rows }));
-      } catch (error) {
-        // Derived data only: the bundle stays valid evidence even if the copy fails.
-        issues = [
-          ...issues,
-          {
-            file: '(derived tables)',
-            message: `Could not write Arrow tables: ${String(error)}`,
-            severity: 'warning',
-          },
-        ];
-      }
-    }
-    return { inspection, issues, tables };
+        })
+        .where(eq(bundles.id, id));
+      const validated = await getBundle(id, tx);
+      await record(tx, validated);
+      return validated;
+    });
   }
 
   /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */
@@ -271,7 +317,16 @@ export function createBundlesService(options: BundlesServiceOptions) {
     maxUnpackedBytes,
   });
 
-  return { uploadBundle, listCaseBundles, getBundle, tableFile, originalFile, tablesDir, ...views };
+  return {
+    uploadBundle,
+    finishInterruptedUploads,
+    listCaseBundles,
+    getBundle,
+    tableFile,
+    originalFile,
+    tablesDir,
+    ...views,
+  };
 }
 
 export type BundlesService = ReturnType<typeof createBundlesService>;

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { inArray } from 'drizzle-orm';
+import { inArray, sql } from 'drizzle-orm';
 import type { TEvidenceOrphans, TOrphanFile } from '../../../../shared/contracts/evidence-orphans';
 import type { Database } from '../../db/client';
 import { bundles } from '../../db/schema';
@@ -15,6 +15,25 @@ async function describeFile(dataDir: string, file: string): Promise<TOrphanFile>
     sizeBytes: stat.size,
     modifiedAt: stat.mtime.toISOString(),
   };
+}
+
+/**
+ * Hashes of the robot-recording originals the custody entries name: they have no bundle row of
+ * their own (the bundle made from them has one), but are accounted for all the same.
+ */
+async function recordingOriginalHashes(db: Database): Promise<string[]> {
+  const result = await db.execute(sql`
+    select distinct original->>'sha256' as "sha256"
+    from audit_entries,
+      jsonb_array_elements(
+        case when jsonb_typeof(coalesce(details->'derivedFrom', details->'originals')) = 'array'
+          then coalesce(details->'derivedFrom', details->'originals') else '[]'::jsonb end
+      ) as original
+    where action in ('bundle.receive', 'bundle.upload', 'recording.import_failed')`);
+  const rows = ((result as { rows?: unknown[] }).rows ?? (result as unknown as unknown[])) as {
+    sha256: string | null;
+  }[];
+  return rows.flatMap((row) => (row.sha256 ? [row.sha256] : []));
 }
 
 /**
@@ -54,6 +73,9 @@ export function createEvidenceOrphans({
         .from(bundles)
         .where(inArray(bundles.sha256, chunk));
       for (const row of rows) recorded.add(row.sha256);
+    }
+    if (stored.some((s) => !recorded.has(s.sha256))) {
+      for (const sha256 of await recordingOriginalHashes(db)) recorded.add(sha256);
     }
     const unrecorded = await Promise.all(
       stored

@@ -22,6 +22,7 @@ import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
 import { validateEvidence } from './evidence-citations';
+import { readEvidenceNames } from './evidence-names';
 import { type FindingsDocument, freezeFindings } from './findings-document';
 import { loadPeople } from './people';
 
@@ -233,8 +234,15 @@ export function createFindingsService(deps: {
     return { from, to, changes: diffJson(content(before), content(after)) };
   }
 
+  /** What each citable item of the case is called, so citations read by name. */
+  async function getEvidenceNames(caseId: string) {
+    await loadCaseState(db, caseId);
+    return readEvidenceNames(db, caseId);
+  }
+
   return {
     getFindings,
+    getEvidenceNames,
     saveDraft,
     submit,
     versionRow,

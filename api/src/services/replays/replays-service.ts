@@ -40,8 +40,8 @@ export interface ReplaysServiceOptions {
 }
 
 interface LiveReplay {
-  /** Who started it: their running replays count against their cap. */
-  userId: string;
+  /** Whose cap the replay counts against; null for the system's own work (the demo seed). */
+  userId: string | null;
   progress: { step: number; steps: number } | null;
   controller: AbortController;
 }
@@ -209,7 +209,8 @@ export function createReplaysService({
     const id = randomUUID();
     try {
       await insertReplay(id, bundleId, bundle.caseId, body, resolved.settings, actor);
-      live.set(id, { userId: actor.id, progress: null, controller: new AbortController() });
+      // Start-up's own replays must not use up the demo person's cap before they start any.
+      live.set(id, { userId: capped ? actor.id : null, progress: null, controller: new AbortController() });
     } finally {
       const left = (starting.get(actor.id) ?? 1) - 1;
       if (left > 0) starting.set(actor.id, left);

@@ -1,6 +1,15 @@
 import { ROLES, type Role } from '@shared/roles';
 import { paths } from '@web/config/paths';
-import { CircleHelp, FilePlus2, FolderKanban, Inbox, type LucideIcon, Mail, Users } from 'lucide-react';
+import {
+  CircleHelp,
+  FilePlus2,
+  FolderKanban,
+  Inbox,
+  KeyRound,
+  type LucideIcon,
+  Mail,
+  Users,
+} from 'lucide-react';
 
 export interface NavItem {
   label: string;
@@ -47,6 +56,7 @@ export const NAV_SECTIONS: NavSection[] = [
     items: [
       { label: 'Users', href: paths.users.href(), icon: Users, roles: ['admin'] },
       { label: 'Outbox', href: paths.outbox.href(), icon: Mail, roles: ['admin'] },
+      { label: 'Keys and evidence', href: paths.evidenceAdmin.href(), icon: KeyRound, roles: ['admin'] },
     ],
   },
   {

@@ -1,15 +1,9 @@
 import type { TBundleRecord } from '@shared/contracts/bundles';
 import { LocalTime } from '@web/components/local-time';
+import { formatBytes } from '@web/lib/format-bytes';
 import type { ReactNode } from 'react';
 import { BundleStatusBadge } from './bundle-status-badge';
 import { CopyButton } from './copy-button';
-
-const formatBytes = (bytes: number) =>
-  bytes >= 1 << 20
-    ? `${(bytes / (1 << 20)).toFixed(1)} MiB`
-    : bytes >= 1024
-      ? `${(bytes / 1024).toFixed(1)} KiB`
-      : `${bytes} B`;
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
   return (
