@@ -1,9 +1,12 @@
 /**
  * Scenarios none of the committed samples has, for checking the probable causes on incidents the
  * thresholds were not chosen on (docs/causes.md): people walking across the aisles near the robot
- * (no fault), and an encoder scale error of a few percent (a gradual odometry fault). Generated in
+ * (no fault), an encoder scale error of a few percent (a gradual odometry fault), and a sensor
+ * whose fixed sector of beams returns short ranges or nothing. Generated in
  * memory by the tests, not committed.
  */
+
+import { HEALTHY_LASER, type LaserNoise } from './laser-scanner';
 import { AISLE_2, AISLE_3, HEALTHY_SHIFT, PICKING_LOOP, tugger, WEST_LANE } from './sample-scenarios';
 import type { ScenarioSpec } from './scenario-types';
 
@@ -44,4 +47,39 @@ export const ENCODER_SCALE: ScenarioSpec = {
   ],
 };
 
-export const CAUSE_SCENARIOS: readonly ScenarioSpec[] = [PEOPLE_WALKING, ENCODER_SCALE];
+/** A sensor fault over a fixed sector of beams, for 10 s from 20 s, on the healthy loop. */
+function sectorFault(name: string, story: string, seed: number, sector: LaserNoise['sector']): ScenarioSpec {
+  return {
+    ...HEALTHY_SHIFT,
+    name,
+    story,
+    seed,
+    robot: tugger("AMR-06 'Tystie'"),
+    route: PICKING_LOOP.slice(0, 5),
+    degradedLaser: { start: 20, end: 30, noise: { ...HEALTHY_LASER, sector } },
+    scriptedEvents: [{ t: 0.5, kind: 'operator_note', detail: 'Run straight out of the blast freezer' }],
+  };
+}
+
+/** 40 % of the beams (108 of 271, the right-hand side) return 0.2-0.6 m: frost on part of the window. */
+export const FROSTED_WINDOW = sectorFault(
+  'frosted-window',
+  'Frost forms over the right half of the scanner window; those beams return 0.2-0.6 m for 10 s.',
+  6106,
+  { first: 0, last: 107, short: [0.2, 0.6] },
+);
+
+/** 60 % of the beams (163 of 271) return nothing: a loose cable to part of the sensor head. */
+export const LOST_SECTOR = sectorFault(
+  'lost-sector',
+  'A loose connector blanks 60 % of the scanner sector (no returns) for 10 s.',
+  6206,
+  { first: 0, last: 162 },
+);
+
+export const CAUSE_SCENARIOS: readonly ScenarioSpec[] = [
+  PEOPLE_WALKING,
+  ENCODER_SCALE,
+  FROSTED_WINDOW,
+  LOST_SECTOR,
+];

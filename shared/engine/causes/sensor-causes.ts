@@ -23,6 +23,10 @@ export const SENSOR_MIN_GAIN = 0.2;
  * returns are taken to be that object's, not the sensor's, and the counterfactual does not count.
  */
 export const SENSOR_MAX_OBJECT_SHARE = 0.5;
+/** Travel (m) over the interval from which beams that stay short read as independent of the pose. */
+export const SENSOR_POSE_CHANGE = 2;
+/** ... when at least this share of the used beams stays short. */
+export const SENSOR_MIN_SECTOR = 0.1;
 /** Rise in the missing-or-short share of returns that counts as full evidence. */
 const FULL_RISE = 0.5;
 
@@ -63,7 +67,14 @@ function sensorDegraded(input: CauseInput, run: RunCounterfactual, flag: CauseFl
     mask: { start, end },
   };
   const { gain, digest } = compareEvidence(input, run, masked, start, end);
-  const objectShare = overlapWithObjects(input.flags, start, end) / Math.max(1e-9, end - start);
+  const move = travelled(input, start, end);
+  // Returns that stay short on the same beams while the robot drives on belong to the window, not
+  // to an object in the world: an "unmapped object" flagged meanwhile is then not held against it.
+  const isPoseIndependent =
+    move.metres >= SENSOR_POSE_CHANGE && beams.shortSuspect.length >= SENSOR_MIN_SECTOR * beams.usedBeams;
+  const objectShare = isPoseIndependent
+    ? 0
+    : overlapWithObjects(input.flags, start, end) / Math.max(1e-9, end - start);
   const counterfactual: CounterfactualRun = {
     label: `Returns shorter than ${SHORT_RANGE} m and ${beams.shortSuspect.length} persistently short beams masked over ${fixed(start)}-${fixed(end)} s`,
     settings: masked,
@@ -74,7 +85,6 @@ function sensorDegraded(input: CauseInput, run: RunCounterfactual, flag: CauseFl
   };
   const missingRise = beams.missingShare - beams.missingBefore;
   const shortRise = beams.shortShare - beams.shortBefore;
-  const move = travelled(input, start, end);
   const strength = (Math.max(missingRise, shortRise, 0) / FULL_RISE) * (1 - Math.min(1, objectShare));
   const pct = (share: number) => fixed(share * 100, 0);
   return {
