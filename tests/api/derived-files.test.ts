@@ -57,7 +57,7 @@ describe('a derived replay file removed in turn', () => {
     `/api/replays/${replay.id}`,
   ];
 
-  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'safety.json', 'result.json'])(
+  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'safety.json', 'causes.json', 'result.json'])(
     'rebuilds %s from the original and answers the same bytes',
     async (name) => {
       const before = await Promise.all(routes().map((url) => get(url).expect(200)));

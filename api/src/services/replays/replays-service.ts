@@ -16,7 +16,7 @@ import { AppError } from '../../../../shared/errors';
 import { REPLAY_STATUS_LABELS } from '../../../../shared/human-labels';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
-import { readSafety, replayDir } from '../../replays/replay-files';
+import { readCauses, readSafety, replayDir } from '../../replays/replay-files';
 import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
@@ -96,12 +96,12 @@ export function createReplaysService({
     return loadReplay(id);
   }
 
-  /** One replay with its separation and stopping analysis (read from the result files). */
+  /** One replay with its separation and stopping analysis and its probable causes (read from the result files). */
   async function getReplayWithSafety(id: string, actor: Actor): Promise<TReplay> {
     const replay = await getReplay(id, actor);
-    if (replay.status !== 'done') return { ...replay, safety: null };
+    if (replay.status !== 'done') return { ...replay, safety: null, causes: null };
     const { dir } = await requireResultFiles(id, actor);
-    return { ...replay, safety: readSafety(dir) };
+    return { ...replay, safety: readSafety(dir), causes: readCauses(dir) };
   }
 
   async function listBundleReplays(bundleId: string, actor: Actor): Promise<TReplay[]> {
