@@ -228,9 +228,11 @@ function auditProblem(spec: RouteSpec, isSuccess: boolean, entries: { action: st
   if (!isSuccess || !spec.audit) return actions.length ? `left entries ${actions.join(', ')}` : null;
   const declared = spec.audit.action;
   const own = actions.filter((action) => action === declared).length;
+  const earlier = new Set<string>(spec.audit.precededBy ?? []);
   const others = entries.filter(
     (entry) =>
       entry.action !== declared &&
+      !earlier.has(entry.action) &&
       !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared),
   );
   if (own === 1 && others.length === 0) return null;
