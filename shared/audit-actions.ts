@@ -10,6 +10,8 @@ export const AUDIT_ACTIONS = [
   'case.create',
   'case.update',
   'case.transition',
+  'case.member_add',
+  'case.member_remove',
   'bundle.upload',
   'bundle.receive',
   'recording.import_failed',

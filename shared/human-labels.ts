@@ -6,6 +6,7 @@ import type { TBundleStatus } from './contracts/bundles';
 import { CASE_STATUS_LABELS, type TSeverity } from './contracts/cases';
 import type { VERSION_STATES } from './contracts/findings';
 import type { TReplayFlag, TReplayStatus } from './contracts/replays';
+import type { CauseKind } from './engine/causes/cause-types';
 import type { FlagKind } from './engine/flags/flag-types';
 import { ROLE_LABELS } from './roles';
 
@@ -34,6 +35,8 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.create': 'Case opened',
   'case.update': 'Case details edited',
   'case.transition': 'Case moved on',
+  'case.member_add': 'Member added to the case',
+  'case.member_remove': 'Member removed from the case',
   'bundle.upload': 'Log bundle uploaded',
   'bundle.receive': 'Log bundle received and kept as evidence',
   'recording.import_failed': 'Robot recording could not be read',
@@ -116,6 +119,16 @@ export const FLAG_KIND_LABELS: Record<FlagKind, string> = {
   onboard_departed_from_replay: "Robot's estimate left the replay",
   replay_lost_reference: 'Replay lost the reference',
   sensor_evidence_dropped: 'Sensor evidence dropped',
+};
+
+export const CAUSE_KIND_LABELS: Record<CauseKind, string> = {
+  odometry_fault: 'Odometry fault',
+  external_displacement: 'Moved from outside',
+  map_changed: 'Site differs from the map',
+  moving_obstacles: 'People or vehicles moving',
+  sensor_degraded: 'Sensor degraded',
+  filter_settings: "Robot's localizer settings",
+  none: 'No fault found',
 };
 
 export const EVENT_KIND_LABELS: Record<(typeof KNOWN_EVENT_KINDS)[number], string> = {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CAUSE_KINDS } from '../engine/causes/cause-types';
 import { ZReplayOverrides } from '../engine/settings';
 import type { SafetyReport } from '../safety/safety-report';
 import { safeText } from './safe-text';
@@ -35,6 +36,31 @@ export const ZReplayFlag = z.object({
 });
 export type TReplayFlag = z.infer<typeof ZReplayFlag>;
 
+/** One counterfactual replay behind a probable cause (docs/causes.md); `settings` re-run it. */
+export const ZCauseCounterfactual = z.object({
+  label: z.string(),
+  settings: z.record(z.string(), z.unknown()),
+  digest: z.string(),
+  metric: z.string(),
+  /** null where the metric could not be measured (written from NaN). */
+  value: z.number().nullable(),
+  supports: z.boolean(),
+});
+
+/** A probable cause of what went wrong in a replay (docs/causes.md); structurally the engine's ProbableCause. */
+export const ZProbableCause = z.object({
+  kind: z.enum(CAUSE_KINDS),
+  /** s since the bundle's start_time */
+  start: z.number(),
+  end: z.number(),
+  /** [0, 1]; below 0.5 unless a counterfactual supports it */
+  confidence: z.number(),
+  evidence: z.string(),
+  against: z.string(),
+  counterfactuals: z.array(ZCauseCounterfactual),
+});
+export type TProbableCause = z.infer<typeof ZProbableCause>;
+
 export const ZReplayMetrics = z.object({
   rmse_reference: z.number().nullable(),
   rmse_onboard: z.number().nullable(),
@@ -66,6 +92,11 @@ export const ZReplay = z.object({
    * finished replay; null when the replay has none; absent from lists.
    */
   safety: z.custom<SafetyReport>().nullable().optional(),
+  /**
+   * Probable causes, highest confidence first (docs/causes.md): on `GET /api/replays/:id` of a
+   * finished replay; null when the replay has none (made before causes existed); absent from lists.
+   */
+  causes: z.array(ZProbableCause).nullable().optional(),
   error: z.string().nullable(),
   progress: z.object({ step: z.number(), steps: z.number() }).nullable(),
   createdBy: z.object({ id: z.string(), name: z.string() }),

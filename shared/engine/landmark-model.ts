@@ -16,6 +16,7 @@ import type { DetectorConfig, Landmark } from '../bundle/types';
 import { buildLandmarkIndex, type LandmarkIndex } from './landmark-index';
 import { atan, atan2, cos, exp, log, sin } from './numerics';
 import { POW2, POW2_OFFSET } from './numerics/powers-of-two';
+import { SMALL_ATAN_LIMIT, smallAtan } from './numerics/small-atan';
 
 /** Landmarks and detector settings in struct-of-arrays form for the per-particle loop. */
 export interface LandmarkModel {
@@ -147,7 +148,11 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
 
 /** Bearing residual (rad, in [-pi, pi]) from the cross and dot products of landmark direction and detection direction. */
 function bearingResidual(cross: number, dot: number): number {
-  return dot > 0 ? atan(cross / dot) : atan2(cross, dot);
+  if (dot > 0) {
+    const t = cross / dot;
+    return t <= SMALL_ATAN_LIMIT && t >= -SMALL_ATAN_LIMIT ? smallAtan(t) : atan(t);
+  }
+  return atan2(cross, dot);
 }
 
 /**

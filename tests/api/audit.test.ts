@@ -17,13 +17,17 @@ describe('audit trail', () => {
     const list = await as(t, 'legal').get(`/api/cases/${caseId}/audit`);
     expect(list.body.items.map((e: { action: string }) => e.action)).toEqual([
       'case.create',
+      // The creator puts the reviewer, engineer and legal on the case (case-work-fixtures).
+      'case.member_add',
+      'case.member_add',
+      'case.member_add',
       'findings.save',
       // The first draft starts analysis; that move is audited with its cause.
       'case.transition',
       'findings.submit',
       'findings.signoff',
     ]);
-    expect(list.body.items[2].details).toMatchObject({
+    expect(list.body.items[5].details).toMatchObject({
       from: 'open',
       to: 'analysing',
       cause: 'findings.save',
@@ -35,7 +39,7 @@ describe('audit trail', () => {
     expect(createHash('sha256').update(canonicalJson(rest)).digest('hex')).toBe(entryHash);
     expect((await as(t, 'reviewer').get(`/api/cases/${caseId}/audit/verify`)).body).toEqual({
       ok: true,
-      entries: 5,
+      entries: 8,
       // No export or daily run has signed a checkpoint of this chain yet.
       checkpoints: { checked: 0, problems: [] },
     });
@@ -65,6 +69,6 @@ describe('audit trail', () => {
     );
     await t.database.db.execute(sql`alter table audit_entries enable trigger user`);
     report = (await as(t, 'admin').get(`/api/cases/${other.caseId}/audit/verify`)).body;
-    expect(report).toMatchObject({ ok: false, entries: 4, firstBroken: { chainSeq: 3 } });
+    expect(report).toMatchObject({ ok: false, entries: 7, firstBroken: { chainSeq: 3 } });
   });
 });

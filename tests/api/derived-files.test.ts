@@ -7,6 +7,7 @@ import type { TReplay } from '../../shared/contracts/replays';
 import { runReplay } from '../../shared/engine/filter';
 import { resolveReplaySettings } from '../../shared/engine/settings';
 import { readZipEntries } from '../archive/rewrite-zip';
+import { downloadArchive } from '../support/archive-samples';
 import { makeBundleFiles, writeBundleZip } from '../support/bundle-fixtures';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
 import { replayToEnd } from '../support/replay-runs';
@@ -56,7 +57,7 @@ describe('a derived replay file removed in turn', () => {
     `/api/replays/${replay.id}`,
   ];
 
-  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'safety.json', 'result.json'])(
+  it.each(['series.json', 'disagreement.bin', 'keyframes.bin', 'safety.json', 'causes.json', 'result.json'])(
     'rebuilds %s from the original and answers the same bytes',
     async (name) => {
       const before = await Promise.all(routes().map((url) => get(url).expect(200)));
@@ -106,19 +107,7 @@ describe('a derived replay file removed in turn', () => {
 describe('an archive exported after the replay folder was removed', () => {
   it('still holds the finished replay, rebuilt from the original', async () => {
     fs.rmSync(replayFolder(), { recursive: true, force: true });
-    const legal = await bed.t.tokenFor('legal');
-    const res = await request(bed.t.app)
-      .get(`/api/cases/${bed.caseId}/archive`)
-      .set('Authorization', `Bearer ${legal}`)
-      .buffer(true)
-      .parse((stream, done) => {
-        const chunks: Buffer[] = [];
-        stream.on('data', (chunk: Buffer) => chunks.push(chunk));
-        stream.on('end', () => done(null, Buffer.concat(chunks)));
-      })
-      .expect(200);
-    const zip = path.join(bed.dir, 'after-removal.zip');
-    fs.writeFileSync(zip, res.body);
+    const zip = await downloadArchive(bed.t, bed.caseId, bed.dir, 'after-removal.zip');
     const entries = await readZipEntries(zip);
     expect(entries.get(`replays/${replay.id}/digest`)?.toString('utf8').trim()).toBe(replay.digest);
   }, 120_000);

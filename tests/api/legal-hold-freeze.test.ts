@@ -128,6 +128,9 @@ const ALLOWED = new Set([
   'post /cases/:id/fixes/:fixId/verify', // records a verification beside the fix
   'delete /cases/:id/hold',
   'post /cases/:id/hold',
+  // Who works on a case is not part of its record: legal may need new people on a held case.
+  'post /cases/:id/members',
+  'delete /cases/:id/members/:userId',
 ]);
 const NOT_CASE_DATA = /^(post|patch|delete) \/(auth|users|keys\/rotate|archives\/verify|cases$)/;
 

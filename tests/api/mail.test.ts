@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { as, submittedCase } from '../support/case-work-fixtures';
+import { as, caseWithDraft, submittedCase } from '../support/case-work-fixtures';
 import { startCapturingSmtp } from '../support/fake-smtp';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -32,6 +32,29 @@ describe('notifications', () => {
     const returned = smtp.messages.find((m) => m.subject.includes('returned with comments'));
     expect(returned?.to).toEqual(['investigator@driftcase.example']);
     expect(returned?.text).toContain('Cite the replay.');
+  });
+
+  it("mails a submission to the case's reviewers, and to every reviewer when the case has none", async () => {
+    const second = await as(t, 'admin').post('/api/users', {
+      email: 'second-reviewer@driftcase.example',
+      name: 'Sol Ferreira',
+      role: 'reviewer',
+      password: 'second-reviewer-pw',
+    });
+    expect(second.status).toBe(201);
+    const recipientsOfSubmit = async (caseId: string) => {
+      await as(t, 'investigator').post(`/api/cases/${caseId}/findings/submit`);
+      await t.app.locals.services.mailQueue.processDue();
+      const reference = (await as(t, 'investigator').get(`/api/cases/${caseId}`)).body.reference;
+      return smtp.messages.find((m) => m.subject.includes(`${reference}: findings v1 ready`))?.to;
+    };
+    // The demo reviewer is on this case; the second reviewer is not, so is not mailed.
+    expect(await recipientsOfSubmit(await caseWithDraft(t))).toEqual(['reviewer@driftcase.example']);
+    const unreviewed = await caseWithDraft(t, undefined, { team: ['engineer'] });
+    expect((await recipientsOfSubmit(unreviewed))?.slice().sort()).toEqual([
+      'reviewer@driftcase.example',
+      'second-reviewer@driftcase.example',
+    ]);
   });
 
   it('keeps a failed send queued with backoff and never fails the action', async () => {

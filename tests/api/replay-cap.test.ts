@@ -78,3 +78,31 @@ describe('MAX_RUNNING_REPLAYS_PER_USER', () => {
     expect(statuses.filter((status) => status === 429)).toHaveLength(4);
   });
 });
+
+describe('the system’s own replays', () => {
+  it('do not use up a person’s allowance: the demo seed’s replays leave that person free to start one', async () => {
+    const headers = await as('engineer');
+    const engineer = (await request(t.app).get('/api/auth/me').set(headers)).body.user;
+    const actor = { id: engineer.id, email: engineer.email, role: 'engineer' as const };
+    // A clean start: nothing of the tests above still running.
+    const listed = await request(t.app).get(`/api/bundles/${bundleId}/replays`).set(headers);
+    for (const replay of listed.body.items as { id: string; status: string }[]) {
+      if (replay.status !== 'queued' && replay.status !== 'running') continue;
+      await request(t.app).delete(`/api/replays/${replay.id}`).set(headers);
+      await waitForReplay(t.app, await t.tokenFor('engineer'), replay.id);
+    }
+    // Started as the seed starts them (api/src/seed/seed-demo.ts): more than the cap, in one person's name.
+    const system = [];
+    for (let i = 0; i < 3; i++)
+      system.push(
+        await t.app.locals.services.replays.startReplay(bundleId, { label: `seed ${i}` }, actor, {
+          capped: false,
+        }),
+      );
+    // Both of the engineer's own places are still free; a third is refused as before.
+    expect((await start('engineer')).status).toBe(202);
+    expect((await start('engineer')).status).toBe(202);
+    expect((await start('engineer')).status).toBe(429);
+    for (const replay of system) await request(t.app).delete(`/api/replays/${replay.id}`).set(headers);
+  });
+});

@@ -53,6 +53,10 @@ describe('one engine, one digest', () => {
     expect(stop).toMatchObject({ t: 23, suggested_class: 'near_miss' });
     for (const key of ['speed', 'clearance', 'stopping_distance', 'margin', 'margin_negative_since'])
       expect(stop).toHaveProperty(key);
+    // Probable causes: the same list from the CLI and the API, the slip (catalog.json) on top.
+    expect(single.body.causes).toEqual(first.causes);
+    expect(first.causes[0]).toMatchObject({ kind: 'odometry_fault' });
+    expect(first.causes[0].counterfactuals[0].digest).toMatch(/^[0-9a-f]{64}$/);
     // The wheel slip (18 s to 22 s, sample-logs/catalog.json) is flagged by the API replay too.
     expect(
       replay.flags.some((f) => f.kind === 'odometry_disagrees_with_scans' && f.start <= 21 && f.end >= 18),

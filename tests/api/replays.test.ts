@@ -4,7 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { validateBundleFiles } from '../../shared/bundle/validate-bundle-files';
 import type { TReplay, TReplayStepResponse } from '../../shared/contracts/replays';
 import { DIGEST_LAYOUT, ENGINE_VERSION, replayFromFiles } from '../../shared/engine';
+import { findProbableCauses } from '../../shared/engine/causes/find-probable-causes';
 import { runReplay } from '../../shared/engine/filter';
+import { detectFlags } from '../../shared/engine/flags/detect-flags';
 import { resolveReplaySettings } from '../../shared/engine/settings';
 import { makeBundleFiles, withFile, writeBundleZip } from '../support/bundle-fixtures';
 import { type CaseTestbed, createCaseTestbed } from '../support/case-testbed';
@@ -88,6 +90,19 @@ describe('replays over the API', () => {
     );
     expect(actions).toContain(`bundle.upload ${bundleId}`);
     expect(actions).toContain(`replay.start ${replay.id}`);
+  });
+
+  it('serves the probable causes on the replay, as the engine finds them in-process, and not in lists', async () => {
+    const detail = await request(t.app).get(`/api/replays/${replay.id}`).set(auth()).expect(200);
+    // Reference: the same bundle replayed and analysed in this process, outside the server.
+    const local = replayFromFiles(files, {}, { keyframeInterval: 0 });
+    expect(detail.body.digest).toBe(local.digest);
+    const flags = detectFlags({ ...local, context: local.context });
+    const expected = JSON.parse(JSON.stringify(findProbableCauses({ ...local, flags })));
+    expect(detail.body.causes).toEqual(expected);
+    expect(detail.body.causes.length).toBeGreaterThan(0);
+    const list = await request(t.app).get(`/api/bundles/${bundleId}/replays`).set(auth()).expect(200);
+    expect(list.body.items[0].causes).toBeUndefined();
   });
 
   it('lists the replay on its bundle and serves the series', async () => {

@@ -6,21 +6,25 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEntries } from '../../api/src/db/schema';
 import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ROLES, type Role } from '../../shared/roles';
+import { ACCESS_POLICY, isAllowedByPolicy } from '../support/access-policy';
 import { archiveSamples } from '../support/archive-samples';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-fixtures';
 import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { evidenceSamples } from '../support/evidence-samples';
+import { memberSamples } from '../support/member-samples';
 import { writeMcap } from '../support/recordings/write-mcap';
 import { replayToEnd } from '../support/replay-runs';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
- * Calls every route as every role and with no session. A role the route names must get a 2xx,
- * any other role 403, no session 401. Each route needs a valid sample request below, so a new
- * route cannot be added without joining the matrix. Each call's audit entries are read back: a
- * successful call of a route that declares an audit action leaves exactly that entry (and any
- * `case.transition` it causes), every other call leaves none.
+ * Calls every route as every role and with no session, first as members of the case the call is
+ * about, then as people of each role who are not members. The expected answer comes from the
+ * hand-written policy in tests/support/access-policy.ts, not from the routes' own declarations:
+ * an allowed call must get a 2xx, a refused one 403, no session 401. Each route needs a valid
+ * sample request below, so a new route cannot be added without joining the matrix. Each call's
+ * audit entries are read back: a successful call of a route that declares an audit action leaves
+ * exactly that entry (and any `case.transition` it causes), every other call leaves none.
  */
 interface Sample {
   path: string;
@@ -51,6 +55,7 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
   ...archiveSamples(() => t),
   ...evidenceSamples(() => t),
   ...bundleViewSamples(),
+  ...memberSamples(() => t),
   'get /health': () => ({ path: '/api/health' }),
   'get /site': () => ({ path: '/api/site' }),
   'post /auth/login': () => ({
@@ -118,9 +123,33 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
   'get /replays/:id/disagreement': (f) => ({ path: `/api/replays/${f.replayId}/disagreement` }),
 };
 
+/** Who calls: a demo account (a member of every case the samples use) or an outsider of that role. */
+interface Caller {
+  role: Role;
+  email: string;
+  password: string;
+  isMember: boolean;
+}
+
+const OUTSIDER_PASSWORD = 'outsider-password-1';
+const WORKING_ROLES = ['investigator', 'reviewer', 'engineer', 'legal'] as const satisfies readonly Role[];
+const memberCaller = (role: Role): Caller => ({
+  role,
+  email: `${role}@driftcase.example`,
+  password: 'driftcase-demo',
+  isMember: true,
+});
+const outsiderCaller = (role: Role): Caller => ({
+  role,
+  email: `outsider-${role}@driftcase.example`,
+  password: OUTSIDER_PASSWORD,
+  isMember: false,
+});
+
 let t: TestApp;
 let fixtures: Fixtures;
 let specs: RouteSpec[];
+const outsiderTokens = new Map<Role, string>();
 
 beforeAll(async () => {
   // Refused cancel calls leave their long replays running, all started by one investigator.
@@ -134,6 +163,19 @@ beforeAll(async () => {
   const freshBundleZip = () =>
     writeBundleZip(path.join(zipDir, `b${zipCount}.zip`), makeBundleFiles({ steps: 10 + zipCount++ }));
   const caseId = cases.body.items[0].id;
+  for (const role of WORKING_ROLES) {
+    const outsider = outsiderCaller(role);
+    await request(t.app)
+      .post('/api/users')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: outsider.email, name: `Outside ${role}`, role, password: outsider.password })
+      .expect(201);
+    const signedIn = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: outsider.email, password: outsider.password })
+      .expect(200);
+    outsiderTokens.set(role, signedIn.body.token);
+  }
   const investigator = await t.tokenFor('investigator');
   const uploaded = await request(t.app)
     .post(`/api/cases/${caseId}/bundles`)
@@ -199,21 +241,25 @@ function auditProblem(spec: RouteSpec, isSuccess: boolean, entries: { action: st
  * Prepares a call (sample state, sign-in) and returns a function that sends it, so the audit
  * entries of the call itself can be told apart from those of its preparation.
  */
-async function callAs(spec: RouteSpec, role: Role | null) {
+async function callAs(spec: RouteSpec, caller: Caller | null) {
+  const role = caller?.role ?? null;
   const sample = await SAMPLES[`${spec.method} ${spec.path}`](fixtures, role);
   let req = request(t.app)[spec.method](sample.path);
-  if (role) {
+  if (caller) {
     const token = sample.needsFreshSession
       ? (
           await request(t.app)
             .post('/api/auth/login')
-            .send({ email: `${role}@driftcase.example`, password: 'driftcase-demo' })
+            .send({ email: caller.email, password: caller.password })
         ).body.token
-      : await t.tokenFor(role);
+      : caller.isMember
+        ? await t.tokenFor(caller.role)
+        : outsiderTokens.get(caller.role);
     req = req.set('Authorization', `Bearer ${token}`);
   }
-  // The access check runs before the upload is read, so refused callers send no file: the server
-  // answers without reading the body, and a streamed file would break the pipe.
+  // The role check runs before the upload is read, so callers it refuses send no file: the server
+  // answers without reading the body, and a streamed file would break the pipe. Callers it lets
+  // through send the file, so the membership check after it is reached.
   const isAllowed = spec.access === 'public' || (role !== null && spec.access.includes(role));
   const prepared = req;
   // Awaiting a supertest request sends it, so it is wrapped until the caller is ready.
@@ -227,25 +273,32 @@ describe('role x route matrix', () => {
     expect(missing).toEqual([]);
   });
 
-  it('answers each role as the route declares', async () => {
+  it('has a hand-written policy for every route', () => {
+    const missing = specs.map((s) => `${s.method} ${s.path}`).filter((key) => !ACCESS_POLICY[key]);
+    expect(missing).toEqual([]);
+  });
+
+  it('answers each role, as a member of the case, as the policy says', async () => {
     const failures: string[] = [];
     for (const spec of specs) {
+      const route = `${spec.method} ${spec.path}`;
       const key = `${spec.method.toUpperCase()} ${spec.path}`;
+      const isPublic = isAllowedByPolicy(route, null, true);
       const anonymousCall = await callAs(spec, null);
       let before = await lastAuditId();
       const anonymous = await anonymousCall();
-      const isPublicSuccess = spec.access === 'public' && anonymous.status >= 200 && anonymous.status < 300;
+      const isPublicSuccess = isPublic && anonymous.status >= 200 && anonymous.status < 300;
       const anonymousAudit = auditProblem(spec, isPublicSuccess, await auditEntriesAfter(before));
       if (anonymousAudit) failures.push(`${key} with no session: ${anonymousAudit}`);
-      const expectedAnonymous = spec.access === 'public' ? 'success' : 401;
-      if (spec.access === 'public' ? anonymous.status >= 300 : anonymous.status !== 401) {
+      const expectedAnonymous = isPublic ? 'success' : 401;
+      if (isPublic ? anonymous.status >= 300 : anonymous.status !== 401) {
         failures.push(`${key} with no session: got ${anonymous.status}, expected ${expectedAnonymous}`);
       }
       for (const role of ROLES) {
-        const call = await callAs(spec, role);
+        const call = await callAs(spec, memberCaller(role));
         before = await lastAuditId();
         const res = await call();
-        const isAllowed = spec.access === 'public' || spec.access.includes(role);
+        const isAllowed = isAllowedByPolicy(route, role, true);
         const isSuccess = isAllowed && res.status >= 200 && res.status < 300;
         const audited = auditProblem(spec, isSuccess, await auditEntriesAfter(before));
         if (audited) failures.push(`${key} as ${role}: ${audited}`);
@@ -259,6 +312,37 @@ describe('role x route matrix', () => {
     }
     expect(failures).toEqual([]);
   }, 240_000); // about 800 calls; the shared 2-core machine can take minutes under load
+
+  it('answers people of each role who are not members of the case as the policy says, naming the case', async () => {
+    const failures: string[] = [];
+    for (const spec of specs) {
+      const route = `${spec.method} ${spec.path}`;
+      if (spec.access === 'public') continue;
+      for (const role of WORKING_ROLES) {
+        const call = await callAs(spec, outsiderCaller(role));
+        const before = await lastAuditId();
+        const res = await call();
+        const isAllowed = isAllowedByPolicy(route, role, false);
+        const isSuccess = isAllowed && res.status >= 200 && res.status < 300;
+        const audited = auditProblem(spec, isSuccess, await auditEntriesAfter(before));
+        const label = `${spec.method.toUpperCase()} ${spec.path} as a non-member ${role}`;
+        if (audited) failures.push(`${label}: ${audited}`);
+        if (isAllowed && !isSuccess) {
+          failures.push(`${label}: got ${res.status} ${JSON.stringify(res.body)}, expected 2xx`);
+        } else if (!isAllowed && (res.status !== 403 || res.body.error?.code !== 'forbidden')) {
+          failures.push(`${label}: got ${res.status}, expected 403 forbidden`);
+        } else if (
+          !isAllowed &&
+          spec.access.includes(role) &&
+          !/case DC-\d{4}/.test(res.body.error.message)
+        ) {
+          // Refused by membership rather than by role: the message names the case in plain words.
+          failures.push(`${label}: the refusal does not name the case: ${res.body.error.message}`);
+        }
+      }
+    }
+    expect(failures).toEqual([]);
+  }, 240_000);
 
   it('declares an audit action on every write route (the matrix above checks each one is written)', () => {
     const unaudited = specs.filter((s) => s.method !== 'get' && !s.audit).map((s) => `${s.method} ${s.path}`);

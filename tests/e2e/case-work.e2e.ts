@@ -80,6 +80,10 @@ describe('case work', () => {
       .getByText(/digest [0-9a-f]{16,}/)
       .first()
       .waitFor();
+    // Cited by name, opening the replay it cites (not by its id).
+    const cited = investigator.getByTestId('evidence-citation').getByRole('link', { name: replayLabel });
+    await cited.waitFor();
+    expect(await cited.getAttribute('href')).toContain(`replay=`);
     await investigator.getByRole('button', { name: 'Add corrective action' }).click();
     await investigator
       .getByLabel('Corrective action 1', { exact: true })

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import type { TFindingsDraft } from '../../shared/contracts/findings';
 import type { Role } from '../../shared/roles';
+import { addDemoMembers, DEMO_TEAM } from './case-members';
 import type { TestApp } from './test-app';
 
 /** A complete, invented set of findings (Harbourline yard, robot HL-07). */
@@ -41,7 +42,15 @@ function expectStatus(res: request.Response, status: number, what: string) {
   return res;
 }
 
-export async function createCase(t: TestApp, title = 'Dock 4 contact'): Promise<string> {
+/**
+ * A case opened by the demo investigator, who then adds `team` (by default the demo reviewer,
+ * engineer and legal) as members, as its creator would before handing work on.
+ */
+export async function createCase(
+  t: TestApp,
+  title = 'Dock 4 contact',
+  { team = DEMO_TEAM }: { team?: readonly Role[] } = {},
+): Promise<string> {
   const res = await as(t, 'investigator').post('/api/cases', {
     title,
     site: 'Harbourline yard',
@@ -49,11 +58,17 @@ export async function createCase(t: TestApp, title = 'Dock 4 contact'): Promise<
     incidentTime: '2026-10-03T06:41:00Z',
     severity: 'medium',
   });
-  return expectStatus(res, 201, 'create case').body.id;
+  const caseId = expectStatus(res, 201, 'create case').body.id;
+  await addDemoMembers(t, caseId, team);
+  return caseId;
 }
 
-export async function caseWithDraft(t: TestApp, content: TFindingsDraft = SAMPLE_FINDINGS): Promise<string> {
-  const caseId = await createCase(t);
+export async function caseWithDraft(
+  t: TestApp,
+  content: TFindingsDraft = SAMPLE_FINDINGS,
+  options: { team?: readonly Role[] } = {},
+): Promise<string> {
+  const caseId = await createCase(t, undefined, options);
   expectStatus(await as(t, 'investigator').put(`/api/cases/${caseId}/findings`, content), 200, 'save draft');
   return caseId;
 }

@@ -36,6 +36,7 @@ export function caseWorkSamples(
         ? { path: `/api/cases/${(await signedCase(app())).caseId}/transitions`, body: { to: 'closed' } }
         : { path: `/api/cases/${await createCase(app())}/transitions`, body: { to: 'analysing' } },
     'get /cases/:id/findings': (f) => ({ path: `/api/cases/${f.caseId}/findings` }),
+    'get /cases/:id/evidence-names': (f) => ({ path: `/api/cases/${f.caseId}/evidence-names` }),
     'put /cases/:id/findings': async () => ({
       path: `/api/cases/${await createCase(app())}/findings`,
       body: SAMPLE_FINDINGS,

@@ -5,7 +5,7 @@ import { BUNDLE_STATUSES } from '../../shared/contracts/bundles';
 import { CASE_STAGES, CASE_STATUSES, SEVERITIES } from '../../shared/contracts/cases';
 import { VERSION_STATES } from '../../shared/contracts/findings';
 import { REPLAY_STATUSES } from '../../shared/contracts/replays';
-import { FLAG_KIND_LABELS } from '../../shared/human-labels';
+import { CAUSE_KIND_LABELS, FLAG_KIND_LABELS } from '../../shared/human-labels';
 import { ROLES } from '../../shared/roles';
 
 /**
@@ -26,6 +26,7 @@ const CODES = [
   ...CASE_STAGES,
   ...ROLES,
   ...Object.keys(FLAG_KIND_LABELS),
+  ...Object.keys(CAUSE_KIND_LABELS),
   'info',
   'warning',
   'signoff',

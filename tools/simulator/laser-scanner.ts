@@ -21,6 +21,11 @@ export interface LaserNoise {
   dropoutRate: number;
   /** Probability of a short spurious return (dust, a passing leg), uniform before the true hit. */
   shortReturnRate: number;
+  /**
+   * Beams first..last (indices) misbehave whatever they look at: a frosted or dirty part of the
+   * window returning short ranges uniform in `short` (m), or, without `short`, returning nothing.
+   */
+  sector?: { first: number; last: number; short?: readonly [number, number] };
 }
 
 export const HEALTHY_LASER: LaserNoise = { rangeSigma: 0.02, dropoutRate: 0.01, shortReturnRate: 0.005 };
@@ -63,6 +68,11 @@ export function simulateScan(
   const measured: (number | null)[] = new Array(trueRanges.length);
   for (let k = 0; k < trueRanges.length; k++) {
     const truth = trueRanges[k];
+    const sector = noise.sector;
+    if (sector && k >= sector.first && k <= sector.last) {
+      measured[k] = sector.short ? random.uniformBetween(sector.short[0], sector.short[1]) : null;
+      continue;
+    }
     if (!Number.isFinite(truth) || random.chance(noise.dropoutRate)) {
       measured[k] = null;
       continue;

@@ -215,6 +215,7 @@ export function runScenario(spec: ScenarioSpec, settings: RunSettings): Simulati
       random.odometry,
     );
     if (isActive(spec.slip, t)) measured.rot2 += spec.slip!.yawRate * STEP_SECONDS;
+    if (isActive(spec.encoderScale, t)) measured.trans *= spec.encoderScale!.factor;
     const odometryDelta = incrementToPose(measured);
     odometry = composePose(odometry, odometryDelta);
     onboard.update(truth, odometryDelta);
@@ -235,6 +236,10 @@ export function runScenario(spec: ScenarioSpec, settings: RunSettings): Simulati
   }
 
   if (spec.slip) record.faults.push({ kind: 'wheel_slip', start: spec.slip.start, end: spec.slip.end });
+  if (spec.encoderScale) {
+    const { start, end } = spec.encoderScale;
+    record.faults.push({ kind: 'encoder_scale', start, end });
+  }
   if (spec.push) {
     const end = Number((spec.push.start + spec.push.duration).toFixed(1));
     record.faults.push({ kind: 'kidnap', start: spec.push.start, end });

@@ -8,7 +8,7 @@ export type Waypoints = ReadonlyArray<readonly [number, number]>;
 
 /** A fault as the catalog lists it: kind and interval in bundle seconds. */
 export interface InjectedFault {
-  kind: 'wheel_slip' | 'moved_rack' | 'kidnap' | 'degraded_sensor';
+  kind: 'wheel_slip' | 'moved_rack' | 'kidnap' | 'degraded_sensor' | 'encoder_scale';
   start: number;
   end: number;
 }
@@ -40,6 +40,8 @@ export interface ScenarioSpec {
   odometryAlpha?: readonly [number, number, number, number];
   /** Odometry reports an extra yaw rate (rad/s) the robot never turned: a wheel spinning on a wet patch. */
   slip?: { start: number; end: number; yawRate: number };
+  /** Odometry reports travelled distance times `factor` (a worn or mis-set wheel radius), from start to end (s). */
+  encoderScale?: { start: number; end: number; factor: number };
   /** An outside force shoves the robot sideways (m, robot frame +y = left) while the wheels see nothing. */
   push?: { start: number; duration: number; lateral: number; rotation: number; detail: string };
   degradedLaser?: { start: number; end: number; noise: LaserNoise };

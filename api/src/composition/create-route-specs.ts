@@ -6,6 +6,7 @@ import { auditRoutes } from '../routes/audit';
 import { authRoutes } from '../routes/auth';
 import { bookmarkRoutes } from '../routes/bookmarks';
 import { bundleRoutes } from '../routes/bundles';
+import { caseMemberRoutes } from '../routes/case-members';
 import { caseRoutes } from '../routes/cases';
 import { evidenceOrphanRoutes } from '../routes/evidence-orphans';
 import { findingsRoutes } from '../routes/findings';
@@ -35,6 +36,7 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...authRoutes(services.auth, sessionCookieOptions(config)),
     ...userRoutes(services.users),
     ...caseRoutes(services.cases),
+    ...caseMemberRoutes(services.caseMembers),
     ...bundleRoutes(services.bundles, uploads),
     ...evidenceOrphanRoutes(services.evidenceOrphans),
     ...recordingRoutes(services.recordings, uploads),

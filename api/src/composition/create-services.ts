@@ -22,6 +22,7 @@ import { createLifecycleService } from '../services/lifecycle/lifecycle-service'
 import { createMailQueue } from '../services/mail/mail-queue';
 import { createNotifications } from '../services/mail/notifications';
 import { createOutboxService } from '../services/mail/outbox-service';
+import { createCaseMembersService } from '../services/membership/case-members-service';
 import { createRecordingsService } from '../services/recordings/recordings-service';
 import { createReplaysService } from '../services/replays/replays-service';
 import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
@@ -60,13 +61,14 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const holds = createHoldsService({ db, audit });
   const lifecycle = createLifecycleService({ db, audit });
   const cases = createCasesService({ db, audit, lifecycle });
+  const caseMembers = createCaseMembersService({ db, audit });
 
   const evidence = createEvidenceStore(config.dataDir);
   const evidenceOrphans = createEvidenceOrphans({ db, evidence, dataDir: config.dataDir });
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
-  const recordings = createRecordingsService({ audit, bundles, evidence });
+  const recordings = createRecordingsService({ db, audit, bundles, evidence });
   const replayWorkers = replayPool ?? createReplayPool();
   const replays = createReplaysService({
     ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },
@@ -93,19 +95,20 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
 
   const checkpoints = createCheckpointService({ db, keys, notify, dataDir: config.dataDir, logger });
   const archives = createArchiveService({
+    db,
     sources: {
       getCase: cases.getCase,
-      listCaseBundles: bundles.listCaseBundles,
+      listCaseBundles: bundles.readCaseBundles,
       originalPathFor: evidence.pathFor,
-      listBundleReplays: replays.listBundleReplays,
+      listBundleReplays: replays.readBundleReplays,
       replayResultDir: replays.resultDir,
-      listFindingsVersions: findings.listVersions,
-      getFindingsVersion: reviews.getVersion,
-      listFixes: fixes.listFixes,
+      listFindingsVersions: findings.readVersions,
+      getFindingsVersion: reviews.readVersion,
+      listFixes: fixes.readFixes,
       readCaseChain: audit.readCaseChain,
       checkpointLines: checkpoints.linesOfChain,
       jwks: keys.jwks,
-      workspace: { listBookmarks: bookmarks.listBookmarks, listSavedQueries: savedQueries.listQueries },
+      workspace: { listBookmarks: bookmarks.readBookmarks, listSavedQueries: savedQueries.readQueries },
     },
     ...{ keys, audit, notify, checkpoints, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
   });
@@ -118,6 +121,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     holds,
     lifecycle,
     cases,
+    caseMembers,
     evidence,
     evidenceOrphans,
     bundles,

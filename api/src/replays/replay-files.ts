@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { TReplayFlag } from '../../../shared/contracts/replays';
+import type { TProbableCause, TReplayFlag } from '../../../shared/contracts/replays';
+import type { ProbableCause } from '../../../shared/engine/causes/cause-types';
 import type { EngineStamp } from '../../../shared/engine/engine-version';
 import type { ReplayResult } from '../../../shared/engine/filter';
 import type { Keyframe } from '../../../shared/engine/particle-state';
@@ -14,7 +15,8 @@ import type { SafetyReport } from '../../../shared/safety/safety-report';
  * - `series.json`: one array per diagnostic (null for NaN), as served to the timeline;
  * - `keyframes.bin`: for each keyframe, float64 x[count], y[count], theta[count], logWeight[count];
  * - `disagreement.bin`: uint32 per map cell (row 0 northmost);
- * - `safety.json`: the separation and stopping analysis (shared/safety), absent for older replays.
+ * - `safety.json`: the separation and stopping analysis (shared/safety), absent for older replays;
+ * - `causes.json`: the probable causes (shared/engine/causes), absent for older replays.
  * Files are written to a temporary name and renamed, so a crash never leaves a half result.
  */
 export interface ReplayResultFile {
@@ -59,6 +61,7 @@ export function writeReplayFiles(
     divergedAt: number | null;
     engine: EngineStamp;
     safety?: SafetyReport;
+    causes?: ProbableCause[];
   },
 ): ReplayResultFile {
   fs.mkdirSync(dir, { recursive: true });
@@ -95,6 +98,7 @@ export function writeReplayFiles(
   writeAtomically(path.join(dir, 'disagreement.bin'), new Uint8Array(result.disagreementCounts.buffer));
   writeAtomically(path.join(dir, 'series.json'), JSON.stringify(seriesToColumns(result.series)));
   if (extra.safety) writeAtomically(path.join(dir, 'safety.json'), JSON.stringify(extra.safety));
+  if (extra.causes) writeAtomically(path.join(dir, 'causes.json'), JSON.stringify(extra.causes));
   // Written last: its presence marks a complete result.
   writeAtomically(path.join(dir, 'result.json'), JSON.stringify(file));
   return file;
@@ -128,11 +132,17 @@ export function readDisagreement(dir: string): Uint32Array {
   return new Uint32Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
 }
 
-/** The replay's separation and stopping analysis, or null when it has none (made before it existed). */
-export function readSafety(dir: string): SafetyReport | null {
+/** A derived JSON file of the replay, or null when it has none (made before the file existed). */
+function readOptionalJson<T>(dir: string, name: string): T | null {
   try {
-    return JSON.parse(fs.readFileSync(path.join(dir, 'safety.json'), 'utf8')) as SafetyReport;
+    return JSON.parse(fs.readFileSync(path.join(dir, name), 'utf8')) as T;
   } catch {
     return null;
   }
 }
+
+/** The replay's separation and stopping analysis, or null when it has none (made before it existed). */
+export const readSafety = (dir: string) => readOptionalJson<SafetyReport>(dir, 'safety.json');
+
+/** The replay's probable causes (NaN values were written as null), or null when it has none. */
+export const readCauses = (dir: string) => readOptionalJson<TProbableCause[]>(dir, 'causes.json');

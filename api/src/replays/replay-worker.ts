@@ -1,6 +1,7 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { TReplayFlag } from '../../../shared/contracts/replays';
 import { replayBundle } from '../../../shared/engine';
+import { findProbableCauses } from '../../../shared/engine/causes/find-probable-causes';
 import { adoptSplit, finishSplit, type SplitBuffers } from '../../../shared/engine/particle-split';
 import { buildReplayContext } from '../../../shared/engine/replay-context';
 import type { TReplayOverrides } from '../../../shared/engine/settings';
@@ -81,9 +82,12 @@ async function runReplayTask(task: ReplayTask): Promise<ReplayResultFile> {
       result,
       context,
     );
+    // After the replay and from its results only, so the causes cannot change its digest.
+    const causes = findProbableCauses({ ...result, bundle, context, flags: analysis.flags });
     return writeReplayFiles(task.outDir, result, {
       elapsedMs,
       ...analysis,
+      causes,
       safety: safety.finish(result.series),
       engine: nodeEngineStamp(),
     });

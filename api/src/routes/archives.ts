@@ -51,7 +51,7 @@ export function archiveRoutes(archives: ArchiveService, options: ArchiveRouteOpt
       path: '/cases/:id/archives',
       access: ['legal', 'reviewer', 'admin'],
       handler: async (req, res) => {
-        res.json({ items: await archives.listExports(ZCaseParams.parse(req.params).id) });
+        res.json({ items: await archives.listExports(ZCaseParams.parse(req.params).id, req.user) });
       },
     },
     {

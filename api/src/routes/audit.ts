@@ -1,4 +1,4 @@
-import { auditChainOf, verifyAuditChain } from '../../../shared/audit-chain';
+import { type AuditChainEntry, auditChainOf, verifyAuditChain } from '../../../shared/audit-chain';
 import { ZAuditListQuery } from '../../../shared/contracts/audit';
 import type { RouteSpec } from '../http/route-spec';
 import type { AuditService } from '../services/audit/audit-service';
@@ -8,8 +8,11 @@ import { ZCaseParams } from './cases';
 const AUDIT_READERS = ['reviewer', 'legal', 'admin'] as const;
 
 /** The chain's own hash check plus its comparison with the signed checkpoints kept outside the database. */
-async function verifyWithCheckpoints(audit: AuditService, checkpoints: CheckpointService, chain: string) {
-  const entries = await audit.readChain(chain);
+async function verifyWithCheckpoints(
+  checkpoints: CheckpointService,
+  chain: string,
+  entries: AuditChainEntry[],
+) {
   const report = verifyAuditChain(entries);
   const compared = await checkpoints.compareChain(chain, entries);
   return { ...report, ok: report.ok && compared.problems.length === 0, checkpoints: compared };
@@ -23,7 +26,7 @@ export function auditRoutes(audit: AuditService, checkpoints: CheckpointService)
       access: AUDIT_READERS,
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json(await audit.listCaseEntries(id, ZAuditListQuery.parse(req.query)));
+        res.json(await audit.listCaseEntries(id, ZAuditListQuery.parse(req.query), req.user));
       },
     },
     {
@@ -32,7 +35,13 @@ export function auditRoutes(audit: AuditService, checkpoints: CheckpointService)
       access: AUDIT_READERS,
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json(await verifyWithCheckpoints(audit, checkpoints, auditChainOf(id)));
+        res.json(
+          await verifyWithCheckpoints(
+            checkpoints,
+            auditChainOf(id),
+            await audit.readCaseChainFor(id, req.user),
+          ),
+        );
       },
     },
     {
@@ -48,7 +57,8 @@ export function auditRoutes(audit: AuditService, checkpoints: CheckpointService)
       path: '/audit/verify',
       access: ['admin', 'legal'],
       handler: async (_req, res) => {
-        res.json(await verifyWithCheckpoints(audit, checkpoints, auditChainOf(null)));
+        const chain = auditChainOf(null);
+        res.json(await verifyWithCheckpoints(checkpoints, chain, await audit.readChain(chain)));
       },
     },
   ];

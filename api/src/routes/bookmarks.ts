@@ -15,7 +15,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       path: '/cases/:id/bookmarks',
       access: ROLES,
       handler: async (req, res) => {
-        res.json({ items: await bookmarks.listBookmarks(ZCaseParams.parse(req.params).id) });
+        res.json({ items: await bookmarks.listBookmarks(ZCaseParams.parse(req.params).id, req.user) });
       },
     },
     {
@@ -34,7 +34,7 @@ export function bookmarkRoutes(bookmarks: BookmarksService): RouteSpec[] {
       path: '/bookmarks/:id',
       access: ROLES,
       handler: async (req, res) => {
-        res.json(await bookmarks.getBookmark(ZBookmarkParams.parse(req.params).id));
+        res.json(await bookmarks.getBookmark(ZBookmarkParams.parse(req.params).id, req.user));
       },
     },
     {

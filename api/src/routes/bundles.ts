@@ -81,7 +81,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json({ items: await bundles.listCaseBundles(id) });
+        res.json({ items: await bundles.listCaseBundles(id, req.user) });
       },
     },
     {
@@ -90,7 +90,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZBundleParams.parse(req.params);
-        res.json(await bundles.getBundle(id));
+        res.json(await bundles.getBundle(id, req.user));
       },
     },
     {
@@ -99,7 +99,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ROLES,
       handler: async (req, res) => {
         const { id, name } = ZTableParams.parse(req.params);
-        const file = await bundles.tableFile(id, name);
+        const file = await bundles.tableFile(id, name, req.user);
         await sendStoredFile(res, file, {
           what: `table ${name} of bundle ${id}`,
           headers: {
@@ -115,7 +115,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZBundleParams.parse(req.params);
-        const original = await bundles.originalFile(id);
+        const original = await bundles.originalFile(id, req.user);
         res.download(original.path, original.name);
       },
     },
@@ -126,7 +126,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       handler: async (req, res) => {
         const { id } = ZBundleParams.parse(req.params);
         res.setHeader('Cache-Control', 'private, max-age=3600');
-        res.json(await bundles.bundleMap(id));
+        res.json(await bundles.bundleMap(id, req.user));
       },
     },
     {
@@ -136,7 +136,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       handler: async (req, res) => {
         const { id } = ZBundleParams.parse(req.params);
         res.setHeader('Cache-Control', 'private, max-age=3600');
-        res.json(await bundles.bundleTracks(id));
+        res.json(await bundles.bundleTracks(id, req.user));
       },
     },
     {
@@ -145,7 +145,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ROLES,
       handler: async (req, res) => {
         const { id, replayId } = ZReplayOfBundleParams.parse(req.params);
-        res.json(await bundles.replayClearance(id, replayId));
+        res.json(await bundles.replayClearance(id, replayId, req.user));
       },
     },
   ];

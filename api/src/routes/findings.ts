@@ -20,7 +20,15 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       path: '/cases/:id/findings',
       access: ROLES,
       handler: async (req, res) => {
-        res.json(await findings.getFindings(ZCaseParams.parse(req.params).id));
+        res.json(await findings.getFindings(ZCaseParams.parse(req.params).id, req.user));
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/evidence-names',
+      access: ROLES,
+      handler: async (req, res) => {
+        res.json(await findings.getEvidenceNames(ZCaseParams.parse(req.params).id));
       },
     },
     {
@@ -50,7 +58,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       path: '/cases/:id/findings/versions',
       access: ROLES,
       handler: async (req, res) => {
-        res.json({ items: await findings.listVersions(ZCaseParams.parse(req.params).id) });
+        res.json({ items: await findings.listVersions(ZCaseParams.parse(req.params).id, req.user) });
       },
     },
     {
@@ -59,7 +67,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       access: ROLES,
       handler: async (req, res) => {
         const { id, v } = ZVersionParams.parse(req.params);
-        res.json(await reviews.getVersion(id, v));
+        res.json(await reviews.getVersion(id, v, req.user));
       },
     },
     {
@@ -69,7 +77,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       handler: async (req, res) => {
         const { id, v } = ZVersionParams.parse(req.params);
         const { against } = ZDiffQuery.parse(req.query);
-        res.json(await findings.diffVersions(id, against ?? Math.max(1, v - 1), v));
+        res.json(await findings.diffVersions(id, against ?? Math.max(1, v - 1), v, req.user));
       },
     },
     {

@@ -15,7 +15,7 @@ export function fixRoutes(fixes: FixesService): RouteSpec[] {
       path: '/cases/:id/fixes',
       access: ROLES,
       handler: async (req, res) => {
-        res.json({ items: await fixes.listFixes(ZCaseParams.parse(req.params).id) });
+        res.json({ items: await fixes.listFixes(ZCaseParams.parse(req.params).id, req.user) });
       },
     },
     {

@@ -12,7 +12,7 @@ export function holdRoutes(holds: HoldsService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZCaseParams.parse(req.params);
-        res.json({ active: await holds.activeHold(id), history: await holds.listHolds(id) });
+        res.json(await holds.holdStatus(id, req.user));
       },
     },
     {

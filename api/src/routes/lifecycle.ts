@@ -11,7 +11,7 @@ export function lifecycleRoutes(lifecycle: LifecycleService): RouteSpec[] {
       path: '/cases/:id/lifecycle',
       access: ROLES,
       handler: async (req, res) => {
-        res.json(await lifecycle.getLifecycle(ZCaseParams.parse(req.params).id));
+        res.json(await lifecycle.getLifecycle(ZCaseParams.parse(req.params).id, req.user));
       },
     },
     {

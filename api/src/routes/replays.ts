@@ -37,7 +37,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        res.json({ items: await replays.listBundleReplays(id) });
+        res.json({ items: await replays.listBundleReplays(id, req.user) });
       },
     },
     {
@@ -46,7 +46,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        res.json(await replays.getReplayWithSafety(id));
+        res.json(await replays.getReplayWithSafety(id, req.user));
       },
     },
     {
@@ -66,7 +66,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        const replay = await replays.getReplay(id);
+        const replay = await replays.getReplay(id, req.user);
         res.writeHead(200, {
           'Content-Type': 'text/event-stream',
           'Cache-Control': 'no-cache, no-transform',
@@ -103,8 +103,8 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        const replay = await replays.getReplay(id);
-        const file = await replays.seriesFile(id);
+        const replay = await replays.getReplay(id, req.user);
+        const file = await replays.seriesFile(id, req.user);
         const threshold =
           (replay.settings as { resampling?: { threshold?: number } })?.resampling?.threshold ?? null;
         const meta = { steps: replay.steps, neesBound: NEES_BOUND_95, resamplingThreshold: threshold };
@@ -127,7 +127,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       handler: async (req, res) => {
         const { id, k } = ZStepParams.parse(req.params);
         res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
-        res.json(await replays.stepAt(id, k));
+        res.json(await replays.stepAt(id, k, req.user));
       },
     },
     {
@@ -136,7 +136,7 @@ export function replayRoutes(replays: ReplaysService): RouteSpec[] {
       access: ROLES,
       handler: async (req, res) => {
         const { id } = ZId.parse(req.params);
-        await sendStoredFile(res, await replays.disagreementFile(id), {
+        await sendStoredFile(res, await replays.disagreementFile(id, req.user), {
           what: `the map disagreement of replay ${id}`,
           headers: { 'Content-Type': 'application/octet-stream' },
         });

@@ -14,7 +14,7 @@ export function savedQueryRoutes(queries: SavedQueriesService): RouteSpec[] {
       path: '/cases/:id/queries',
       access: ROLES,
       handler: async (req, res) => {
-        res.json({ items: await queries.listQueries(ZCaseParams.parse(req.params).id) });
+        res.json({ items: await queries.listQueries(ZCaseParams.parse(req.params).id, req.user) });
       },
     },
     {
@@ -33,7 +33,7 @@ export function savedQueryRoutes(queries: SavedQueriesService): RouteSpec[] {
       path: '/queries/:id',
       access: ROLES,
       handler: async (req, res) => {
-        res.json(await queries.getQuery(ZQueryParams.parse(req.params).id));
+        res.json(await queries.getQuery(ZQueryParams.parse(req.params).id, req.user));
       },
     },
   ];

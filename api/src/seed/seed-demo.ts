@@ -8,7 +8,7 @@ import type { Actor } from '../services/actor';
 import { DEMO_CASES } from './demo-cases';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 
-export type DemoSeedServices = Pick<Services, 'users' | 'cases' | 'bundles' | 'replays'>;
+export type DemoSeedServices = Pick<Services, 'users' | 'cases' | 'caseMembers' | 'bundles' | 'replays'>;
 
 export interface DemoSeedOptions {
   /**
@@ -34,12 +34,14 @@ export async function seedDemoData(
   }
   const { id, email, role } = people.find((p) => p.role === 'investigator')!;
   const investigator: Actor = { id, email, role };
+  // Every demo account works on every demo case, so each role finds its own work on signing in.
+  const team = people.filter((person) => person.role !== 'investigator' && person.role !== 'admin');
   const { sampleDir } = options;
   const zipDir = sampleDir ? fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-seed-')) : '';
   try {
     for (const { sampleFolder, ...demoCase } of DEMO_CASES) {
       const folder = sampleDir ? path.join(sampleDir, sampleFolder) : undefined;
-      await seedCase(services, demoCase, investigator, { folder, zipDir });
+      await seedCase(services, demoCase, investigator, { folder, zipDir, team: team.map((p) => p.id) });
     }
   } finally {
     if (zipDir) fs.rmSync(zipDir, { recursive: true, force: true });
@@ -51,9 +53,10 @@ async function seedCase(
   services: DemoSeedServices,
   demoCase: TCreateCaseRequest,
   actor: Actor,
-  { folder, zipDir }: { folder?: string; zipDir: string },
+  { folder, zipDir, team }: { folder?: string; zipDir: string; team: string[] },
 ) {
   const created = await services.cases.createCase(demoCase, actor);
+  for (const userId of team) await services.caseMembers.addMember(created.id, { userId }, actor);
   if (!folder || !fs.existsSync(folder)) return;
   const name = path.basename(folder);
   const zip = await zipFolder(folder, path.join(zipDir, `${name}.zip`));

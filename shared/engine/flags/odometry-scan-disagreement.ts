@@ -64,8 +64,11 @@ interface Signals {
   offsetHeading: Float64Array;
 }
 
-/** Trailing sums of the measurement corrections over DRIFT_WINDOW seconds. */
-function sumCorrections(series: ReplaySeries, signals: Signals): void {
+/** Trailing sums of the measurement corrections over DRIFT_WINDOW seconds (heading in rad, position in m). */
+export function sumCorrections(
+  series: ReplaySeries,
+  signals: { heading: Float64Array; position: Float64Array },
+): void {
   let first = 1;
   let sx = 0;
   let sy = 0;

@@ -121,7 +121,7 @@ describe('an upload is recorded before it is read', () => {
     // The next start, with the real reader.
     const restarted = bed.t.app.locals.services.bundles;
     expect(await restarted.finishInterruptedUploads()).toBeGreaterThanOrEqual(1);
-    const finished = await restarted.getBundle(left.id);
+    const finished = await restarted.getBundle(left.id, actor);
     expect(finished.status).toBe('valid');
     expect(finished.sha256).toBe(sha256);
     expect(await actionsFor(left.id)).toEqual(['bundle.receive', 'bundle.upload']);

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inspectBundle } from '../../../api/src/bundles/inspect-bundle';
 import { hashFile } from '../../../api/src/bundles/sha256-file';
+import { demoActor } from '../../support/case-members';
 import { type CaseTestbed, createCaseTestbed } from '../../support/case-testbed';
 import { writeMcap } from '../../support/recordings/write-mcap';
 import { replayToEnd } from '../../support/replay-runs';
@@ -34,7 +35,10 @@ describe('POST /cases/:id/recordings', () => {
     const storedPath = bed.t.app.locals.services.evidence.pathFor(sha256);
     expect(fs.readFileSync(storedPath).equals(fs.readFileSync(mcap))).toBe(true);
     // The derived bundle (kept as evidence too) names the original and its hash in its manifest.
-    const derived = await bed.t.app.locals.services.bundles.originalFile(res.body.bundle.id);
+    const derived = await bed.t.app.locals.services.bundles.originalFile(
+      res.body.bundle.id,
+      await demoActor(bed.t, 'investigator'),
+    );
     const inspection = await inspectBundle({ kind: 'zip', path: derived.path });
     expect(inspection.bundle?.manifest.provenance?.sources[0]).toMatchObject({
       role: 'recording',
@@ -42,7 +46,11 @@ describe('POST /cases/:id/recordings', () => {
       sha256,
     });
     expect(inspection.bundle?.events?.kind).toEqual(['incident']);
-    const history = await bed.t.app.locals.services.audit.listCaseEntries(bed.caseId, { pageSize: 100 });
+    const history = await bed.t.app.locals.services.audit.listCaseEntries(
+      bed.caseId,
+      { pageSize: 100 },
+      await demoActor(bed.t, 'investigator'),
+    );
     const entry = history.items.find((item: { action: string }) => item.action === 'bundle.upload');
     expect((entry?.details as { derivedFrom?: unknown[] } | undefined)?.derivedFrom?.[0]).toMatchObject({
       name: 'plover.mcap',

@@ -160,6 +160,110 @@ describe('landmark detection model', () => {
     expect(explained / compared).toBeGreaterThan(0.3);
   });
 
+  it('associates on a site of many landmarks, with ties and at the gate edges, exactly as the exhaustive search', () => {
+    // 21 x 21 landmarks on a 1 m lattice, the class set by the column (one in seven unknown to the
+    // detector). Half the particles sit halfway between two lattice rows facing +x, so the two
+    // landmarks ahead are mirror images: equal range, bearing residuals of opposite sign, a tie.
+    // Detections put the nearest landmark exactly at, just inside and just outside the range and
+    // bearing gates, and near max_range. Reference: every landmark, no index, no gate.
+    const kinds = ['reflector', 'dock', 'column', 'reflector', 'dock', 'column', 'unlisted'];
+    const lattice = [];
+    for (let i = 0; i <= 20; i++)
+      for (let j = 0; j <= 20; j++) lattice.push({ id: `L${i}-${j}`, class: kinds[i % 7], x: i, y: j });
+    const site = buildLandmarkModel(lattice, WAREHOUSE_DETECTOR);
+    const n = 400;
+    const poses = {
+      x: new Float64Array(n),
+      y: new Float64Array(n),
+      theta: new Float64Array(n),
+      cosTheta: new Float64Array(n),
+      sinTheta: new Float64Array(n),
+    };
+    for (let i = 0; i < n; i++) {
+      const isMirror = i % 2 === 0;
+      poses.x[i] = 6 + (i % 9) + (isMirror ? 0 : 0.013 * (i % 13));
+      poses.y[i] = 6 + ((i * 7) % 9) + (isMirror ? 0.5 : 0.021 * (i % 11));
+      poses.theta[i] = isMirror ? 0 : 0.004 * ((i % 17) - 8);
+      poses.cosTheta[i] = cos(poses.theta[i]);
+      poses.sinTheta[i] = sin(poses.theta[i]);
+    }
+    const rangeGate = site.gateSigmas * site.rangeSigma;
+    const bearingGate = site.gateSigmas * site.bearingSigma;
+    const nearly = 1 - 1e-12;
+    const detections: [reported: number, range: number, bearing: number][] = [
+      [0, Math.hypot(1, 0.5), 0], // the mirrored pair ahead: a tie for the even particles
+      [1, Math.hypot(2, 0.5), 0],
+      [2, Math.hypot(1, 0.5) + rangeGate, 0],
+      [0, Math.hypot(1, 0.5) + rangeGate * nearly, 0],
+      [0, Math.hypot(1, 0.5) - rangeGate / nearly, 0],
+      [1, 1, bearingGate],
+      [1, 1, -bearingGate * nearly],
+      [2, 1, bearingGate / nearly],
+      [0, site.maxRange, 0.3],
+      [2, site.maxRange - rangeGate, -0.2],
+    ];
+    const scratch = createDetectionScratch(site, n);
+    const clutter = site.clutter * site.clutterDensity;
+    let ties = 0;
+    let explained = 0;
+    for (const [reported, range, bearing] of detections) {
+      bestAssociationTerms(site, poses, 0, n, reported, range, bearing, scratch.best, scratch);
+      for (let i = 0; i < n; i++) {
+        const ux = poses.cosTheta[i] * cos(bearing) - poses.sinTheta[i] * sin(bearing);
+        const uy = poses.sinTheta[i] * cos(bearing) + poses.cosTheta[i] * sin(bearing);
+        let exhaustive = 0;
+        let atTop = 0;
+        for (let l = 0; l < site.count; l++) {
+          const term = associationTerm(site, l, poses.x[i], poses.y[i], ux, uy, range, reported);
+          if (term > exhaustive) [exhaustive, atTop] = [term, 1];
+          else if (term === exhaustive && term > 0) atTop++;
+        }
+        const indexed = (1 - site.clutter) * scratch.best[i] + clutter;
+        const expected = (1 - site.clutter) * exhaustive + clutter;
+        if (indexed !== expected)
+          expect({ range, bearing, i, indexed }).toEqual({ range, bearing, i, indexed: expected });
+        if (atTop > 1) ties++;
+        if (exhaustive > 0) explained++;
+      }
+    }
+    // The case must exercise what it claims: exact ties and detections that some landmark explains.
+    expect(ties).toBeGreaterThan(100);
+    expect(explained).toBeGreaterThan(n);
+
+    // The per-step path multiplies the same factors (1 - clutter) best + clutter, then takes one log.
+    const out = new Float64Array(n);
+    accumulateDetectionLogLikelihood(
+      site,
+      poses,
+      0,
+      n,
+      {
+        classIndex: Int32Array.from(detections, ([reported]) => reported),
+        range: Float64Array.from(detections, ([, range]) => range),
+        bearing: Float64Array.from(detections, ([, , bearing]) => bearing),
+        first: 0,
+        end: detections.length,
+      },
+      out,
+      scratch,
+    );
+    for (let i = 0; i < n; i += 7) {
+      let logSum = 0;
+      for (const [reported, range, bearing] of detections) {
+        const ux = poses.cosTheta[i] * cos(bearing) - poses.sinTheta[i] * sin(bearing);
+        const uy = poses.sinTheta[i] * cos(bearing) + poses.cosTheta[i] * sin(bearing);
+        let exhaustive = 0;
+        for (let l = 0; l < site.count; l++)
+          exhaustive = Math.max(
+            exhaustive,
+            associationTerm(site, l, poses.x[i], poses.y[i], ux, uy, range, reported),
+          );
+        logSum += Math.log((1 - site.clutter) * exhaustive + clutter);
+      }
+      expect(out[i]).toBeCloseTo(logSum, 11);
+    }
+  });
+
   it('adds one log per particle and step equal to the sum of the per-detection logs', () => {
     const n = 3;
     const x = Float64Array.of(0, 0.05, -0.1);

@@ -3,12 +3,14 @@
  * FreeBSD msun / fdlibm (npm @stdlib/math-base-special-*, documented within 1 ulp) and the
  * host's Math.* (V8: also fdlibm-derived). Bounds are the ones documented in each file.
  */
+import stdlibAtan from '@stdlib/math-base-special-atan';
 import stdlibCos from '@stdlib/math-base-special-cos';
 import stdlibExp from '@stdlib/math-base-special-exp';
 import stdlibLn from '@stdlib/math-base-special-ln';
 import stdlibSin from '@stdlib/math-base-special-sin';
 import { describe, expect, it } from 'vitest';
 import { cos, exp, hypot, log, sin, sinCos } from '../../../shared/engine/numerics';
+import { SMALL_ATAN_LIMIT, smallAtan } from '../../../shared/engine/numerics/small-atan';
 
 /** Spacing of doubles at |v| (ulp), from its binary exponent. */
 function ulp(v: number): number {
@@ -27,6 +29,26 @@ function uniforms(seed: number) {
 }
 
 describe('engine numerics', () => {
+  it('smallAtan gives the bits of the Cephes atan port on [-0.66, 0.66], within 1 ulp of Math.atan', () => {
+    const next = uniforms(7);
+    let worst = 0;
+    let compared = 0;
+    const check = (x: number) => {
+      const value = smallAtan(x);
+      // Equal as numbers: the only difference allowed is the sign of a zero result, which squares away.
+      if (value !== stdlibAtan(x)) expect({ x, value }).toEqual({ x, value: stdlibAtan(x) });
+      worst = Math.max(worst, Math.abs(value - Math.atan(x)) / ulp(value || Number.MIN_VALUE));
+      compared++;
+    };
+    for (let n = 0; n < 300_000; n++) {
+      const u = 2 * next() - 1;
+      check(n % 3 === 0 ? u * SMALL_ATAN_LIMIT : u * 10 ** (-1 - 15 * next()));
+    }
+    for (const x of [0, -0, SMALL_ATAN_LIMIT, -SMALL_ATAN_LIMIT, 0.3, 1e-300, Number.MIN_VALUE]) check(x);
+    expect(compared).toBe(300_007);
+    expect(worst).toBeLessThanOrEqual(1);
+  });
+
   it('exp is within 2 ulp of the fdlibm port and of Math.exp over [-708, 709]', () => {
     const next = uniforms(1);
     let worst = 0;

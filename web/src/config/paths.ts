@@ -108,6 +108,11 @@ export const apiPaths = {
   caseRecordings: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/recordings`,
   caseBookmarks: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bookmarks`,
   caseQueries: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/queries`,
+  caseMembers: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/members`,
+  caseMember: (caseId: string, userId: string) =>
+    `/api/cases/${encodeURIComponent(caseId)}/members/${encodeURIComponent(userId)}`,
+  caseMemberCandidates: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/member-candidates`,
+  caseEvidenceNames: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/evidence-names`,
   bookmark: (bookmarkId: string) => `/api/bookmarks/${encodeURIComponent(bookmarkId)}`,
   savedQuery: (queryId: string) => `/api/queries/${encodeURIComponent(queryId)}`,
   bundleTable: (bundleId: string, table: string) =>

@@ -1,6 +1,11 @@
 import { verifyAuditChain } from '../../../../shared/audit-chain';
 import type { Bundle } from '../../../../shared/bundle/types';
-import { CAUSE_CATEGORY_LABELS, INCIDENT_CLASS_LABELS } from '../../../../shared/contracts/findings';
+import {
+  CAUSE_CATEGORY_LABELS,
+  INCIDENT_CLASS_LABELS,
+  type TEvidenceItem,
+} from '../../../../shared/contracts/findings';
+import { EVIDENCE_TYPE_LABELS, type EvidenceNames, nameEvidence } from '../../../../shared/evidence-names';
 import {
   AUDIT_ACTION_LABELS,
   BUNDLE_STATUS_LABELS,
@@ -10,9 +15,11 @@ import {
   RECORDING_FILE_LABELS,
   SEVERITY_LABELS,
 } from '../../../../shared/human-labels';
+import { ROLE_LABELS } from '../../../../shared/roles';
 import { renderSeverityMarkSvg } from '../../../../shared/severity-mark';
 import { describeTimeZone } from '../../../../shared/site-time';
 import type { CaseEvidence } from '../collect-case-evidence';
+import { evidenceNamesOf } from './evidence-names-of';
 import { renderReplaySection } from './replay-section';
 import { REPORT_BRAND_MARK } from './report-brand';
 import { escapeHtml } from './report-colours';
@@ -58,8 +65,36 @@ function findingsSection(evidence: CaseEvidence, text: ReportText): string {
     )
     .join('');
   return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${text.time(shown.submittedAt)}. ${status}</p>
-<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}${row('Evidence cited', countOf(c.evidence.length, 'item'))}</tbody></table>
-<h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>`;
+<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}</tbody></table>
+<h3>Evidence cited (${countOf(c.evidence.length, 'item')})</h3>${citedEvidenceList(c.evidence, evidenceNamesOf(evidence))}
+<h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>
+<h3>Reviewers' comments</h3>${reviewsList(evidence, text)}`;
+}
+
+/** Every cited item by name, with the hash it stores and the investigator's note. */
+function citedEvidenceList(items: readonly TEvidenceItem[], names: EvidenceNames): string {
+  if (items.length === 0) return '<p>None.</p>';
+  const entries = items.map((item) => {
+    const named = nameEvidence(item, names);
+    const hash = named.hash
+      ? `<br><span class="unit">${escapeHtml(named.hash.label)}</span> <span class="hash">${escapeHtml(named.hash.value)}</span>`
+      : '';
+    const note = item.note ? `<br>${escapeHtml(item.note)}` : '';
+    return `<li><strong>${escapeHtml(EVIDENCE_TYPE_LABELS[item.type])}: ${escapeHtml(named.name)}</strong> — ${escapeHtml(named.detail)}${hash}${note}</li>`;
+  });
+  return `<ol class="cited">${entries.join('')}</ol>`;
+}
+
+/** Each review of each version in order, with the comment a reviewer returned it with. */
+function reviewsList(evidence: CaseEvidence, text: ReportText): string {
+  const rows = evidence.findings.flatMap((version) =>
+    version.reviews.map(
+      (review) =>
+        `<tr><td>${version.version}</td><td>${review.kind === 'signoff' ? 'Signed' : 'Returned with comments'}</td><td>${escapeHtml(review.reviewer.name)}</td><td>${text.time(review.at)}</td><td>${review.comment ? escapeHtml(review.comment) : '—'}</td></tr>`,
+    ),
+  );
+  if (rows.length === 0) return '<p>No version has been reviewed yet.</p>';
+  return `<table><thead><tr><th>Version</th><th>Review</th><th>Reviewer</th><th>When</th><th>Comment</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
 }
 
 function fixesSection(evidence: CaseEvidence, text: ReportText): string {
@@ -94,7 +129,13 @@ function custodySection(evidence: CaseEvidence, text: ReportText): string {
     .join('');
   return `<h3>Earlier exports</h3>${exports.length ? `<table><thead><tr><th>When</th><th>Who</th><th>Archive SHA-256</th></tr></thead><tbody>${exportRows}</tbody></table>` : '<p>This is the first export of the case.</p>'}
 <h3>Audit trail</h3><p>${countOf(evidence.auditChain.length, 'entry', 'entries')}; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'none')}</span>.</p>
-<table><thead><tr><th>Action</th><th>Entries</th></tr></thead><tbody>${actionRows}</tbody></table>`;
+<table><thead><tr><th>Action</th><th>Entries</th></tr></thead><tbody>${actionRows}</tbody></table>
+<h3>Audit trail in order</h3><table><thead><tr><th>#</th><th>When</th><th>Who</th><th>Role</th><th>What</th></tr></thead><tbody>${evidence.auditChain
+    .map(
+      (e) =>
+        `<tr><td>${e.chainSeq}</td><td>${text.time(e.at, { withSeconds: true })}</td><td>${escapeHtml(e.actorEmail ?? 'the system')}</td><td>${escapeHtml(e.actorRole ? labelFor(ROLE_LABELS, e.actorRole) : '—')}</td><td title="${escapeHtml(e.action)}">${escapeHtml(labelFor(AUDIT_ACTION_LABELS, e.action))}</td></tr>`,
+    )
+    .join('')}</tbody></table>`;
 }
 
 /**

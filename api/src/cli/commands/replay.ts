@@ -1,6 +1,8 @@
 import { stat, writeFile } from 'node:fs/promises';
 import { formatIssue } from '@shared/bundle/format-issue';
 import { ReplayInputError, readBundleFiles, replayBundle } from '@shared/engine';
+import type { ProbableCause } from '@shared/engine/causes/cause-types';
+import { findProbableCauses } from '@shared/engine/causes/find-probable-causes';
 import { parseReplayOverrides, type TReplayOverrides } from '@shared/engine/settings';
 import { createSafetyObserver } from '@shared/safety/safety-observer';
 import { readBundleSourceFiles } from '../../bundles/read-bundle-files';
@@ -97,6 +99,26 @@ export function parseReplayArguments(
   return { ok: true, value: { path: paths[0], jsonFile, threads, overrides: parsed.overrides } };
 }
 
+/** How many probable causes the summary prints. */
+const PRINTED_CAUSES = 3;
+
+/** Summary lines for the top causes, with the caution that they support but do not replace judgement. */
+function describeTopCauses(causes: ProbableCause[]): string[] {
+  const top = causes.slice(0, PRINTED_CAUSES);
+  return [
+    `Probable causes: ${causes.length}${causes.length > top.length ? ` (top ${top.length})` : ''}`,
+    ...top.map((cause, i) => {
+      const support = cause.counterfactuals.find((run) => run.supports);
+      return (
+        `  ${i + 1}. ${cause.kind} ${cause.start.toFixed(1)}-${cause.end.toFixed(1)} s, confidence ${cause.confidence.toFixed(2)}: ${cause.evidence}` +
+        (cause.against ? ` Against: ${cause.against}` : '') +
+        (support ? ` Counterfactual: ${support.label} (digest ${support.digest.slice(0, 12)}).` : '')
+      );
+    }),
+    "  Causes are engineering aids: they support but do not replace the investigator's and a licensed safety professional's judgement.",
+  ];
+}
+
 /** Plain array with null for NaN and infinities (JSON has neither). */
 const toJsonArray = (values: ArrayLike<number>) => Array.from(values, (v) => (Number.isFinite(v) ? v : null));
 const formatMetres = (value: number | null) => (value === null ? 'n/a (no file)' : `${value.toFixed(3)} m`);
@@ -158,6 +180,7 @@ export async function run(args: string[]): Promise<number> {
     const engine = nodeEngineStamp();
     // The same analysis as API replays, so both report the same flags.
     const { flags, divergedAt } = analyseReplay(bundle, result, context);
+    const causes = findProbableCauses({ ...result, flags });
     const { series, metrics } = result;
     const safety = safetyObserver ? safetyObserver.finish(series) : null;
     const minimum = safety?.min_clearance;
@@ -171,6 +194,7 @@ export async function run(args: string[]): Promise<number> {
         `Minimum clearance: ${minimum ? `${minimum.value.toFixed(3)} m at ${minimum.t.toFixed(1)} s to the ${minimum.to} (${minimum.basis} pose)` : 'n/a'}; safety events: ${safety?.events.map((e) => `${e.kind} ${e.t.toFixed(1)} s suggested ${e.suggested_class}`).join('; ') || 'none'}`,
         'Caution: engineering estimates from recorded data; formal safety determinations defer to local regulations and licensed safety professionals.',
         `Flags: ${flags.length}${flags.length ? ` (${flags.map((flag) => `${flag.kind} ${flag.start.toFixed(1)}-${flag.end.toFixed(1)} s ${flag.severity}`).join('; ')})` : ''}`,
+        ...describeTopCauses(causes),
         '',
       ].join('\n'),
     );
@@ -197,6 +221,7 @@ export async function run(args: string[]): Promise<number> {
         },
         flags,
         safety,
+        causes,
       };
       await writeFile(jsonFile, `${JSON.stringify(output)}\n`);
       process.stdout.write(`Wrote ${jsonFile}\n`);

@@ -1,6 +1,7 @@
 export * from './audit';
 export * from './bookmarks';
 export * from './bundles';
+export * from './case-members';
 export * from './cases';
 export * from './findings';
 export * from './fixes';

@@ -17,10 +17,12 @@ import { signManifest } from '../../archive/sign-manifest';
 import { verifyArchive } from '../../archive/verify-archive';
 import { writeArchive } from '../../archive/write-archive';
 import { PROJECT_ROOT } from '../../config';
+import type { Database } from '../../db/client';
 import { loadBundleForReplay } from '../../replays/replay-bundle-file';
 import type { AuditService } from '../audit/audit-service';
 import type { CheckpointService } from '../audit/checkpoint-service';
 import type { Notifications } from '../mail/notifications';
+import { assertCaseMember } from '../membership/case-access';
 import { jwkThumbprint } from '../signing/jwk-thumbprint';
 import type { SigningKeyStore } from '../signing/signing-key';
 
@@ -40,6 +42,7 @@ export function readProductVersion(): string {
 
 /** Evidence archives: streamed export with custody, and the list of past exports. */
 export function createArchiveService(deps: {
+  db: Database;
   sources: CaseEvidenceSources;
   keys: SigningKeyStore;
   audit: AuditService;
@@ -71,6 +74,7 @@ export function createArchiveService(deps: {
    * SHA-256 to the case's audit trail, notifies legal, and only then ends `sink`.
    */
   async function prepareExport(caseId: string, exporter: ArchiveExporter) {
+    await assertCaseMember(deps.db, caseId, exporter, 'export its evidence archive');
     const evidence = await collectCaseEvidence(caseId, deps.sources);
     const reference = evidence.caseRecord.reference;
     return {
@@ -133,8 +137,8 @@ export function createArchiveService(deps: {
   }
 
   /** Past exports of a case, oldest first, read from its audit trail (the custody record). */
-  async function listExports(caseId: string): Promise<TArchiveExport[]> {
-    await deps.sources.getCase(caseId);
+  async function listExports(caseId: string, actor: ArchiveExporter): Promise<TArchiveExport[]> {
+    await assertCaseMember(deps.db, caseId, actor, 'see its evidence archives');
     const chain = await deps.audit.readCaseChain(caseId);
     return chain
       .filter((entry) => entry.action === 'archive.export')

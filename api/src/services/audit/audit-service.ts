@@ -14,6 +14,8 @@ import { isSafeText } from '../../../../shared/contracts/safe-text';
 import { AppError } from '../../../../shared/errors';
 import type { Database, Transaction } from '../../db/client';
 import { type AuditEntryRow, auditEntries } from '../../db/schema';
+import type { Actor } from '../actor';
+import { assertCaseMember } from '../membership/case-access';
 
 export interface AuditActor {
   id: string;
@@ -69,6 +71,8 @@ function unsafeTextIn(value: unknown, path: string): string | null {
  * The append-only audit trail. There is deliberately no update or delete here; the database
  * trigger refuses them too.
  */
+const SEE_HISTORY = 'see its audit trail';
+
 export function createAuditService({ db }: { db: Database }) {
   /**
    * Appends one entry inside the caller's transaction, so it commits with the write it records or
@@ -160,10 +164,20 @@ export function createAuditService({ db }: { db: Database }) {
   return {
     append,
     appendAlone,
-    listCaseEntries: (caseId: string, query?: TAuditListQuery) => listChain(auditChainOf(caseId), query),
+    /** A case's history, for its members. */
+    listCaseEntries: async (caseId: string, query: TAuditListQuery | undefined, actor: Actor) => {
+      await assertCaseMember(db, caseId, actor, SEE_HISTORY);
+      return listChain(auditChainOf(caseId), query);
+    },
     listGlobalEntries: (query?: TAuditListQuery) => listChain(auditChainOf(null), query),
     readChain,
+    /** A case's whole chain, unchecked: for the archive export, which checks membership once. */
     readCaseChain: (caseId: string) => readChain(auditChainOf(caseId)),
+    /** A case's whole chain, for its members to verify. */
+    readCaseChainFor: async (caseId: string, actor: Actor) => {
+      await assertCaseMember(db, caseId, actor, SEE_HISTORY);
+      return readChain(auditChainOf(caseId));
+    },
     verifyCaseChain: async (caseId: string) => verifyAuditChain(await readChain(auditChainOf(caseId))),
     verifyGlobalChain: async () => verifyAuditChain(await readChain(auditChainOf(null))),
   };

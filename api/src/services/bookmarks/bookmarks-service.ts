@@ -14,6 +14,7 @@ import type { AuditService } from '../audit/audit-service';
 import { loadPeople } from '../findings/people';
 import { assertNotHeld } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
+import { assertCaseMember, assertMemberOfCaseOf } from '../membership/case-access';
 import { toBookmark } from './bookmark-mapper';
 import { findVersionsCitingBookmark } from './cited-by-findings';
 
@@ -31,6 +32,8 @@ function bookmarkEntry(row: BookmarkRow) {
     details: { replayId: row.replayId, step: row.step },
   };
 }
+
+const SEE_BOOKMARKS = 'see its bookmarks';
 
 export function createBookmarksService({ db, audit }: { db: Database; audit: AuditService }) {
   async function withPeople(rows: BookmarkRow[]): Promise<TBookmark[]> {
@@ -77,7 +80,7 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
 
   async function createBookmark(caseId: string, request: TCreateBookmarkRequest, actor: Actor) {
     const row = await db.transaction(async (tx) => {
-      await loadCaseState(tx, caseId);
+      await assertCaseMember(tx, caseId, actor, 'pin moments on it');
       const replay = await loadPinnableReplay(tx, caseId, request);
       const [inserted] = await tx
         .insert(bookmarks)
@@ -106,20 +109,28 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
     return (await withPeople([row]))[0];
   }
 
-  async function listBookmarks(caseId: string): Promise<TBookmark[]> {
+  async function listBookmarks(caseId: string, actor: Actor): Promise<TBookmark[]> {
+    await assertCaseMember(db, caseId, actor, SEE_BOOKMARKS);
+    return readBookmarks(caseId);
+  }
+
+  /** The case's bookmarks, unchecked: for the archive export, which checks membership once. */
+  async function readBookmarks(caseId: string): Promise<TBookmark[]> {
     await loadCaseState(db, caseId);
     return withPeople(
       await db.select().from(bookmarks).where(eq(bookmarks.caseId, caseId)).orderBy(asc(bookmarks.createdAt)),
     );
   }
 
-  async function getBookmark(bookmarkId: string): Promise<TBookmark> {
+  async function getBookmark(bookmarkId: string, actor: Actor): Promise<TBookmark> {
+    await assertMemberOfCaseOf(db, 'bookmark', bookmarkId, actor, SEE_BOOKMARKS);
     return (await withPeople([await loadRow(bookmarkId)]))[0];
   }
 
   async function updateNote(bookmarkId: string, request: TUpdateBookmarkRequest, actor: Actor) {
     const row = await db.transaction(async (tx) => {
       const existing = await loadRow(bookmarkId, tx);
+      await assertCaseMember(tx, existing.caseId, actor, 'edit its bookmarks');
       if (existing.authorId !== actor.id && actor.role !== 'admin') {
         throw new AppError('forbidden', 'Only the bookmark author or an admin can edit its note.');
       }
@@ -143,6 +154,7 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
   async function deleteBookmark(bookmarkId: string, actor: Actor): Promise<TBookmark> {
     const row = await db.transaction(async (tx) => {
       const existing = await loadRow(bookmarkId, tx);
+      await assertCaseMember(tx, existing.caseId, actor, 'delete its bookmarks');
       if (existing.authorId !== actor.id) {
         throw new AppError('forbidden', 'Only the bookmark author can delete it.');
       }
@@ -162,7 +174,7 @@ export function createBookmarksService({ db, audit }: { db: Database; audit: Aud
     return (await withPeople([row]))[0];
   }
 
-  return { createBookmark, listBookmarks, getBookmark, updateNote, deleteBookmark };
+  return { createBookmark, listBookmarks, readBookmarks, getBookmark, updateNote, deleteBookmark };
 }
 
 export type BookmarksService = ReturnType<typeof createBookmarksService>;

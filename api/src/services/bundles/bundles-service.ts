@@ -6,11 +6,12 @@ import { AppError } from '../../../../shared/errors';
 import { writeArrowTables } from '../../bundles/write-arrow-tables';
 import type { Database, Transaction } from '../../db/client';
 import { isUniqueViolation } from '../../db/postgres-errors';
-import { bundles, cases, replays, users } from '../../db/schema';
+import { bundles, replays, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
+import { assertCaseMember, assertMemberOfCaseOf } from '../membership/case-access';
 import { type TBundleRecord, toBundleRecord } from './bundle-mapper';
 import { createBundleViews } from './bundle-views';
 import { storableJson } from './storable-json';
@@ -46,6 +47,8 @@ const isFile = (file: string) =>
     () => false,
   );
 
+const SEE_EVIDENCE = 'see its evidence';
+
 export function createBundlesService(options: BundlesServiceOptions) {
   const { db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes, inspect } = options;
   const tablesDir = (bundleId: string) => path.join(derivedDir, 'bundles', bundleId, 'tables');
@@ -59,23 +62,31 @@ export function createBundlesService(options: BundlesServiceOptions) {
       .from(bundles)
       .innerJoin(users, eq(users.id, bundles.uploadedBy));
 
-  async function requireCase(caseId: string) {
-    const [found] = await db.select({ id: cases.id }).from(cases).where(eq(cases.id, caseId));
-    if (!found) throw new AppError('not_found', `No case with id ${caseId}.`);
-  }
+  const assertMemberOfBundleCase = (bundleId: string, actor: Actor) =>
+    assertMemberOfCaseOf(db, 'bundle', bundleId, actor, SEE_EVIDENCE);
 
-  async function getBundle(id: string, executor: Database = db): Promise<TBundleRecord> {
+  async function loadBundle(id: string, executor: Database = db): Promise<TBundleRecord> {
     const [found] = await selectWithUploader(executor).where(eq(bundles.id, id));
     if (!found) throw new AppError('not_found', `No bundle with id ${id}.`);
     return toBundleRecord(found.row, found.uploaderName);
   }
 
-  async function listCaseBundles(caseId: string): Promise<TBundleRecord[]> {
-    await requireCase(caseId);
+  async function getBundle(id: string, actor: Actor): Promise<TBundleRecord> {
+    await assertMemberOfBundleCase(id, actor);
+    return loadBundle(id);
+  }
+
+  /** Every bundle of a case, unchecked: for the archive export, which checks membership once. */
+  async function readCaseBundles(caseId: string): Promise<TBundleRecord[]> {
     const rows = await selectWithUploader()
       .where(eq(bundles.caseId, caseId))
       .orderBy(asc(bundles.uploadedAt));
     return rows.map(({ row, uploaderName }) => toBundleRecord(row, uploaderName));
+  }
+
+  async function listCaseBundles(caseId: string, actor: Actor): Promise<TBundleRecord[]> {
+    await assertCaseMember(db, caseId, actor, SEE_EVIDENCE);
+    return readCaseBundles(caseId);
   }
 
   /**
@@ -97,7 +108,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
     const derivedFrom = upload.derivedFrom ? { derivedFrom: upload.derivedFrom } : {};
     const auditUpload = (tx: Transaction, bundle: TBundleRecord, isDuplicate: boolean) =>
       appendUploadEntry(tx, { actor, bundle, originalName: upload.originalName, isDuplicate, derivedFrom });
-    await requireCase(upload.caseId).catch(async (error) => {
+    await assertCaseMember(db, upload.caseId, actor, 'add evidence to it').catch(async (error) => {
       await fs.promises.rm(upload.tempFile, { force: true });
       throw error;
     });
@@ -110,7 +121,7 @@ export function createBundlesService(options: BundlesServiceOptions) {
       if (!existing) return undefined;
       // A duplicate arriving while the first copy is read is answered with the finished bundle.
       await validating.get(existing.id)?.catch(() => undefined);
-      const bundle = await getBundle(existing.id);
+      const bundle = await loadBundle(existing.id);
       await db.transaction((tx) => auditUpload(tx, bundle, true));
       return { bundle, isDuplicate: true };
     };
@@ -249,15 +260,15 @@ export function createBundlesService(options: BundlesServiceOptions) {
           tables,
         })
         .where(eq(bundles.id, id));
-      const validated = await getBundle(id, tx);
+      const validated = await loadBundle(id, tx);
       await record(tx, validated);
       return validated;
     });
   }
 
   /** Path of a derived Arrow IPC stream file, after checking the bundle and table exist. */
-  async function tableFile(bundleId: string, name: string): Promise<string> {
-    const bundle = await getBundle(bundleId);
+  async function tableFile(bundleId: string, name: string, actor: Actor): Promise<string> {
+    const bundle = await getBundle(bundleId, actor);
     if (!TABLE_NAME.test(name) || !bundle.tables.some((table) => table.name === name)) {
       const known = bundle.tables.map((table) => table.name).join(', ') || 'none';
       throw new AppError('not_found', `Bundle ${bundleId} has no table "${name}". Tables: ${known}.`);
@@ -299,13 +310,15 @@ export function createBundlesService(options: BundlesServiceOptions) {
     await pending;
   }
 
-  async function originalFile(bundleId: string): Promise<{ path: string; name: string }> {
-    const bundle = await getBundle(bundleId);
+  function storedOriginal(bundle: TBundleRecord): { path: string; name: string } {
     return { path: evidence.pathFor(bundle.sha256), name: bundle.originalName };
   }
 
+  const originalFile = async (bundleId: string, actor: Actor) =>
+    storedOriginal(await getBundle(bundleId, actor));
+
   const views = createBundleViews({
-    originalPath: async (bundleId) => (await originalFile(bundleId)).path,
+    originalPath: async (bundleId) => storedOriginal(await loadBundle(bundleId)).path,
     isReplayOf: async (bundleId, replayId) => {
       const [found] = await db
         .select({ id: replays.id })
@@ -317,15 +330,27 @@ export function createBundlesService(options: BundlesServiceOptions) {
     maxUnpackedBytes,
   });
 
+  /** The workspace views, each checked against the case's membership first. */
+  const checkedViews = {
+    bundleMap: async (bundleId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.bundleMap(bundleId);
+    },
+    bundleTracks: async (bundleId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.bundleTracks(bundleId);
+    },
+    replayClearance: async (bundleId: string, replayId: string, actor: Actor) => {
+      await assertMemberOfBundleCase(bundleId, actor);
+      return views.replayClearance(bundleId, replayId);
+    },
+  };
+
   return {
-    uploadBundle,
-    finishInterruptedUploads,
-    listCaseBundles,
-    getBundle,
-    tableFile,
-    originalFile,
-    tablesDir,
-    ...views,
+    ...{ uploadBundle, finishInterruptedUploads, listCaseBundles, readCaseBundles, getBundle },
+    ...{ tableFile, originalFile, tablesDir },
+    ...checkedViews,
+    parsedBundle: views.parsedBundle,
   };
 }
 

@@ -11,12 +11,13 @@ import type {
 import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../../../shared/contracts/cases';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
-import { type CaseRow, caseReferenceSeq, cases, users } from '../../db/schema';
+import { type CaseRow, caseMembers, caseReferenceSeq, cases, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import { assertNotHeld } from '../holds/holds-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
+import { assertCaseMember } from '../membership/case-access';
 import { toCase } from './case-mapper';
 import { loadCasePathFacts } from './case-path-facts';
 
@@ -120,6 +121,8 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
         summary: body.summary,
         createdBy: actor.id,
       });
+      // The creator works on the case from the start and manages who else does.
+      await tx.insert(caseMembers).values({ caseId, userId: actor.id, addedBy: actor.id });
       await audit.append(tx, {
         actor,
         action: 'case.create',
@@ -142,6 +145,7 @@ export function createCasesService({ db, audit, lifecycle }: CasesServiceOptions
     const { status, incidentTime, ...rest } = changes;
     await db.transaction(async (tx) => {
       const current = await loadCaseState(tx, id);
+      await assertCaseMember(tx, id, actor, 'edit the case record');
       await assertNotHeld(tx, id, 'Editing the case record');
       if (status && status !== current.status) {
         await lifecycle.transition(tx, id, status, actor.role, true);

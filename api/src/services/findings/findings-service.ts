@@ -21,7 +21,9 @@ import { assertNotHeld, describeHold, findActiveHold } from '../holds/holds-serv
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
+import { assertCaseMember } from '../membership/case-access';
 import { validateEvidence } from './evidence-citations';
+import { readEvidenceNames } from './evidence-names';
 import { type FindingsDocument, freezeFindings } from './findings-document';
 import { loadPeople } from './people';
 
@@ -50,6 +52,8 @@ export async function latestVersionNumber(db: Database, caseId: string): Promise
   return latest?.version ?? null;
 }
 
+const SEE_FINDINGS = 'see its findings';
+
 /** Findings drafts and their frozen, numbered versions. Reviews live in review-service.ts. */
 export function createFindingsService(deps: {
   db: Database;
@@ -71,7 +75,12 @@ export function createFindingsService(deps: {
         }.`;
   }
 
-  async function getFindings(caseId: string): Promise<TFindingsResponse> {
+  async function getFindings(caseId: string, actor: Actor): Promise<TFindingsResponse> {
+    await assertCaseMember(db, caseId, actor, SEE_FINDINGS);
+    return readFindings(caseId);
+  }
+
+  async function readFindings(caseId: string): Promise<TFindingsResponse> {
     const state = await loadCaseState(db, caseId);
     const [draft] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
     const latest = await latestVersionNumber(db, caseId);
@@ -106,6 +115,7 @@ export function createFindingsService(deps: {
     actor: Actor,
   ): Promise<TFindingsResponse> {
     await db.transaction(async (tx) => {
+      await assertCaseMember(tx, caseId, actor, 'edit its findings');
       await assertEditable(tx, caseId, 'Editing the findings');
       await tx
         .insert(findingDrafts)
@@ -124,7 +134,7 @@ export function createFindingsService(deps: {
       });
       await lifecycle.noteWorkStarted(tx, caseId, actor, 'findings.save');
     });
-    return getFindings(caseId);
+    return readFindings(caseId);
   }
 
   async function submit(
@@ -132,6 +142,7 @@ export function createFindingsService(deps: {
     actor: Actor,
   ): Promise<{ version: number; sha256: string; from: string }> {
     const submitted = await db.transaction(async (tx) => {
+      await assertCaseMember(tx, caseId, actor, 'submit its findings');
       await assertEditable(tx, caseId, 'Submitting the findings');
       const { from } = await lifecycle.assertTransition(tx, caseId, 'in_review', actor.role, false);
       const [draft] = await tx.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
@@ -206,7 +217,13 @@ export function createFindingsService(deps: {
     );
   }
 
-  async function listVersions(caseId: string): Promise<TFindingsVersionSummary[]> {
+  async function listVersions(caseId: string, actor: Actor): Promise<TFindingsVersionSummary[]> {
+    await assertCaseMember(db, caseId, actor, SEE_FINDINGS);
+    return readVersions(caseId);
+  }
+
+  /** The case's findings versions, unchecked: for the archive export, which checks membership once. */
+  async function readVersions(caseId: string): Promise<TFindingsVersionSummary[]> {
     await loadCaseState(db, caseId);
     const rows = await db
       .select()
@@ -227,19 +244,33 @@ export function createFindingsService(deps: {
     }));
   }
 
-  async function diffVersions(caseId: string, from: number, to: number): Promise<TFindingsDiff> {
+  async function diffVersions(
+    caseId: string,
+    from: number,
+    to: number,
+    actor: Actor,
+  ): Promise<TFindingsDiff> {
+    await assertCaseMember(db, caseId, actor, SEE_FINDINGS);
     const [before, after] = await Promise.all([versionRow(caseId, from), versionRow(caseId, to)]);
     const content = (row: FindingVersionRow) => (JSON.parse(row.canonical) as FindingsDocument).content;
     return { from, to, changes: diffJson(content(before), content(after)) };
   }
 
+  /** What each citable item of the case is called, so citations read by name. */
+  async function getEvidenceNames(caseId: string) {
+    await loadCaseState(db, caseId);
+    return readEvidenceNames(db, caseId);
+  }
+
   return {
     getFindings,
+    getEvidenceNames,
     saveDraft,
     submit,
     versionRow,
     versionStates,
     listVersions,
+    readVersions,
     diffVersions,
     editBlockedReason,
   };

@@ -11,6 +11,7 @@ import type { AuditService } from '../audit/audit-service';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
+import { assertCaseMember } from '../membership/case-access';
 import { signDetached, verifyDetached } from '../signing/detached-jws';
 import type { SigningKeyStore } from '../signing/signing-key';
 import type { FindingsDocument } from './findings-document';
@@ -41,7 +42,13 @@ export function createReviewService(deps: {
   }
 
   /** A version with its reviews; a signed one has its signature checked again on every read. */
-  async function getVersion(caseId: string, version: number): Promise<TFindingsVersion> {
+  async function getVersion(caseId: string, version: number, actor: Actor): Promise<TFindingsVersion> {
+    await assertCaseMember(db, caseId, actor, 'see its findings');
+    return readVersion(caseId, version);
+  }
+
+  /** One version, unchecked: for the archive export, which checks membership once. */
+  async function readVersion(caseId: string, version: number): Promise<TFindingsVersion> {
     const row = await findings.versionRow(caseId, version);
     const reviews = await db
       .select()
@@ -121,6 +128,7 @@ export function createReviewService(deps: {
   ) {
     const verb = decision.kind === 'signoff' ? 'signed' : 'returned';
     return db.transaction(async (tx) => {
+      await assertCaseMember(tx, caseId, reviewer, `review its findings`);
       const row = await assertReviewable(tx, caseId, version, reviewer, verb);
       await lifecycle.assertTransition(tx, caseId, decision.to, reviewer.role, false);
       const { columns, details, payload } = await decision.review(row);
@@ -200,10 +208,10 @@ export function createReviewService(deps: {
       reviewerEmail: reviewer.email,
       comment,
     });
-    return getVersion(caseId, version);
+    return readVersion(caseId, version);
   }
 
-  return { getVersion, signOff, returnVersion };
+  return { getVersion, readVersion, signOff, returnVersion };
 }
 
 export type ReviewService = ReturnType<typeof createReviewService>;

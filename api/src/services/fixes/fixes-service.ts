@@ -9,6 +9,7 @@ import type { AuditService } from '../audit/audit-service';
 import { loadPeople, type Person } from '../findings/people';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { Notifications } from '../mail/notifications';
+import { assertCaseMember } from '../membership/case-access';
 
 function toFix(row: CaseFixRow, people: Map<string, Person>): TFix {
   const who = (id: string) => ({ id, name: people.get(id)?.name ?? '' });
@@ -39,7 +40,13 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
     return rows.map((row) => toFix(row, people));
   }
 
-  async function listFixes(caseId: string): Promise<TFix[]> {
+  async function listFixes(caseId: string, actor: Actor): Promise<TFix[]> {
+    await assertCaseMember(db, caseId, actor, 'see its fixes');
+    return readFixes(caseId);
+  }
+
+  /** The case's fixes, unchecked: for the archive export, which checks membership once. */
+  async function readFixes(caseId: string): Promise<TFix[]> {
     await loadCaseState(db, caseId);
     return withPeople(
       await db.select().from(caseFixes).where(eq(caseFixes.caseId, caseId)).orderBy(asc(caseFixes.linkedAt)),
@@ -54,7 +61,7 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
           ? request.changedSettings
           : JSON.stringify(request.changedSettings, null, 2);
     const row = await db.transaction(async (tx) => {
-      await loadCaseState(tx, caseId);
+      await assertCaseMember(tx, caseId, actor, 'link fixes to it');
       if (request.verificationReplayId) {
         const [replay] = await tx
           .select({ caseId: bundles.caseId })
@@ -99,6 +106,7 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
 
   async function verifyFix(caseId: string, fixId: string, actor: Actor): Promise<TFix> {
     const row = await db.transaction(async (tx) => {
+      await assertCaseMember(tx, caseId, actor, 'verify its fixes');
       const [existing] = await tx
         .select()
         .from(caseFixes)
@@ -120,7 +128,7 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
     return (await withPeople([row]))[0];
   }
 
-  return { listFixes, linkFix, verifyFix };
+  return { listFixes, readFixes, linkFix, verifyFix };
 }
 
 export type FixesService = ReturnType<typeof createFixesService>;

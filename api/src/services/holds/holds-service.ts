@@ -7,7 +7,7 @@ import type { Database } from '../../db/client';
 import { type CaseHoldRow, caseHolds, users } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
-import { loadCaseState } from '../lifecycle/case-state';
+import { assertCaseMember } from '../membership/case-access';
 
 function toHold(row: CaseHoldRow): TCaseHold {
   return {
@@ -65,7 +65,7 @@ export async function assertNotHeld(db: Database, caseId: string, what = 'This c
 export function createHoldsService({ db, audit }: { db: Database; audit: AuditService }) {
   async function placeHold(caseId: string, request: TPlaceHoldRequest, actor: Actor): Promise<TCaseHold> {
     return db.transaction(async (tx) => {
-      await loadCaseState(tx, caseId);
+      await assertCaseMember(tx, caseId, actor, 'place a legal hold on it');
       const existing = await findActiveHold(tx, caseId);
       if (existing) {
         throw new AppError(
@@ -92,7 +92,7 @@ export function createHoldsService({ db, audit }: { db: Database; audit: AuditSe
 
   async function releaseHold(caseId: string, request: TReleaseHoldRequest, actor: Actor): Promise<TCaseHold> {
     return db.transaction(async (tx) => {
-      await loadCaseState(tx, caseId);
+      await assertCaseMember(tx, caseId, actor, 'lift its legal hold');
       const [row] = await tx
         .update(caseHolds)
         .set({ releasedAt: new Date(), releasedBy: actor.id, releaseReason: request.reason ?? null })
@@ -124,12 +124,13 @@ export function createHoldsService({ db, audit }: { db: Database; audit: AuditSe
     return rows.map(toHold);
   }
 
-  return {
-    activeHold: (caseId: string) => findActiveHold(db, caseId),
-    placeHold,
-    releaseHold,
-    listHolds,
-  };
+  /** The active hold and every earlier one, for the case's members. */
+  async function holdStatus(caseId: string, actor: Actor) {
+    await assertCaseMember(db, caseId, actor, 'see its legal holds');
+    return { active: await findActiveHold(db, caseId), history: await listHolds(caseId) };
+  }
+
+  return { holdStatus, placeHold, releaseHold };
 }
 
 export type HoldsService = ReturnType<typeof createHoldsService>;

@@ -10,6 +10,7 @@ import { caseFixes, cases } from '../../db/schema';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import { assertNotHeld, findActiveHold } from '../holds/holds-service';
+import { assertCaseMember } from '../membership/case-access';
 import { loadCaseState } from './case-state';
 
 export interface TransitionResult {
@@ -105,6 +106,7 @@ export function createLifecycleService({ db, audit }: { db: Database; audit: Aud
     actor: Actor,
   ): Promise<TransitionResult> {
     return db.transaction(async (tx) => {
+      await assertCaseMember(tx, caseId, actor, 'move it on');
       const moved = await transition(tx, caseId, request.to, actor.role, true);
       await auditMove(tx, actor, moved, { comment: request.comment });
       return moved;
@@ -135,7 +137,8 @@ export function createLifecycleService({ db, audit }: { db: Database; audit: Aud
     return moved;
   }
 
-  async function getLifecycle(caseId: string): Promise<TCaseLifecycle> {
+  async function getLifecycle(caseId: string, actor: Actor): Promise<TCaseLifecycle> {
+    await assertCaseMember(db, caseId, actor, 'see its next steps');
     const state = await loadCaseState(db, caseId);
     const hold = await findActiveHold(db, caseId);
     return {

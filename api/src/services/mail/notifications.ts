@@ -1,7 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import type { Logger } from 'pino';
 import type { Database } from '../../db/client';
-import { cases, findingVersions, users } from '../../db/schema';
+import { caseMembers, cases, findingVersions, users } from '../../db/schema';
 import type { MailQueue } from './mail-queue';
 
 const escapeHtml = (text: string) =>
@@ -32,6 +32,19 @@ export function createNotifications(options: {
       .from(users)
       .where(and(eq(users.role, role), eq(users.active, true)));
     return rows.map((r) => r.email);
+  }
+
+  /**
+   * The case's own reviewers; a case with no reviewer member yet goes to every reviewer, so a
+   * submission is never left unseen.
+   */
+  async function emailsOfCaseReviewers(caseId: string): Promise<string[]> {
+    const rows = await db
+      .select({ email: users.email })
+      .from(caseMembers)
+      .innerJoin(users, eq(users.id, caseMembers.userId))
+      .where(and(eq(caseMembers.caseId, caseId), eq(users.role, 'reviewer'), eq(users.active, true)));
+    return rows.length ? rows.map((r) => r.email) : emailsOfRole('reviewer');
   }
 
   async function emailsOf(ids: string[]): Promise<string[]> {
@@ -83,7 +96,7 @@ export function createNotifications(options: {
       }) => {
         await send(
           e.caseId,
-          await emailsOfRole('reviewer'),
+          await emailsOfCaseReviewers(e.caseId),
           `[Driftcase] ${e.caseReference}: findings v${e.version} ready for review`,
           [
             `${e.author.name} submitted findings version ${e.version} of case ${e.caseReference} (${e.title}) for review.`,

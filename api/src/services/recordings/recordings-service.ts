@@ -1,12 +1,14 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { AppError } from '../../../../shared/errors';
+import type { Database } from '../../db/client';
 import { importRecording } from '../../recordings/import-recording';
 import { RecordingError } from '../../recordings/recording-error';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { BundlesService, UploadOutcome } from '../bundles/bundles-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
+import { assertCaseMember } from '../membership/case-access';
 
 export type RecordingFileRole = 'recording' | 'map' | 'map_image' | 'params' | 'robot';
 
@@ -27,13 +29,21 @@ export interface RecordingUpload {
  * stay stored and a `recording.import_failed` entry names them and the reason.
  */
 export function createRecordingsService(deps: {
+  db: Database;
   audit: AuditService;
   bundles: BundlesService;
   evidence: EvidenceStore;
 }) {
-  const { audit, bundles, evidence } = deps;
+  const { db, audit, bundles, evidence } = deps;
 
   async function importUpload(upload: RecordingUpload): Promise<UploadOutcome> {
+    await assertCaseMember(db, upload.caseId, upload.actor, 'add evidence to it').catch(async (error) => {
+      // A refused upload leaves nothing behind: the files were only ever in incoming/.
+      await Promise.all(
+        Object.values(upload.files).map((file) => fs.promises.rm(file.tempFile, { force: true })),
+      );
+      throw error;
+    });
     const stored: { role: RecordingFileRole; name: string; sha256: string; path: string }[] = [];
     for (const [role, file] of Object.entries(upload.files) as [
       RecordingFileRole,

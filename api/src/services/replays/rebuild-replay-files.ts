@@ -12,6 +12,7 @@ export const REPLAY_DERIVED_FILES = [
   'disagreement.bin',
   'series.json',
   'safety.json',
+  'causes.json',
   'result.json',
 ] as const;
 

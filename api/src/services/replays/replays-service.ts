@@ -16,11 +16,12 @@ import { AppError } from '../../../../shared/errors';
 import { REPLAY_STATUS_LABELS } from '../../../../shared/human-labels';
 import type { Database } from '../../db/client';
 import { bundles, replays, users } from '../../db/schema';
-import { readSafety, replayDir } from '../../replays/replay-files';
+import { readCauses, readSafety, replayDir } from '../../replays/replay-files';
 import type { ReplayEvent, ReplayPool } from '../../replays/replay-pool';
 import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
+import { assertCaseMember, assertMemberOfCaseOf } from '../membership/case-access';
 import { createReplayRebuilder } from './rebuild-replay-files';
 import { toReplay } from './replay-mapper';
 import { createStepCache } from './step-cache';
@@ -40,8 +41,8 @@ export interface ReplaysServiceOptions {
 }
 
 interface LiveReplay {
-  /** Who started it: their running replays count against their cap. */
-  userId: string;
+  /** Whose cap the replay counts against; null for the system's own work (the demo seed). */
+  userId: string | null;
   progress: { step: number; steps: number } | null;
   controller: AbortController;
 }
@@ -50,6 +51,8 @@ interface LiveReplay {
 export type ReplayNotice =
   | { type: 'progress'; step: number; steps: number }
   | { type: 'finished'; replay: TReplay };
+
+const SEE_REPLAYS = 'see its replays';
 
 export function createReplaysService({
   db,
@@ -79,21 +82,35 @@ export function createReplaysService({
       .innerJoin(bundles, eq(bundles.id, replays.bundleId))
       .innerJoin(users, eq(users.id, replays.createdBy));
 
-  async function getReplay(id: string): Promise<TReplay> {
+  async function loadReplay(id: string): Promise<TReplay> {
     const [found] = await selectReplays().where(eq(replays.id, id));
     if (!found) throw new AppError('not_found', `No replay with id ${id}.`);
     return toReplay(found.row, { ...found, progress: live.get(id)?.progress ?? null });
   }
 
-  /** One replay with its separation and stopping analysis (read from the result files). */
-  async function getReplayWithSafety(id: string): Promise<TReplay> {
-    const replay = await getReplay(id);
-    if (replay.status !== 'done') return { ...replay, safety: null };
-    const { dir } = await requireResultFiles(id);
-    return { ...replay, safety: readSafety(dir) };
+  const assertMemberOfReplayCase = (id: string, actor: Actor) =>
+    assertMemberOfCaseOf(db, 'replay', id, actor, SEE_REPLAYS);
+
+  async function getReplay(id: string, actor: Actor): Promise<TReplay> {
+    await assertMemberOfReplayCase(id, actor);
+    return loadReplay(id);
   }
 
-  async function listBundleReplays(bundleId: string): Promise<TReplay[]> {
+  /** One replay with its separation and stopping analysis and its probable causes (read from the result files). */
+  async function getReplayWithSafety(id: string, actor: Actor): Promise<TReplay> {
+    const replay = await getReplay(id, actor);
+    if (replay.status !== 'done') return { ...replay, safety: null, causes: null };
+    const { dir } = await requireResultFiles(id, actor);
+    return { ...replay, safety: readSafety(dir), causes: readCauses(dir) };
+  }
+
+  async function listBundleReplays(bundleId: string, actor: Actor): Promise<TReplay[]> {
+    await assertMemberOfCaseOf(db, 'bundle', bundleId, actor, SEE_REPLAYS);
+    return readBundleReplays(bundleId);
+  }
+
+  /** Every replay of a bundle, unchecked: for the archive export, which checks membership once. */
+  async function readBundleReplays(bundleId: string): Promise<TReplay[]> {
     const rows = await selectReplays().where(eq(replays.bundleId, bundleId)).orderBy(desc(replays.createdAt));
     return rows.map((found) =>
       toReplay(found.row, { ...found, progress: live.get(found.row.id)?.progress ?? null }),
@@ -120,7 +137,7 @@ export function createReplaysService({
       .set({ ...values, finishedAt: new Date() })
       .where(eq(replays.id, id));
     live.delete(id);
-    notices.emit(id, { type: 'finished', replay: await getReplay(id) } satisfies ReplayNotice);
+    notices.emit(id, { type: 'finished', replay: await loadReplay(id) } satisfies ReplayNotice);
   }
 
   async function execute(
@@ -184,6 +201,7 @@ export function createReplaysService({
     const body = ZStartReplayRequest.parse(request);
     const [bundle] = await db.select().from(bundles).where(eq(bundles.id, bundleId));
     if (!bundle) throw new AppError('not_found', `No bundle with id ${bundleId}.`);
+    await assertCaseMember(db, bundle.caseId, actor, 'replay its evidence');
     if (bundle.status !== 'valid' || !bundle.manifest) {
       throw new AppError(
         'conflict',
@@ -209,14 +227,15 @@ export function createReplaysService({
     const id = randomUUID();
     try {
       await insertReplay(id, bundleId, bundle.caseId, body, resolved.settings, actor);
-      live.set(id, { userId: actor.id, progress: null, controller: new AbortController() });
+      // Start-up's own replays must not use up the demo person's cap before they start any.
+      live.set(id, { userId: capped ? actor.id : null, progress: null, controller: new AbortController() });
     } finally {
       const left = (starting.get(actor.id) ?? 1) - 1;
       if (left > 0) starting.set(actor.id, left);
       else starting.delete(actor.id);
     }
     void execute(id, bundleId, evidence.pathFor(bundle.sha256), body.overrides, resolved.settings);
-    return getReplay(id);
+    return loadReplay(id);
   }
 
   async function insertReplay(
@@ -251,7 +270,8 @@ export function createReplaysService({
 
   /** Cancels a live replay; the request is audited before the run is stopped, never after. */
   async function cancelReplay(id: string, actor: Actor): Promise<TReplay> {
-    const replay = await getReplay(id);
+    await assertMemberOfCaseOf(db, 'replay', id, actor, 'cancel its replays');
+    const replay = await loadReplay(id);
     const state = live.get(id);
     if (!state)
       throw new AppError(
@@ -275,26 +295,20 @@ export function createReplaysService({
     return () => notices.off(id, listener);
   }
 
-  async function requireDone(id: string): Promise<TReplay> {
-    const replay = await getReplay(id);
+  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
+  async function resultFilesOf(replay: TReplay): Promise<{ replay: TReplay; dir: string }> {
     if (replay.status !== 'done')
       throw new AppError(
         'conflict',
-        `Replay ${id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}, not finished.`,
+        `Replay ${replay.id} is ${REPLAY_STATUS_LABELS[replay.status].toLowerCase()}, not finished.`,
       );
-    return replay;
-  }
-
-  /** A done replay and its result folder, rebuilt from the original bundle if files are missing. */
-  async function requireResultFiles(id: string): Promise<{ replay: TReplay; dir: string }> {
-    const replay = await requireDone(id);
     const [bundle] = await db
       .select({ sha256: bundles.sha256 })
       .from(bundles)
       .where(eq(bundles.id, replay.bundleId));
     if (!bundle) throw new AppError('not_found', `No bundle with id ${replay.bundleId}.`);
     const dir = await rebuilder.ensureFiles({
-      id,
+      id: replay.id,
       bundlePath: evidence.pathFor(bundle.sha256),
       overrides: replay.overrides,
       digest: replay.digest,
@@ -302,12 +316,14 @@ export function createReplaysService({
     return { replay, dir };
   }
 
-  async function seriesFile(id: string): Promise<string> {
-    return path.join((await requireResultFiles(id)).dir, 'series.json');
+  const requireResultFiles = async (id: string, actor: Actor) => resultFilesOf(await getReplay(id, actor));
+
+  async function seriesFile(id: string, actor: Actor): Promise<string> {
+    return path.join((await requireResultFiles(id, actor)).dir, 'series.json');
   }
 
-  async function stepAt(id: string, step: number) {
-    const { replay, dir } = await requireResultFiles(id);
+  async function stepAt(id: string, step: number, actor: Actor) {
+    const { replay, dir } = await requireResultFiles(id, actor);
     if (step >= (replay.steps ?? 0)) {
       throw new AppError(
         'not_found',
@@ -317,12 +333,13 @@ export function createReplaysService({
     return steps.stepAt(id, replay.bundleId, dir, step);
   }
 
+  /** A finished replay's result folder, unchecked: for the archive export, which checks membership once. */
   async function resultDir(id: string): Promise<string> {
-    return (await requireResultFiles(id)).dir;
+    return (await resultFilesOf(await loadReplay(id))).dir;
   }
 
-  async function disagreementFile(id: string): Promise<string> {
-    return path.join((await requireResultFiles(id)).dir, 'disagreement.bin');
+  async function disagreementFile(id: string, actor: Actor): Promise<string> {
+    return path.join((await requireResultFiles(id, actor)).dir, 'disagreement.bin');
   }
 
   return {
@@ -330,6 +347,7 @@ export function createReplaysService({
     getReplay,
     getReplayWithSafety,
     listBundleReplays,
+    readBundleReplays,
     cancelReplay,
     subscribe,
     seriesFile,

@@ -9,6 +9,7 @@ import type { Actor } from '../actor';
 import type { AuditService } from '../audit/audit-service';
 import { loadPeople } from '../findings/people';
 import { loadCaseState } from '../lifecycle/case-state';
+import { assertCaseMember, assertMemberOfCaseOf } from '../membership/case-access';
 import { toSavedQuery } from './saved-query-mapper';
 
 function invalid(path: string, message: string): AppError {
@@ -38,6 +39,8 @@ function assertHashMatchesPreview(request: TCreateSavedQueryRequest): void {
 }
 
 /** SQL queries over a case's bundles, saved with their result hash as evidence. */
+const SEE_QUERIES = 'see its saved queries';
+
 export function createSavedQueriesService({ db, audit }: { db: Database; audit: AuditService }) {
   async function withPeople(rows: SavedQueryRow[]): Promise<TSavedQuery[]> {
     const people = await loadPeople(
@@ -53,7 +56,7 @@ export function createSavedQueriesService({ db, audit }: { db: Database; audit: 
     actor: Actor,
   ): Promise<TSavedQuery> {
     const row = await db.transaction(async (tx) => {
-      await loadCaseState(tx, caseId);
+      await assertCaseMember(tx, caseId, actor, 'save queries on it');
       const [bundle] = await tx
         .select({ caseId: bundles.caseId })
         .from(bundles)
@@ -90,7 +93,13 @@ export function createSavedQueriesService({ db, audit }: { db: Database; audit: 
     return (await withPeople([row]))[0];
   }
 
-  async function listQueries(caseId: string): Promise<TSavedQuery[]> {
+  async function listQueries(caseId: string, actor: Actor): Promise<TSavedQuery[]> {
+    await assertCaseMember(db, caseId, actor, SEE_QUERIES);
+    return readQueries(caseId);
+  }
+
+  /** The case's saved queries, unchecked: for the archive export, which checks membership once. */
+  async function readQueries(caseId: string): Promise<TSavedQuery[]> {
     await loadCaseState(db, caseId);
     return withPeople(
       await db
@@ -101,13 +110,14 @@ export function createSavedQueriesService({ db, audit }: { db: Database; audit: 
     );
   }
 
-  async function getQuery(queryId: string): Promise<TSavedQuery> {
+  async function getQuery(queryId: string, actor: Actor): Promise<TSavedQuery> {
+    await assertMemberOfCaseOf(db, 'savedQuery', queryId, actor, SEE_QUERIES);
     const [row] = await db.select().from(savedQueries).where(eq(savedQueries.id, queryId));
     if (!row) throw new AppError('not_found', `No saved query with id ${queryId}.`);
     return (await withPeople([row]))[0];
   }
 
-  return { saveQuery, listQueries, getQuery };
+  return { saveQuery, listQueries, readQueries, getQuery };
 }
 
 export type SavedQueriesService = ReturnType<typeof createSavedQueriesService>;

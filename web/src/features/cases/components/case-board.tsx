@@ -46,7 +46,7 @@ export function CaseBoard({ cases, isRefreshing }: { cases: TCase[] | undefined;
     <div
       aria-busy={!cases || isRefreshing}
       // Seven stages never fit a narrow window: columns keep a readable width and the board scrolls.
-      className={`grid grid-cols-[repeat(7,minmax(9.5rem,1fr))] gap-2 overflow-x-auto p-2 ${isRefreshing ? 'opacity-60 transition-opacity' : ''}`}
+      className={`grid grid-cols-[repeat(7,minmax(8.25rem,1fr))] gap-2 overflow-x-auto p-2 ${isRefreshing ? 'opacity-60 transition-opacity' : ''}`}
     >
       {COLUMNS.map((column) => {
         const inColumn = cases?.filter((item) => (item.path.standing ?? 'none') === column);

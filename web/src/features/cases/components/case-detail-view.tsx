@@ -12,6 +12,7 @@ import { ArrowLeft, FileQuestion } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { useCase } from '../api/get-case';
+import { CaseMembersPanel } from './case-members-panel';
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -128,6 +129,7 @@ export function CaseDetailView({ caseId, banner, evidence, sections }: { caseId:
         </Panel>
         {evidence}
       </div>
+      <CaseMembersPanel caseId={caseId} />
       {sections}
     </>
   );

@@ -11,6 +11,9 @@ const ZSource = z.looseObject({
   label: z.string().optional(),
   name: z.string().optional(),
   title: z.string().optional(),
+  note: z.string().optional(),
+  t: z.number().optional(),
+  replayLabel: z.string().optional(),
   resultSha256: z.string().optional(),
 });
 const ZSourceList = z.object({ items: z.array(ZSource) });
@@ -43,5 +46,11 @@ export function useEvidenceSources(caseId: string) {
   return useQuery(evidenceSourcesQueryOptions(caseId));
 }
 
-export const sourceLabel = (source: EvidenceSource) =>
-  source.label ?? source.name ?? source.title ?? source.id;
+/** A bookmark by its note, moment and replay; a saved query by its title; never a bare id if a name exists. */
+export function sourceLabel(source: EvidenceSource): string {
+  if (source.t !== undefined) {
+    const moment = `${source.t.toFixed(1)} s${source.replayLabel ? `, ${source.replayLabel}` : ''}`;
+    return source.note?.trim() ? `${source.note.trim()} (${moment})` : `Moment at ${moment}`;
+  }
+  return source.label ?? source.name ?? source.title ?? source.id;
+}

@@ -1,4 +1,5 @@
 import { type TEvidenceItem, ZEvidenceItem } from '@shared/contracts/findings';
+import { EVIDENCE_TYPE_LABELS } from '@shared/evidence-names';
 import { useQuery } from '@tanstack/react-query';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
@@ -8,7 +9,6 @@ import { SelectInput, TextInput } from '@web/components/inputs';
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
 import { type EvidenceSource, sourceLabel, useEvidenceSources } from '../api/get-evidence-sources';
-import { EVIDENCE_TYPE_LABELS } from './evidence-citation';
 
 interface Pending {
   type: TEvidenceItem['type'];

@@ -1,31 +1,56 @@
 import type { TEvidenceItem } from '@shared/contracts/findings';
+import {
+  EMPTY_EVIDENCE_NAMES,
+  EVIDENCE_TYPE_LABELS,
+  type EvidenceTarget,
+  nameEvidence,
+} from '@shared/evidence-names';
+import { paths } from '@web/config/paths';
+import { Link } from 'react-router-dom';
+import { useEvidenceNames } from '../api/get-evidence-names';
 
-export const EVIDENCE_TYPE_LABELS: Record<TEvidenceItem['type'], string> = {
-  replay: 'Replay',
-  bookmark: 'Bookmark',
-  saved_query: 'Saved query',
-  bundle_file: 'Bundle file',
-};
+function targetHref(caseId: string, target: EvidenceTarget): string {
+  if (target.isQuery) return paths.bundleSqlConsole.href(caseId, target.bundleId);
+  return paths.workspace.href(target.bundleId, target.replayId, target.t);
+}
 
-/** The identity and hash a citation carries, so a reader can check it against the evidence. */
-export function EvidenceCitation({ item }: { item: TEvidenceItem }) {
-  const [reference, hashLabel, hash] =
-    item.type === 'replay'
-      ? [`replay ${item.replayId}`, 'digest', item.digest]
-      : item.type === 'bookmark'
-        ? [`bookmark ${item.bookmarkId}`, null, null]
-        : item.type === 'saved_query'
-          ? [`query ${item.queryId}`, 'result SHA-256', item.resultSha256]
-          : [`${item.file} in bundle ${item.bundleId}`, 'SHA-256', item.sha256];
-  return (
-    <div className="min-w-0 text-sm">
-      <p>
-        <span className="font-bold">{EVIDENCE_TYPE_LABELS[item.type]}</span>{' '}
-        <span className="text-ink-muted break-all">{reference}</span>
+/**
+ * A cited item by name (bookmark note and time, replay label, query title, file name), opening
+ * what it cites, with the hash the citation stores so a reader can check it against the evidence.
+ */
+export function EvidenceCitation({ caseId, item }: { caseId: string; item: TEvidenceItem }) {
+  const names = useEvidenceNames(caseId);
+  const typeLabel = EVIDENCE_TYPE_LABELS[item.type];
+  if (names.isPending)
+    return (
+      <p className="text-sm text-ink-muted" aria-busy="true">
+        <span className="font-bold text-ink">{typeLabel}</span> (looking up its name…)
       </p>
-      {hash && (
+    );
+  // Without the names (the lookup failed) the citation still shows its id and hash.
+  const named = nameEvidence(item, names.data ?? EMPTY_EVIDENCE_NAMES);
+  return (
+    <div className="min-w-0 text-sm" data-testid="evidence-citation">
+      <p>
+        <span className="font-bold">{typeLabel}</span>{' '}
+        {named.target ? (
+          <Link className="text-accent hover:underline" to={targetHref(caseId, named.target)}>
+            {named.name}
+          </Link>
+        ) : (
+          <span>{named.name}</span>
+        )}
+      </p>
+      {names.isError ? (
+        <p className="text-xs text-state-bad">
+          The case's evidence names could not be loaded; try again later.
+        </p>
+      ) : (
+        <p className={`text-xs ${named.isFound ? 'text-ink-muted' : 'text-state-bad'}`}>{named.detail}</p>
+      )}
+      {named.hash && (
         <p className="text-xs text-ink-muted">
-          {hashLabel} <code className="break-all">{hash}</code>
+          {named.hash.label} <code className="break-all">{named.hash.value}</code>
         </p>
       )}
     </div>

@@ -24,7 +24,7 @@ export function EvidenceFields({
             key={field.id}
             className="grid grid-cols-[minmax(0,1fr)_16rem_auto] items-start gap-3 rounded-md bg-canvas-sunk/50 p-2"
           >
-            <EvidenceCitation item={form.getValues(`evidence.${index}`)} />
+            <EvidenceCitation caseId={caseId} item={form.getValues(`evidence.${index}`)} />
             <FormField label={`Note on evidence ${index + 1}`} isOptional>
               {(control) => <TextInput {...control} {...form.register(`evidence.${index}.note`)} />}
             </FormField>

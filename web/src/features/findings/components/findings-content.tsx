@@ -18,7 +18,7 @@ function Part({ title, children }: { title: string; children: ReactNode }) {
 const none = <p className="text-ink-muted italic">None.</p>;
 
 /** A frozen findings version, read-only, in the order a report would give it. */
-export function FindingsContent({ content }: { content: TFindingsContent }) {
+export function FindingsContent({ caseId, content }: { caseId: string; content: TFindingsContent }) {
   return (
     <div>
       <Part title="Incident class">{INCIDENT_CLASS_LABELS[content.incidentClass]}</Part>
@@ -48,7 +48,7 @@ export function FindingsContent({ content }: { content: TFindingsContent }) {
           <ul className="space-y-2">
             {content.evidence.map((item) => (
               <li key={JSON.stringify(item)}>
-                <EvidenceCitation item={item} />
+                <EvidenceCitation caseId={caseId} item={item} />
                 {item.note && <p className="text-ink-muted">{item.note}</p>}
               </li>
             ))}

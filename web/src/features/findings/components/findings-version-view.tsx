@@ -74,7 +74,7 @@ export function FindingsVersionView({
           By {loaded.author.name}, submitted <LocalTime iso={loaded.submittedAt} /> · SHA-256{' '}
           <code className="break-all">{loaded.sha256}</code>
         </p>
-        <FindingsContent content={loaded.content} />
+        <FindingsContent caseId={caseId} content={loaded.content} />
       </section>
       <div className="space-y-5">
         <section aria-labelledby="version-signature" className={`${PANEL} space-y-3`}>

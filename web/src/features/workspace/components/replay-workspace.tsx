@@ -1,13 +1,14 @@
 import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
 import { type ReactNode, useCallback, useDeferredValue, useMemo, useState } from 'react';
-import { useReplaySafety } from '../api/get-replay-safety';
+import { useReplayCauses, useReplaySafety } from '../api/get-replay-detail';
 import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import { useSafetyOverlay } from '../hooks/use-safety-overlay';
 import { useSafetyTrackSpecs } from '../hooks/use-safety-track-specs';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
+import { CausesPanel } from './causes-panel';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
 import { MomentLink } from './moment-link';
@@ -66,6 +67,7 @@ export function ReplayWorkspace({
   const last = Math.max(0, times.length - 1);
   const particles = useReplayStep(replay.id, Math.min(current, last), last);
   const safety = useReplaySafety(replay.id);
+  const causes = useReplayCauses(replay.id);
   const safetyTracks = useSafetyTrackSpecs(safety.data);
   const drawOverlay = useSafetyOverlay(safety.data, data.map?.footprint, data.tracks, data.series, current);
   const seekTime = useCallback((t: number) => setStep(Math.max(0, nearestStep(times, t))), [times]);
@@ -143,6 +145,11 @@ export function ReplayWorkspace({
               id: 'flags',
               label: `Flags (${replay.flags.length})`,
               content: <FlagsPanel flags={replay.flags} time={time} onOpen={seekTime} />,
+            },
+            {
+              id: 'causes',
+              label: `Probable causes (${causes.data?.length ?? 0})`,
+              content: <CausesPanel causes={causes.isError ? null : causes.data} onOpen={seekTime} />,
             },
             {
               id: 'safety',
