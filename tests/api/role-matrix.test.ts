@@ -231,7 +231,9 @@ function auditProblem(spec: RouteSpec, isSuccess: boolean, entries: { action: st
   const others = entries.filter(
     (entry) =>
       entry.action !== declared &&
-      !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared),
+      !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared) &&
+      // An upload records the received original first, then the validated bundle.
+      !(entry.action === 'bundle.receive' && declared === 'bundle.upload'),
   );
   if (own === 1 && others.length === 0) return null;
   return `declares ${declared} but left ${actions.join(', ') || 'no entry'}`;

@@ -79,6 +79,7 @@ export const ACCESS_POLICY: Record<string, RoutePolicy> = {
 
   // Findings and their review.
   'get /cases/:id/findings': caseRead(),
+  'get /cases/:id/evidence-names': caseRead(),
   'put /cases/:id/findings': caseWrite(['investigator']),
   'post /cases/:id/findings/submit': caseWrite(['investigator']),
   'get /cases/:id/findings/versions': caseRead(),

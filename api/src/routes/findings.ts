@@ -28,7 +28,7 @@ export function findingsRoutes(findings: FindingsService, reviews: ReviewService
       path: '/cases/:id/evidence-names',
       access: ROLES,
       handler: async (req, res) => {
-        res.json(await findings.getEvidenceNames(ZCaseParams.parse(req.params).id));
+        res.json(await findings.getEvidenceNames(ZCaseParams.parse(req.params).id, req.user));
       },
     },
     {

@@ -257,8 +257,8 @@ export function createFindingsService(deps: {
   }
 
   /** What each citable item of the case is called, so citations read by name. */
-  async function getEvidenceNames(caseId: string) {
-    await loadCaseState(db, caseId);
+  async function getEvidenceNames(caseId: string, actor: Actor) {
+    await assertCaseMember(db, caseId, actor, SEE_FINDINGS);
     return readEvidenceNames(db, caseId);
   }
 
