@@ -228,12 +228,12 @@ function auditProblem(spec: RouteSpec, isSuccess: boolean, entries: { action: st
   if (!isSuccess || !spec.audit) return actions.length ? `left entries ${actions.join(', ')}` : null;
   const declared = spec.audit.action;
   const own = actions.filter((action) => action === declared).length;
+  const earlier = new Set<string>(spec.audit.precededBy ?? []);
   const others = entries.filter(
     (entry) =>
       entry.action !== declared &&
-      !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared) &&
-      // An upload records the received original first, then the validated bundle.
-      !(entry.action === 'bundle.receive' && declared === 'bundle.upload'),
+      !earlier.has(entry.action) &&
+      !(entry.action === 'case.transition' && (entry.details as { cause?: string }).cause === declared),
   );
   if (own === 1 && others.length === 0) return null;
   return `declares ${declared} but left ${actions.join(', ') || 'no entry'}`;

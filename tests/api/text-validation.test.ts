@@ -6,6 +6,7 @@ import type { RouteSpec } from '../../api/src/http/route-spec';
 import { ZLoginRequest } from '../../shared/contracts/auth';
 import { ZCreateBookmarkRequest, ZUpdateBookmarkRequest } from '../../shared/contracts/bookmarks';
 import { ZCaseTransitionRequest } from '../../shared/contracts/case-lifecycle';
+import { ZAddCaseMemberRequest } from '../../shared/contracts/case-members';
 import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../shared/contracts/cases';
 import { ZEmptyBody } from '../../shared/contracts/empty-body';
 import { ZFindingsDraft, ZReturnRequest, ZSignoffRequest } from '../../shared/contracts/findings';
@@ -178,6 +179,18 @@ const BODIES: BodyCase[] = [
     body: { label: 'What-if', overrides: { resampling_method: 'systematic' } },
   },
   { route: 'delete /replays/:id', url: `/api/replays/${ID}`, contract: ZEmptyBody, body: {} },
+  {
+    route: 'post /cases/:id/members',
+    url: `/api/cases/${ID}/members`,
+    contract: ZAddCaseMemberRequest,
+    body: { userId: ID },
+  },
+  {
+    route: 'delete /cases/:id/members/:userId',
+    url: `/api/cases/${ID}/members/${ID}`,
+    contract: ZEmptyBody,
+    body: {},
+  },
   {
     route: 'post /cases/:id/bookmarks',
     url: `/api/cases/${ID}/bookmarks`,

@@ -4,6 +4,7 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { zipFolder } from '../../api/src/bundles/zip-folder';
 import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
+import { openCaseFromList } from './support/open-case';
 import { signInAs } from './support/sign-in';
 
 const SAMPLES = path.resolve('sample-logs');
@@ -33,12 +34,7 @@ describe('bundle upload page', () => {
 
     const page = await browser.open({ viewport: DESKTOP });
     await signInAs(page, 'investigator');
-    await page
-      .getByRole('row')
-      .filter({ hasText: /rack row B/i })
-      .getByRole('link')
-      .first()
-      .click();
+    await openCaseFromList(page, /rack row B/i);
     await page.getByRole('link', { name: 'Upload bundle' }).click();
     await page.getByRole('heading', { name: 'Upload an incident bundle' }).waitFor();
 

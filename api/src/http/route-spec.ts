@@ -19,6 +19,11 @@ export interface AuthedRequest extends Request {
  */
 export interface RouteAudit {
   action: AuditAction;
+  /**
+   * Entries the call commits on their own before its main one, e.g. an upload's `bundle.receive`
+   * custody entry, written before the original is parsed so a failed parse never leaves it unrecorded.
+   */
+  precededBy?: readonly AuditAction[];
 }
 
 export interface RouteSpec {

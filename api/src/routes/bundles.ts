@@ -34,7 +34,7 @@ export function bundleRoutes(bundles: BundlesService, options: BundleRouteOption
       access: ['investigator'],
       before: [upload],
       // A bundle that fails validation is still stored and audited; the answer is then 422.
-      audit: { action: 'bundle.upload' },
+      audit: { action: 'bundle.upload', precededBy: ['bundle.receive'] },
       handler: async (req, res) => {
         const { id: caseId } = ZCaseParams.parse(req.params);
         if (!req.file) {

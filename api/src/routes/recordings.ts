@@ -28,7 +28,7 @@ export function recordingRoutes(
       path: '/cases/:id/recordings',
       access: ['investigator'],
       before: [upload],
-      audit: { action: 'bundle.upload' },
+      audit: { action: 'bundle.upload', precededBy: ['bundle.receive'] },
       handler: async (req, res) => {
         const { id: caseId } = ZCaseParams.parse(req.params);
         const uploaded = (req.files ?? {}) as Record<string, Express.Multer.File[]>;

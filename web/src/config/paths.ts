@@ -105,6 +105,7 @@ export const apiPaths = {
   caseAudit: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/audit`,
   caseAuditVerify: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/audit/verify`,
   caseBundles: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bundles`,
+  caseRecordings: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/recordings`,
   caseBookmarks: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bookmarks`,
   caseQueries: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/queries`,
   caseMembers: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/members`,

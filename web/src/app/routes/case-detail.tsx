@@ -3,6 +3,7 @@ import { Panel } from '@web/components/panel';
 import { CaseArchivesPanel } from '@web/features/archives/components/case-archives-panel';
 import { useMe } from '@web/features/auth/api/get-me';
 import { CaseBundlesList } from '@web/features/bundles/components/case-bundles-list';
+import { RecordingUploadPanel } from '@web/features/bundles/components/recording-upload-panel';
 import { caseQueryOptions } from '@web/features/cases/api/get-case';
 import { CaseDetailView } from '@web/features/cases/components/case-detail-view';
 import { CaseHoldPanel } from '@web/features/holds/components/case-hold-panel';
@@ -26,9 +27,16 @@ export function CaseDetailRoute() {
       caseId={caseId}
       banner={role && <CaseHoldPanel caseId={caseId} role={role} />}
       evidence={
-        <Panel id="case-bundles" title="Bundles and replays">
-          <CaseBundlesList caseId={caseId} canUpload={role === 'investigator'} />
-        </Panel>
+        <div className="space-y-5">
+          <Panel id="case-bundles" title="Bundles and replays">
+            <CaseBundlesList caseId={caseId} canUpload={role === 'investigator'} />
+          </Panel>
+          {role === 'investigator' && (
+            <Panel id="case-recording" title="Robot recording">
+              <RecordingUploadPanel caseId={caseId} />
+            </Panel>
+          )}
+        </div>
       }
       sections={
         role && (

@@ -1,8 +1,9 @@
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
+import { DropZone } from '@web/components/drop-zone';
 import { paths } from '@web/config/paths';
 import { FileUp, Microscope, Upload } from 'lucide-react';
-import { type DragEvent, useId, useRef, useState } from 'react';
+import { useId, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useUploadBundle } from '../api/upload-bundle';
 import { BundleOverview } from './bundle-overview';
@@ -12,7 +13,6 @@ import { ValidationReport } from './validation-report';
 export function UploadView({ caseId }: { caseId: string }) {
   const inputId = useId();
   const inputRef = useRef<HTMLInputElement>(null);
-  const [isDragOver, setIsDragOver] = useState(false);
   const [chosen, setChosen] = useState<File | null>(null);
   const upload = useUploadBundle(caseId);
 
@@ -21,26 +21,11 @@ export function UploadView({ caseId }: { caseId: string }) {
     setChosen(file);
     upload.mutate(file);
   };
-  const onDrop = (event: DragEvent<HTMLDivElement>) => {
-    event.preventDefault();
-    setIsDragOver(false);
-    send(event.dataTransfer.files[0]);
-  };
   const outcome = upload.data;
 
   return (
     <div className="space-y-5">
-      {/* biome-ignore lint/a11y/noStaticElementInteractions: dropping is a mouse shortcut; the labelled button below is the keyboard path. */}
-      <div
-        onDragOver={(event) => {
-          event.preventDefault();
-          setIsDragOver(true);
-        }}
-        onDragLeave={() => setIsDragOver(false)}
-        onDrop={onDrop}
-        className={`flex flex-col items-center rounded-lg border-2 border-dashed px-6 py-10 text-center ${isDragOver ? 'border-accent bg-accent-soft' : 'border-canvas-line bg-canvas-raised'}`}
-        data-testid="drop-zone"
-      >
+      <DropZone onFiles={(files) => send(files[0])} testId="drop-zone" className="py-10">
         <FileUp aria-hidden className="size-8 text-ink-faint" />
         <p className="mt-2 font-bold">Drop an incident bundle (.zip) here</p>
         <p className="text-sm text-ink-muted">
@@ -65,7 +50,7 @@ export function UploadView({ caseId }: { caseId: string }) {
         >
           Choose bundle file
         </Button>
-      </div>
+      </DropZone>
 
       {upload.isPending && chosen && (
         <div aria-live="polite">

@@ -1,0 +1,63 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { writeMcap } from '../support/recordings/write-mcap';
+import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
+import { openCaseFromList } from './support/open-case';
+import { signInAs } from './support/sign-in';
+
+/**
+ * The case page's robot-recording upload, as an investigator uses it: an MCAP written by
+ * @mcap/core's own writer becomes a valid bundle shown with its overview, and a file that is no
+ * recording gets the server's plain-words reason naming the file.
+ */
+const SAMPLE = path.resolve('sample-logs/wheel-slip');
+
+async function openCase(page: Awaited<ReturnType<ReturnType<typeof useBrowser>['open']>>) {
+  await signInAs(page, 'investigator');
+  await openCaseFromList(page, /rack row B/i);
+  await page.getByRole('heading', { name: 'Robot recording' }).waitFor();
+}
+
+describe('robot recording upload on the case page', () => {
+  const browser = useBrowser();
+
+  it('reads a recording into a bundle and shows its overview, then names what is wrong with a bad file', async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-recording-e2e-'));
+    const mcap = await writeMcap(SAMPLE, path.join(dir, 'heron-dock.mcap'), {
+      compression: 'zstd',
+      scanLimit: 150,
+    });
+    const page = await browser.open({ viewport: DESKTOP });
+    await openCase(page);
+    const panel = page.getByRole('form', { name: 'Upload a robot recording' });
+    const send = panel.getByRole('button', { name: 'Read recording' });
+    expect(await send.isDisabled()).toBe(true);
+
+    await panel.getByLabel('Recording', { exact: true }).setInputFiles(mcap);
+    expect(await panel.getByTestId('chosen-recording').textContent()).toContain('heron-dock.mcap');
+    await panel.getByLabel(/Incident time/).fill('21.5');
+    await send.click();
+    const overview = panel.getByTestId('bundle-overview');
+    await overview.waitFor({ timeout: 120_000 });
+    const text = (await overview.textContent()) ?? '';
+    expect(text).toContain('Valid');
+    expect(text).toContain('heron-dock-bundle.zip');
+    expect(await panel.getByRole('link', { name: 'Open workspace' }).count()).toBe(1);
+    await saveScreenshot(page, 'recording-upload-valid');
+    // The derived bundle is listed on the case like any bundle.
+    await page.getByTestId('bundle-row').filter({ hasText: 'heron-dock-bundle.zip' }).first().waitFor();
+
+    const notRecording = path.join(dir, 'gate-camera.mcap');
+    fs.writeFileSync(notRecording, `a camera export, not a robot recording ${Date.now()}`);
+    await panel.getByLabel('Recording', { exact: true }).setInputFiles(notRecording);
+    await send.click();
+    const alert = panel.getByRole('alert').filter({ hasText: 'The recording could not be read' });
+    await alert.waitFor({ timeout: 60_000 });
+    expect(await alert.textContent()).toContain('gate-camera.mcap');
+    await saveScreenshot(page, 'recording-upload-unreadable');
+
+    await page.context().close();
+  }, 240_000);
+});
