@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
-import { startReplayAndWait } from './support/replays';
+import { openReplaysList, startReplayAndWait } from './support/replays';
 import { signInAs } from './support/sign-in';
 
 describe('re-run in this browser', () => {
@@ -29,9 +29,7 @@ describe('re-run in this browser', () => {
     const legal = await browser.open({ viewport: DESKTOP });
     await signInAs(legal, 'legal');
     await legal.goto(workspaceUrl);
-    const details = legal.locator('details').filter({ hasText: 'Replays (' });
-    await details.waitFor();
-    if ((await details.getAttribute('open')) === null) await details.locator('summary').click();
+    await openReplaysList(legal);
     const row = legal.getByTestId('replay-row').filter({ hasText: label }).first();
     await row.getByRole('button', { name: 'Re-run in this browser' }).click();
     const verdict = row.locator('[data-verdict]');

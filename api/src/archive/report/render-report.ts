@@ -65,7 +65,7 @@ function findingsSection(evidence: CaseEvidence, text: ReportText): string {
     )
     .join('');
   return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${text.time(shown.submittedAt)}. ${status}</p>
-<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'none')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'none')}</tbody></table>
+<table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'None given')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'None given')}</tbody></table>
 <h3>Evidence cited (${countOf(c.evidence.length, 'item')})</h3>${citedEvidenceList(c.evidence, evidenceNamesOf(evidence))}
 <h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>
 <h3>Reviewers' comments</h3>${reviewsList(evidence, text)}`;
@@ -103,7 +103,7 @@ function fixesSection(evidence: CaseEvidence, text: ReportText): string {
   return `<table><thead><tr><th>Fix</th><th>Link</th><th>Verification replay</th><th>Verified</th></tr></thead><tbody>${evidence.fixes
     .map((fix) => {
       const replay = fix.verificationReplayId ? digests.get(fix.verificationReplayId) : undefined;
-      return `<tr><td>${escapeHtml(fix.description)}<br><span class="unit">linked by ${escapeHtml(fix.linkedBy.name)} on ${text.time(fix.linkedAt)}</span></td><td class="hash">${escapeHtml(fix.url ?? '')} ${escapeHtml(fix.commitId ?? '')}</td><td>${fix.verificationReplayId ? `<span class="hash">${escapeHtml(fix.verificationReplayId)}</span>${replay ? `<br>${countOf(replay.flags.length, 'flag')}, RMSE ${replay.metrics.rmse_reference?.toFixed(3) ?? '–'} m` : ''}` : 'none'}</td><td>${fix.verifiedAt ? `<span class="ok">✓</span> ${escapeHtml(fix.verifiedBy?.name)} on ${text.time(fix.verifiedAt)}` : 'not yet'}</td></tr>`;
+      return `<tr><td>${escapeHtml(fix.description)}<br><span class="unit">linked by ${escapeHtml(fix.linkedBy.name)} on ${text.time(fix.linkedAt)}</span></td><td class="hash">${escapeHtml(fix.url ?? '')} ${escapeHtml(fix.commitId ?? '')}</td><td>${fix.verificationReplayId ? `<span class="hash">${escapeHtml(fix.verificationReplayId)}</span>${replay ? `<br>${countOf(replay.flags.length, 'flag')}, RMSE ${replay.metrics.rmse_reference?.toFixed(3) ?? '–'} m` : ''}` : 'Not linked'}</td><td>${fix.verifiedAt ? `<span class="ok">✓</span> ${escapeHtml(fix.verifiedBy?.name)} on ${text.time(fix.verifiedAt)}` : 'not yet'}</td></tr>`;
     })
     .join('')}</tbody></table>`;
 }
@@ -128,7 +128,7 @@ function custodySection(evidence: CaseEvidence, text: ReportText): string {
     )
     .join('');
   return `<h3>Earlier exports</h3>${exports.length ? `<table><thead><tr><th>When</th><th>Who</th><th>Archive SHA-256</th></tr></thead><tbody>${exportRows}</tbody></table>` : '<p>This is the first export of the case.</p>'}
-<h3>Audit trail</h3><p>${countOf(evidence.auditChain.length, 'entry', 'entries')}; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'none')}</span>.</p>
+<h3>Audit trail</h3><p>${countOf(evidence.auditChain.length, 'entry', 'entries')}; hash chain ${chain.ok ? '<span class="ok">✓ intact</span>' : `<span class="bad">✗ broken at entry ${chain.firstBroken?.chainSeq}: ${escapeHtml(chain.firstBroken?.reason)}</span>`}. Last entry hash <span class="hash">${escapeHtml(evidence.auditChain.at(-1)?.entryHash ?? 'no entries yet')}</span>.</p>
 <table><thead><tr><th>Action</th><th>Entries</th></tr></thead><tbody>${actionRows}</tbody></table>
 <h3>Audit trail in order</h3><table><thead><tr><th>#</th><th>When</th><th>Who</th><th>Role</th><th>What</th></tr></thead><tbody>${evidence.auditChain
     .map(
