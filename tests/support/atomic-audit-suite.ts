@@ -110,6 +110,15 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
     it('rolls the write back and answers audit_failed when the audit entry cannot be stored', async () => {
       const caseId = await createCase(t);
       const target = await engineer();
+      // Someone not yet on the case, so adding them is a write of its own.
+      const newcomer = await as(t, 'admin').post('/api/users', {
+        email: 'atomic.newcomer@driftcase.example',
+        name: 'Tomasz Okafor',
+        role: 'investigator',
+        password: 'long-enough-password',
+      });
+      expect(newcomer.status).toBe(201);
+      const membersBefore = (await as(t, 'investigator').get(`/api/cases/${caseId}/members`)).body;
       const [{ casesBefore }] = await t.database.db.select({ casesBefore: count() }).from(cases);
       const allow = await refuse('audit_entries', 'insert');
       try {
@@ -124,6 +133,7 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
             incidentTime: '2026-10-03T06:41:00Z',
             severity: 'low',
           }),
+          await as(t, 'investigator').post(`/api/cases/${caseId}/members`, { userId: newcomer.body.id }),
         ];
         for (const res of calls) {
           expect(res.status).toBe(500);
@@ -138,6 +148,7 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
       expect((await engineer()).role).toBe('engineer');
       const [{ casesAfter }] = await t.database.db.select({ casesAfter: count() }).from(cases);
       expect(casesAfter).toBe(casesBefore);
+      expect((await as(t, 'investigator').get(`/api/cases/${caseId}/members`)).body).toEqual(membersBefore);
     });
 
     it('leaves no entry and no half-done write when the write itself fails', async () => {
