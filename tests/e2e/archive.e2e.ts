@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { CAUSES_CAUTION } from '../../shared/causes-caution';
 import { SAFETY_CAUTION } from '../../shared/safety-caution';
 import { readZipEntries } from '../archive/rewrite-zip';
 import { runVerifyArchive } from '../archive/run-verify-archive';
@@ -55,6 +56,19 @@ describe('evidence archive', () => {
     });
     await reportPage.goto(`file://${reportFile}`);
     await reportPage.getByText(SAFETY_CAUTION.slice(0, 60), { exact: false }).first().waitFor();
+    // The wheel-slip demo's probable causes, under their own caution, first the odometry fault
+    // the sample injects (sample-logs/catalog.json), with a counterfactual that supports it.
+    await reportPage.getByText(CAUSES_CAUTION).first().waitFor();
+    const causes = reportPage
+      .locator('h4', { hasText: 'Probable causes' })
+      .first()
+      .locator('xpath=following-sibling::table[1]');
+    expect(await causes.locator('tbody tr').first().locator('td').first().textContent()).toBe(
+      'Odometry fault',
+    );
+    expect(await causes.locator('tbody tr').first().textContent()).toMatch(
+      /✓ supports.*digest [0-9a-f]{64}/s,
+    );
     expect(outside).toEqual([]);
     await saveScreenshot(reportPage, 'archive-report', { fullPage: true });
     for (const format of ['A4', 'Letter'] as const) {

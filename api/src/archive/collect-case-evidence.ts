@@ -6,10 +6,10 @@ import type { TCase } from '../../../shared/contracts/cases';
 import type { TFindingsVersion } from '../../../shared/contracts/findings';
 import type { TFix } from '../../../shared/contracts/fixes';
 import type { TJwkSet } from '../../../shared/contracts/keys';
-import type { TReplay } from '../../../shared/contracts/replays';
+import type { TProbableCause, TReplay } from '../../../shared/contracts/replays';
 import type { SafetyReport } from '../../../shared/safety/safety-report';
 import type { ReplayResultFile } from '../replays/replay-files';
-import { readReplayResultFile, readSafety } from '../replays/replay-files';
+import { readCauses, readReplayResultFile, readSafety } from '../replays/replay-files';
 import { collectRecordingOriginals, type RecordingOriginal } from './collect-recording-originals';
 
 /**
@@ -34,6 +34,8 @@ export interface CaseEvidence {
     series: Record<string, (number | null)[]>;
     /** Separation and stopping analysis; null for replays made before it existed. */
     safety: SafetyReport | null;
+    /** Probable causes; null for replays made before they were ranked. */
+    causes: TProbableCause[] | null;
   }[];
   findings: TFindingsVersion[];
   fixes: TFix[];
@@ -85,6 +87,7 @@ export async function collectCaseEvidence(
         result: readReplayResultFile(dir),
         series,
         safety: readSafety(dir),
+        causes: readCauses(dir),
       });
     }
   }

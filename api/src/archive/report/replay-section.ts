@@ -7,6 +7,7 @@ import {
   labelFor,
 } from '../../../../shared/human-labels';
 import type { CaseEvidence } from '../collect-case-evidence';
+import { renderCausesSection } from './causes-section';
 import { renderMapPictureSvg } from './map-picture-svg';
 import { escapeHtml, formatNumber, SERIES_COLOURS } from './report-colours';
 import type { ReportText } from './report-text';
@@ -120,6 +121,7 @@ export function renderReplaySection(entry: ReplayEvidence, bundle: Bundle | null
 <figure>${essChart}<figcaption>Shaded: flag intervals. Ticks on the time axis: recorded events.</figcaption></figure>
 <figure>${errorChart}<figcaption><span style="color:${SERIES_COLOURS.reference}">reference</span> and <span style="color:${SERIES_COLOURS.onboard}">onboard</span> error; shaded: flags.</figcaption></figure>
 ${result.flags.length ? `<p>${countOf(result.flags.length, 'flag')} raised.</p><table><thead><tr><th>Flag</th><th>Severity</th><th>When</th><th>Evidence</th></tr></thead><tbody>${flagRows}</tbody></table>` : '<p>No flags were raised.</p>'}
+${renderCausesSection(entry.causes)}
 ${entry.safety ? renderSafetySection(entry.safety, events) : '<p>No separation and stopping analysis: this replay was made before Driftcase had one; run it again to get it.</p>'}
 ${mapPictures(entry, bundle)}
 </section>`;

@@ -5,6 +5,7 @@ import type { ProbableCause } from '@shared/engine/causes/cause-types';
 import { findProbableCauses } from '@shared/engine/causes/find-probable-causes';
 import { parseReplayOverrides, type TReplayOverrides } from '@shared/engine/settings';
 import { createSafetyObserver } from '@shared/safety/safety-observer';
+import { CAUSES_CAUTION } from '../../../../shared/causes-caution';
 import { readBundleSourceFiles } from '../../bundles/read-bundle-files';
 import { analyseReplay } from '../../replays/analyse-replay';
 import { nodeEngineStamp } from '../../replays/runtime';
@@ -115,7 +116,7 @@ function describeTopCauses(causes: ProbableCause[]): string[] {
         (support ? ` Counterfactual: ${support.label} (digest ${support.digest.slice(0, 12)}).` : '')
       );
     }),
-    "  Causes are engineering aids: they support but do not replace the investigator's and a licensed safety professional's judgement.",
+    `  ${CAUSES_CAUTION}`,
   ];
 }
 

@@ -1,3 +1,4 @@
+import { CAUSES_CAUTION } from '@shared/causes-caution';
 import type { TProbableCause } from '@shared/contracts/replays';
 import { CAUSE_KIND_LABELS, labelFor } from '@shared/human-labels';
 import { SafetyCautionNote } from '@web/components/safety-caution-note';
@@ -9,9 +10,6 @@ interface CausesPanelProps {
   causes: TProbableCause[] | null | undefined;
   onOpen: (time: number) => void;
 }
-
-const CAUSES_CAUTION =
-  "Probable causes are engineering aids from recorded data: they support, but do not replace, the investigator's judgement and that of a licensed safety professional.";
 
 /** A counterfactual value with its sign, or a dash where it could not be measured. */
 const formatValue = (value: number | null) => (value === null ? '—' : value.toFixed(3));
