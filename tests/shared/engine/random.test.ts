@@ -50,7 +50,7 @@ describe('philox4x32-10', () => {
     }
   });
 
-  it('equals a 64-bit integer (BigInt) transcription of the round function on many counters', () => {
+  it('equals an independent 64-bit integer (BigInt) implementation of the round function on many counters', () => {
     // Philox4x32 round (Salmon et al. 2011, section 4.2): (hi(M0 c0) ^ c1 ^ k0, lo(M1 c2),
     // hi(M1 c2) ^ c3 ^ k1, lo(M0 c0)) with the full 64-bit products, the key bumped by the
     // Weyl constants after each of 10 rounds. Words with every high bit set stress the products.
