@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEntries } from '../../api/src/db/schema';
 import { demoActor } from '../support/case-members';
-import { as, createCase, SAMPLE_FINDINGS } from '../support/case-work-fixtures';
+import { as, createCase, createPerson, SAMPLE_FINDINGS } from '../support/case-work-fixtures';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -16,7 +16,7 @@ let outsider: { id: string; token: string };
 
 beforeAll(async () => {
   t = await createTestApp();
-  const created = await as(t, 'admin').post('/api/users', {
+  const created = await createPerson(t, {
     email: 'second-investigator@driftcase.example',
     name: 'Noor Haddad',
     role: 'investigator',
@@ -26,7 +26,7 @@ beforeAll(async () => {
     .post('/api/auth/login')
     .send({ email: 'second-investigator@driftcase.example', password: 'second-investigator-pw' })
     .expect(200);
-  outsider = { id: created.body.id, token: signedIn.body.token };
+  outsider = { id: created.id, token: signedIn.body.token };
 });
 afterAll(() => t.close());
 

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { as, caseWithDraft, submittedCase } from '../support/case-work-fixtures';
+import { as, caseWithDraft, createPerson, submittedCase } from '../support/case-work-fixtures';
 import { startCapturingSmtp } from '../support/fake-smtp';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -35,13 +35,12 @@ describe('notifications', () => {
   });
 
   it("mails a submission to the case's reviewers, and to every reviewer when the case has none", async () => {
-    const second = await as(t, 'admin').post('/api/users', {
+    await createPerson(t, {
       email: 'second-reviewer@driftcase.example',
       name: 'Sol Ferreira',
       role: 'reviewer',
       password: 'second-reviewer-pw',
     });
-    expect(second.status).toBe(201);
     const recipientsOfSubmit = async (caseId: string) => {
       await as(t, 'investigator').post(`/api/cases/${caseId}/findings/submit`);
       await t.app.locals.services.mailQueue.processDue();

@@ -4,7 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEntries, cases, findingVersions, users } from '../../api/src/db/schema';
 import { makeBundleFiles, makeTempDir, writeBundleZip } from './bundle-fixtures';
-import { as, caseWithDraft, createCase } from './case-work-fixtures';
+import { as, caseWithDraft, createCase, createPerson } from './case-work-fixtures';
 import type { TestApp } from './test-app';
 
 /**
@@ -111,13 +111,12 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
       const caseId = await createCase(t);
       const target = await engineer();
       // Someone not yet on the case, so adding them is a write of its own.
-      const newcomer = await as(t, 'admin').post('/api/users', {
+      const newcomer = await createPerson(t, {
         email: 'atomic.newcomer@driftcase.example',
         name: 'Tomasz Okafor',
         role: 'investigator',
         password: 'long-enough-password',
       });
-      expect(newcomer.status).toBe(201);
       const membersBefore = (await as(t, 'investigator').get(`/api/cases/${caseId}/members`)).body;
       const [{ casesBefore }] = await t.database.db.select({ casesBefore: count() }).from(cases);
       const allow = await refuse('audit_entries', 'insert');
@@ -133,7 +132,7 @@ export function describeAtomicAudit(database: string, open: () => Promise<TestAp
             incidentTime: '2026-10-03T06:41:00Z',
             severity: 'low',
           }),
-          await as(t, 'investigator').post(`/api/cases/${caseId}/members`, { userId: newcomer.body.id }),
+          await as(t, 'investigator').post(`/api/cases/${caseId}/members`, { userId: newcomer.id }),
         ];
         for (const res of calls) {
           expect(res.status).toBe(500);

@@ -46,6 +46,14 @@ function expectStatus(res: request.Response, status: number, what: string) {
  * A case opened by the demo investigator, who then adds `team` (by default the demo reviewer,
  * engineer and legal) as members, as its creator would before handing work on.
  */
+/** A new account made by the demo admin, as on the users page; returns the created person. */
+export async function createPerson(
+  t: TestApp,
+  person: { email: string; name: string; role: Role; password: string },
+): Promise<{ id: string; email: string }> {
+  return expectStatus(await as(t, 'admin').post('/api/users', person), 201, 'create person').body;
+}
+
 export async function createCase(
   t: TestApp,
   title = 'Dock 4 contact',

@@ -6,13 +6,11 @@ import {
   ZUploadResponse,
 } from '@shared/contracts/bundles';
 import { isErrorBody } from '@shared/errors';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPaths } from '@web/config/paths';
 import { ApiError } from '@web/lib/api-client';
 import { sendFormWithProgress, uploadAnswerError } from '@web/lib/send-form-with-progress';
-import { useState } from 'react';
 import { z } from 'zod';
-import { caseBundlesQueryOptions } from './get-case-bundles';
+import { useCaseUpload } from './use-case-upload';
 
 /** What the server decided about an upload: stored and valid, or stored but invalid with its issues. */
 export type UploadOutcome =
@@ -44,14 +42,5 @@ export async function uploadBundle(
 
 /** Upload with its progress (0..1); refreshes the case's bundle list either way. */
 export function useUploadBundle(caseId: string) {
-  const queryClient = useQueryClient();
-  const [progress, setProgress] = useState(0);
-  const mutation = useMutation({
-    mutationFn: (file: File) => {
-      setProgress(0);
-      return uploadBundle(caseId, file, setProgress);
-    },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: caseBundlesQueryOptions(caseId).queryKey }),
-  });
-  return { ...mutation, progress };
+  return useCaseUpload(caseId, uploadBundle);
 }

@@ -1,10 +1,8 @@
 import { type TBundleRecord, ZUploadResponse } from '@shared/contracts/bundles';
 import { isErrorBody } from '@shared/errors';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPaths } from '@web/config/paths';
 import { sendFormWithProgress, uploadAnswerError } from '@web/lib/send-form-with-progress';
-import { useState } from 'react';
-import { caseBundlesQueryOptions } from './get-case-bundles';
+import { useCaseUpload } from './use-case-upload';
 
 /** The multipart fields of `POST /api/cases/:id/recordings`, one file each. */
 export const RECORDING_FILE_ROLES = ['recording', 'map', 'map_image', 'params', 'robot'] as const;
@@ -51,14 +49,5 @@ export async function uploadRecording(
 
 /** Recording upload with its progress (0..1); refreshes the case's bundle list either way. */
 export function useUploadRecording(caseId: string) {
-  const queryClient = useQueryClient();
-  const [progress, setProgress] = useState(0);
-  const mutation = useMutation({
-    mutationFn: (upload: RecordingUpload) => {
-      setProgress(0);
-      return uploadRecording(caseId, upload, setProgress);
-    },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: caseBundlesQueryOptions(caseId).queryKey }),
-  });
-  return { ...mutation, progress };
+  return useCaseUpload(caseId, uploadRecording);
 }
