@@ -12,11 +12,12 @@ interface Pending {
   reject: (e: Error) => void;
 }
 
-function makeLane(lastStep = 100) {
+function makeLane(lastStep = 100, options: { minGapMs?: number } = {}) {
+  const clock = { now: 0 };
   const pending: Pending[] = [];
   const asked: number[] = [];
   const cache = new Map<number, string>();
-  const timers: (() => void)[] = [];
+  const timers: { fire: () => void; due: number }[] = [];
   let state: StepLaneState<string> | null = null;
   const lane = new StepLane<string>({
     lastStep,
@@ -32,7 +33,10 @@ function makeLane(lastStep = 100) {
     },
     prefetchAhead: 2,
     prefetchBehind: 1,
-    setTimer: (callback) => timers.push(callback),
+    // Pacing has a test of its own below; here every request may follow the last at once.
+    minGapMs: options.minGapMs ?? 0,
+    now: () => clock.now,
+    setTimer: (callback, ms) => timers.push({ fire: callback, due: clock.now + ms }),
     clearTimer: () => timers.splice(0),
   });
   const answer = async (step: number) => {
@@ -60,9 +64,16 @@ function makeLane(lastStep = 100) {
     fail,
     cache,
     fireTimers: () => {
-      for (const fire of timers.splice(0)) fire();
+      for (const { fire } of timers.splice(0)) fire();
+    },
+    /** Fires only the timers whose time has come on the test clock. */
+    fireDueTimers: () => {
+      const due = timers.filter((timer) => timer.due <= clock.now);
+      for (const timer of due) timers.splice(timers.indexOf(timer), 1);
+      for (const { fire } of due) fire();
     },
     state: () => state,
+    clock,
   };
 }
 
@@ -110,6 +121,22 @@ describe('StepLane (latest-wins step requests)', () => {
     expect(t.live()).toEqual([60]);
     await t.answer(60);
     expect(t.state()?.drawnStep).toBe(60);
+  });
+
+  it('asks for the cursor step no faster than the least gap, however fast the server answers', async () => {
+    // 60 pointer moves over 1 s, each answered at once: without pacing the lane would ask 60 times.
+    const t = makeLane(6000, { minGapMs: 50 });
+    for (let frame = 0; frame < 60; frame++) {
+      t.clock.now = frame * (1000 / 60);
+      // The server answers each request one frame after it was made, when the cursor has moved on.
+      const earlier = t.live();
+      t.lane.seek(frame * 100);
+      t.fireDueTimers();
+      for (const step of earlier) if (t.live().includes(step)) await t.answer(step);
+    }
+    // At most one request per 50 ms over the second, plus the first.
+    expect(t.asked.length).toBeLessThanOrEqual(21);
+    expect(t.asked.length).toBeGreaterThan(1);
   });
 
   it('a cached step is drawn at once and aborts what is in flight', () => {

@@ -18,6 +18,12 @@ export interface StepLaneOptions<T> {
   settleMs?: number;
   prefetchAhead?: number;
   prefetchBehind?: number;
+  /**
+   * Least time (ms) between two requests for the cursor's step. Without it a fast server is asked
+   * as often as it answers while the pointer moves, so the request count grows with its speed.
+   */
+  minGapMs?: number;
+  now?: () => number;
   setTimer?: (callback: () => void, ms: number) => unknown;
   clearTimer?: (handle: unknown) => void;
 }
@@ -41,6 +47,7 @@ interface Request {
 export const STEP_LANE_SETTLE_MS = 90;
 export const STEP_LANE_PREFETCH_AHEAD = 6;
 export const STEP_LANE_PREFETCH_BEHIND = 2;
+export const STEP_LANE_MIN_GAP_MS = 50;
 
 export class StepLane<T> {
   private readonly options: Required<StepLaneOptions<T>>;
@@ -51,12 +58,15 @@ export class StepLane<T> {
   private error: Error | null = null;
   private settleTimer: unknown = null;
   private isDisposed = false;
+  private lastStartAt = Number.NEGATIVE_INFINITY;
 
   constructor(options: StepLaneOptions<T>) {
     this.options = {
       settleMs: STEP_LANE_SETTLE_MS,
       prefetchAhead: STEP_LANE_PREFETCH_AHEAD,
       prefetchBehind: STEP_LANE_PREFETCH_BEHIND,
+      minGapMs: STEP_LANE_MIN_GAP_MS,
+      now: () => performance.now(),
       setTimer: (callback, ms) => setTimeout(callback, ms),
       clearTimer: (handle) => clearTimeout(handle as ReturnType<typeof setTimeout>),
       ...options,
@@ -89,18 +99,14 @@ export class StepLane<T> {
     this.emit();
     if (this.requests.some((r) => r.step === step)) return;
     if (this.requests.length === 0) {
-      this.start(step, false);
+      this.startTargetPaced();
       return;
     }
     // A request is in progress: drop the superseded newest one and wait for the cursor to rest
     // (or for the one in progress to finish) before asking for this step.
     const [, ...newer] = this.requests;
     for (const r of newer) this.abort(r);
-    this.settleTimer = this.options.setTimer(() => {
-      this.settleTimer = null;
-      if (!this.isLoaded(this.target) && !this.requests.some((r) => r.step === this.target))
-        this.start(this.target, false);
-    }, this.options.settleMs);
+    this.startTargetAfter(this.options.settleMs);
   }
 
   dispose() {
@@ -113,7 +119,28 @@ export class StepLane<T> {
     return this.drawnStep === step || this.options.readCache(step) !== undefined;
   }
 
+  /** Asks for the cursor's step now, or once `minGapMs` has passed since the last such request. */
+  private startTargetPaced() {
+    this.clearSettle();
+    const wait = this.lastStartAt + this.options.minGapMs - this.options.now();
+    if (wait <= 0) {
+      this.start(this.target, false);
+      return;
+    }
+    this.startTargetAfter(wait);
+  }
+
+  /** Asks for the cursor's step after `ms`, unless it has arrived or been asked for by then. */
+  private startTargetAfter(ms: number) {
+    this.settleTimer = this.options.setTimer(() => {
+      this.settleTimer = null;
+      if (!this.isLoaded(this.target) && !this.requests.some((r) => r.step === this.target))
+        this.start(this.target, false);
+    }, ms);
+  }
+
   private start(step: number, isPrefetch: boolean) {
+    if (!isPrefetch) this.lastStartAt = this.options.now();
     const request: Request = { step, controller: new AbortController(), isPrefetch };
     this.requests.push(request);
     this.options.fetchStep(step, request.controller.signal).then(
@@ -141,10 +168,7 @@ export class StepLane<T> {
       return; // no automatic retry: the error is shown and the next seek asks again
     }
     if (!this.isLoaded(this.target)) {
-      if (this.requests.length === 0) {
-        this.clearSettle();
-        this.start(this.target, false);
-      }
+      if (this.requests.length === 0) this.startTargetPaced();
       return;
     }
     this.prefetchNext();
