@@ -4,11 +4,13 @@
  * name. The same wording is used by the workspace and by the archive's report.html.
  */
 import type { TEvidenceItem } from './contracts/findings';
+import { CAUSE_KIND_LABELS } from './human-labels';
 
 export const EVIDENCE_TYPE_LABELS: Record<TEvidenceItem['type'], string> = {
   replay: 'Replay',
   bookmark: 'Bookmark',
   saved_query: 'Saved query',
+  cause: 'Probable cause',
   bundle_file: 'Bundle file',
 };
 
@@ -69,6 +71,19 @@ export function nameEvidence(item: TEvidenceItem, names: EvidenceNames): NamedEv
       return {
         name: replay.label.trim() || `Replay ${shortId(item.replayId)}`,
         detail: `replay of ${bundleName(names, replay.bundleId)}, digest ${shortHash(item.digest)}`,
+        hash,
+        isFound: true,
+        target: { bundleId: replay.bundleId, replayId: item.replayId },
+      };
+    }
+    case 'cause': {
+      const replay = names.replays.get(item.replayId);
+      const hash = { label: 'replay digest', value: item.digest };
+      const name = CAUSE_KIND_LABELS[item.kind];
+      if (!replay) return missing(name, `in replay ${shortId(item.replayId)}`, hash);
+      return {
+        name,
+        detail: `probable cause in replay ${replay.label.trim() || shortId(item.replayId)}, digest ${shortHash(item.digest)}`,
         hash,
         isFound: true,
         target: { bundleId: replay.bundleId, replayId: item.replayId },

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CAUSE_KINDS } from '../engine/causes/cause-types';
 import { safeText } from './safe-text';
 
 export const INCIDENT_CLASSES = [
@@ -62,6 +63,14 @@ export const ZEvidenceItem = z.discriminatedUnion('type', [
     type: z.literal('saved_query'),
     queryId: z.uuid(),
     resultSha256: ZSha256,
+    note: safeText().max(2000).optional(),
+  }),
+  z.strictObject({
+    // A probable cause of a replay (docs/causes.md), cited by the replay's digest and the cause's kind.
+    type: z.literal('cause'),
+    replayId: z.uuid(),
+    digest: safeText().min(1).max(200),
+    kind: z.enum(CAUSE_KINDS),
     note: safeText().max(2000).optional(),
   }),
   z.strictObject({

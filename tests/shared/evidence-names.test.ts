@@ -52,6 +52,16 @@ describe('cited evidence by name', () => {
     expect(file.detail).toBe('in hl07-dock4.zip, SHA-256 121212121212…');
   });
 
+  it('names a cited probable cause by its kind and its replay, and opens that replay', () => {
+    const named = nameEvidence(
+      { type: 'cause', replayId: REPLAY, digest: DIGEST, kind: 'odometry_fault' },
+      names,
+    );
+    expect(named.name).toBe('Odometry fault');
+    expect(named.detail).toBe('probable cause in replay Wider motion noise, digest c0ffee00c0ff…');
+    expect(named.target).toEqual({ bundleId: BUNDLE, replayId: REPLAY });
+  });
+
   it('says plainly when a cited item is not in the case, keeping its id and hash', () => {
     const other = '00000000-0000-4000-8000-000000000009';
     const named = nameEvidence({ type: 'replay', replayId: other, digest: DIGEST }, names);

@@ -87,7 +87,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const outbox = createOutboxService({ db });
   const keys = createSigningKeyStore(config.dataDir);
   const keysAdmin = createKeysService({ db, audit, store: keys });
-  const findings = createFindingsService({ db, audit, lifecycle, notify });
+  const findings = createFindingsService({ db, audit, lifecycle, notify, replayCauses: replays.causesOf });
   const reviews = createReviewService({ db, audit, findings, lifecycle, notify, keys });
   const fixes = createFixesService({ db, audit, notify });
   const bookmarks = createBookmarksService({ db, audit });

@@ -4,20 +4,47 @@ import { AppError, type FieldIssue } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bookmarks, bundles, replays, savedQueries } from '../../db/schema';
 
+export type ReplayCauses = (replayId: string) => Promise<readonly { kind: string }[] | null>;
+
+/** The probable-cause kinds of each replay a cause citation names, keyed by replay id. */
+export type CitedCauseKinds = ReadonlyMap<string, readonly string[]>;
+
 /**
- * Checks that cited replays and bundle files exist in this case and that the cited hash is the
- * stored one; cited bookmarks and saved queries must belong to the case, and a saved query's
- * result hash must be the stored one.
+ * Reads the causes of every replay that `items` cite a cause of. Runs before the submit
+ * transaction opens: reading causes may rebuild a replay's files through the pool's own
+ * connection, which would wait forever on a single-connection database held by that transaction.
+ */
+export async function loadCitedCauseKinds(
+  items: readonly TEvidenceItem[],
+  replayCauses: ReplayCauses,
+): Promise<CitedCauseKinds> {
+  const kinds = new Map<string, readonly string[]>();
+  for (const item of items) {
+    if (item.type !== 'cause' || kinds.has(item.replayId)) continue;
+    const causes = await replayCauses(item.replayId).catch(() => null);
+    kinds.set(
+      item.replayId,
+      (causes ?? []).map((cause) => cause.kind),
+    );
+  }
+  return kinds;
+}
+
+/**
+ * Checks that cited replays (and the cited probable cause of one) and bundle files exist in this
+ * case and that the cited hash is the stored one; cited bookmarks and saved queries must belong
+ * to the case, and a saved query's result hash must be the stored one.
  */
 export async function validateEvidence(
   db: Database,
   caseId: string,
   items: readonly TEvidenceItem[],
+  causeKinds: CitedCauseKinds,
 ): Promise<void> {
   const issues: FieldIssue[] = [];
   for (const [index, item] of items.entries()) {
     const at = `evidence.${index}`;
-    if (item.type === 'replay') {
+    if (item.type === 'replay' || item.type === 'cause') {
       const [row] = await db
         .select({ digest: replays.digest, caseId: bundles.caseId })
         .from(replays)
@@ -30,6 +57,18 @@ export async function validateEvidence(
           path: `${at}.digest`,
           message: `Replay ${item.replayId} has digest ${row.digest ?? '(none yet)'}`,
         });
+      } else if (item.type === 'cause') {
+        const kinds = causeKinds.get(item.replayId);
+        if (!kinds)
+          issues.push({
+            path: `${at}.kind`,
+            message: 'The draft changed while it was being submitted; submit it again',
+          });
+        else if (!kinds.includes(item.kind))
+          issues.push({
+            path: `${at}.kind`,
+            message: `Replay ${item.replayId} has no probable cause of kind ${item.kind}`,
+          });
       }
     } else if (item.type === 'bookmark') {
       const [row] = await db

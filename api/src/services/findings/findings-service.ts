@@ -22,7 +22,7 @@ import { loadCaseState } from '../lifecycle/case-state';
 import type { LifecycleService } from '../lifecycle/lifecycle-service';
 import type { Notifications } from '../mail/notifications';
 import { assertCaseMember } from '../membership/case-access';
-import { validateEvidence } from './evidence-citations';
+import { loadCitedCauseKinds, type ReplayCauses, validateEvidence } from './evidence-citations';
 import { readEvidenceNames } from './evidence-names';
 import { type FindingsDocument, freezeFindings } from './findings-document';
 import { loadPeople } from './people';
@@ -60,8 +60,10 @@ export function createFindingsService(deps: {
   audit: AuditService;
   lifecycle: LifecycleService;
   notify: Notifications;
+  /** A finished replay's probable causes (for citations of a cause); null when it has none. */
+  replayCauses: ReplayCauses;
 }) {
-  const { db, audit, lifecycle, notify } = deps;
+  const { db, audit, lifecycle, notify, replayCauses } = deps;
 
   /** Why the findings cannot be edited now, or null; `executor` may be an open transaction. */
   async function editBlockedReason(executor: Database, caseId: string): Promise<string | null> {
@@ -141,6 +143,10 @@ export function createFindingsService(deps: {
     caseId: string,
     actor: Actor,
   ): Promise<{ version: number; sha256: string; from: string }> {
+    await assertCaseMember(db, caseId, actor, 'submit its findings');
+    const [pending] = await db.select().from(findingDrafts).where(eq(findingDrafts.caseId, caseId));
+    const pendingEvidence = pending ? (ZFindingsContent.safeParse(pending.content).data?.evidence ?? []) : [];
+    const causeKinds = await loadCitedCauseKinds(pendingEvidence, replayCauses);
     const submitted = await db.transaction(async (tx) => {
       await assertCaseMember(tx, caseId, actor, 'submit its findings');
       await assertEditable(tx, caseId, 'Submitting the findings');
@@ -152,7 +158,7 @@ export function createFindingsService(deps: {
           'There is no findings draft to submit; save one first (PUT .../findings).',
         );
       const content = ZFindingsContent.parse(draft.content);
-      await validateEvidence(tx, caseId, content.evidence);
+      await validateEvidence(tx, caseId, content.evidence, causeKinds);
       const state = await loadCaseState(tx, caseId);
       const version = ((await latestVersionNumber(tx, caseId)) ?? 0) + 1;
       const author = (await loadPeople(tx, [actor.id])).get(actor.id);

@@ -338,6 +338,11 @@ export function createReplaysService({
     return (await resultFilesOf(await loadReplay(id))).dir;
   }
 
+  /** The probable causes of a finished replay, for checking a finding that cites one; null when it has none. */
+  async function causesOf(id: string) {
+    return readCauses(await resultDir(id));
+  }
+
   async function disagreementFile(id: string, actor: Actor): Promise<string> {
     return path.join((await requireResultFiles(id, actor)).dir, 'disagreement.bin');
   }
@@ -354,6 +359,7 @@ export function createReplaysService({
     stepAt,
     disagreementFile,
     resultDir,
+    causesOf,
     failInterruptedReplays,
     isLive: (id: string) => live.has(id),
   };

@@ -1,5 +1,6 @@
 import { type TEvidenceItem, ZEvidenceItem } from '@shared/contracts/findings';
 import { EVIDENCE_TYPE_LABELS } from '@shared/evidence-names';
+import { CAUSE_KIND_LABELS, labelFor } from '@shared/human-labels';
 import { useQuery } from '@tanstack/react-query';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
@@ -9,15 +10,18 @@ import { SelectInput, TextInput } from '@web/components/inputs';
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
 import { type EvidenceSource, sourceLabel, useEvidenceSources } from '../api/get-evidence-sources';
+import { useReplayCauses } from '../api/get-replay-causes';
 
 interface Pending {
   type: TEvidenceItem['type'];
   id: string;
+  /** The cited probable cause's kind, when citing a cause. */
+  kind: string;
   bundleId: string;
   file: string;
   resultSha256: string;
 }
-const EMPTY: Pending = { type: 'replay', id: '', bundleId: '', file: '', resultSha256: '' };
+const EMPTY: Pending = { type: 'replay', id: '', kind: '', bundleId: '', file: '', resultSha256: '' };
 
 function SourcePicker({
   label,
@@ -68,14 +72,27 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
   const bundles = replays.data?.bundles ?? [];
   const doneReplays = (replays.data?.replays ?? []).filter((r) => r.status === 'done' && r.digest);
   const replay = doneReplays.find((r) => r.id === pending.id);
+  const replayOptions = (
+    <>
+      <option value="">{replays.isPending ? 'Loading replays…' : 'Choose a replay…'}</option>
+      {doneReplays.map((r) => (
+        <option key={r.id} value={r.id}>
+          {describeReplay(r, bundles)}
+        </option>
+      ))}
+    </>
+  );
   const bundle = bundles.find((b) => b.id === pending.bundleId);
   const file = bundle?.files.find((f) => f.name === pending.file);
   const query = sources.data?.queries?.find((q) => q.id === pending.id);
+  const causes = useReplayCauses(pending.type === 'cause' ? pending.id : '');
 
   function build(): unknown {
     switch (pending.type) {
       case 'replay':
         return { type: 'replay', replayId: pending.id, digest: replay?.digest ?? '' };
+      case 'cause':
+        return { type: 'cause', replayId: pending.id, digest: replay?.digest ?? '', kind: pending.kind };
       case 'bookmark':
         return { type: 'bookmark', bookmarkId: pending.id };
       case 'saved_query':
@@ -127,6 +144,47 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
           )}
         </FormField>
         <div className="space-y-2">
+          {pending.type === 'cause' && (
+            <div className="grid grid-cols-2 gap-3">
+              <FormField label="Replay of the cause" hint="Finished replays of this case’s bundles.">
+                {(control) => (
+                  <SelectInput
+                    {...control}
+                    value={pending.id}
+                    onChange={(e) => set({ id: e.target.value, kind: '' })}
+                  >
+                    {replayOptions}
+                  </SelectInput>
+                )}
+              </FormField>
+              <FormField
+                label="Cause"
+                hint={
+                  causes.isError
+                    ? `Could not load the replay’s causes: ${causes.error.message}`
+                    : causes.data?.length === 0
+                      ? 'This replay has no probable causes.'
+                      : undefined
+                }
+              >
+                {(control) => (
+                  <SelectInput
+                    {...control}
+                    value={pending.kind}
+                    disabled={!pending.id || !causes.data?.length}
+                    onChange={(e) => set({ kind: e.target.value })}
+                  >
+                    <option value="">{causes.isFetching ? 'Loading causes…' : 'Choose a cause…'}</option>
+                    {causes.data?.map((cause) => (
+                      <option key={`${cause.kind}-${cause.start}`} value={cause.kind}>
+                        {labelFor(CAUSE_KIND_LABELS, cause.kind)}, confidence {cause.confidence.toFixed(2)}
+                      </option>
+                    ))}
+                  </SelectInput>
+                )}
+              </FormField>
+            </div>
+          )}
           {pending.type === 'replay' && (
             <FormField
               label="Replay"
@@ -134,12 +192,7 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
             >
               {(control) => (
                 <SelectInput {...control} value={pending.id} onChange={(e) => set({ id: e.target.value })}>
-                  <option value="">{replays.isPending ? 'Loading replays…' : 'Choose a replay…'}</option>
-                  {doneReplays.map((r) => (
-                    <option key={r.id} value={r.id}>
-                      {describeReplay(r, bundles)}
-                    </option>
-                  ))}
+                  {replayOptions}
                 </SelectInput>
               )}
             </FormField>
