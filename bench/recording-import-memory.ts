@@ -46,6 +46,7 @@ async function writeLargeMcap(file: string, targetBytes: number): Promise<number
   let written = 0;
   let steps = 0;
   const ranges = new Float32Array(BEAMS);
+  let noise = 12345;
   for (let k = 0; written < targetBytes; k++) {
     const stamp = start + BigInt(k) * 100_000_000n;
     const sec = Number(stamp / NS);
@@ -61,7 +62,12 @@ async function writeLargeMcap(file: string, targetBytes: number): Promise<number
       .float64(Math.sin((angle + Math.PI / 2) / 2))
       .float64(Math.cos((angle + Math.PI / 2) / 2));
     await writer.addMessage({ channelId: tf, sequence: k, logTime: stamp, publishTime: stamp, data: t.data });
-    for (let b = 0; b < BEAMS; b++) ranges[b] = 2 + ((b * 7 + k) % 97) / 10;
+    // Noisy ranges (a fixed linear congruential sequence) so zstd cannot shrink the file below
+    // the size asked for: a real scanner's ranges carry sensor noise in their low bits too.
+    for (let b = 0; b < BEAMS; b++) {
+      noise = (Math.imul(noise, 1664525) + 1013904223) >>> 0;
+      ranges[b] = 2 + noise / 2 ** 29;
+    }
     const s = new CdrWriter({ size: BEAMS * 4 + 128 });
     s.int32(sec).uint32(nanosec).string('base_link');
     s.float32(-2.35)

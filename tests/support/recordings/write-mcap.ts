@@ -3,6 +3,7 @@ import path from 'node:path';
 import { CdrWriter } from '@foxglove/cdr';
 import * as zstd from '@foxglove/wasm-zstd';
 import { McapWriter, TempBuffer } from '@mcap/core';
+import * as lz4 from 'lz4js';
 
 /**
  * Writes a bundle folder as a ROS 2 MCAP recording with the MCAP library's own writer
@@ -11,7 +12,7 @@ import { McapWriter, TempBuffer } from '@mcap/core';
  * decoder. Same topics and stamps as write-ros1-bag.py.
  */
 export interface McapWriteOptions {
-  compression: 'zstd' | 'none';
+  compression: 'zstd' | 'lz4' | 'none';
   scanLimit?: number;
   /** Leave /cmd_vel's schema empty, as some writers do, to exercise the built-in definitions. */
   omitCommandSchema?: boolean;
@@ -20,6 +21,17 @@ export interface McapWriteOptions {
 }
 
 const NS = 1_000_000_000n;
+// Chunk compressors from libraries other than the importer's decompressors: zstd from
+// @foxglove/wasm-zstd (the reference libzstd in WebAssembly) and lz4 frames from lz4js, the
+// frame format MCAP names for "lz4" (MCAP specification, "Chunk" record, compression field).
+const CHUNK_COMPRESSORS: Record<
+  McapWriteOptions['compression'],
+  ((data: Uint8Array) => { compression: string; compressedData: Uint8Array }) | undefined
+> = {
+  zstd: (data) => ({ compression: 'zstd', compressedData: zstd.compress(data) }),
+  lz4: (data) => ({ compression: 'lz4', compressedData: Uint8Array.from(lz4.compress(data)) }),
+  none: undefined,
+};
 const SCHEMAS: Record<string, string> = {
   'tf2_msgs/msg/TFMessage':
     'geometry_msgs/TransformStamped[] transforms\n================================================================================\nMSG: geometry_msgs/TransformStamped\nstd_msgs/Header header\nstring child_frame_id\nTransform transform\n================================================================================\nMSG: std_msgs/Header\nbuiltin_interfaces/Time stamp\nstring frame_id\n================================================================================\nMSG: builtin_interfaces/Time\nint32 sec\nuint32 nanosec\n================================================================================\nMSG: geometry_msgs/Transform\nVector3 translation\nQuaternion rotation\n================================================================================\nMSG: geometry_msgs/Vector3\nfloat64 x\nfloat64 y\nfloat64 z\n================================================================================\nMSG: geometry_msgs/Quaternion\nfloat64 x 0\nfloat64 y 0\nfloat64 z 0\nfloat64 w 1',
@@ -163,10 +175,7 @@ export async function writeMcap(
   const writer = new McapWriter({
     writable: buffer,
     chunkSize: 256 * 1024,
-    compressChunk:
-      options.compression === 'zstd'
-        ? (data) => ({ compression: 'zstd', compressedData: zstd.compress(data) })
-        : undefined,
+    compressChunk: CHUNK_COMPRESSORS[options.compression],
   });
   await writer.start({ profile: 'ros2', library: 'driftcase tests' });
   const channelIds = new Map<string, number>();
