@@ -5,8 +5,8 @@
  * particle looks only at the few candidates left.
  */
 import { queryLandmarks } from './landmark-index';
-import { type LandmarkModel, termFromResiduals } from './landmark-model';
-import { log, sinCos } from './numerics';
+import { bearingResidual, type LandmarkModel, termFromResiduals } from './landmark-model';
+import { exp, log, sinCos } from './numerics';
 
 /** The particles' poses and the cos/sin of their headings (map frame, m and rad). */
 export interface PoseArrays {
@@ -99,7 +99,7 @@ function cloudBounds({ x, y, theta }: PoseArrays, from: number, to: number): Clo
 
 function bestTermsForCloud(
   model: LandmarkModel,
-  { x, y, cosTheta, sinTheta }: PoseArrays,
+  poses: PoseArrays,
   from: number,
   to: number,
   cloud: CloudBounds,
@@ -137,8 +137,13 @@ function bestTermsForCloud(
   sinCos(bearing, scratch.trig);
   const sinB = scratch.trig[0];
   const cosB = scratch.trig[1];
+  if (count === 1) {
+    bestTermsForOneLandmark(model, poses, from, to, candidates[0], reportedClass, range, sinB, cosB, best);
+    return;
+  }
   const tangent = model.bearingGateTangent;
   const maxRangeSquared = model.maxRange * model.maxRange;
+  const { x, y, cosTheta, sinTheta } = poses;
   for (let i = from; i < to; i++) {
     const px = x[i];
     const py = y[i];
@@ -163,6 +168,56 @@ function bestTermsForCloud(
       if (term > top) top = term;
     }
     best[i] = top;
+  }
+}
+
+/**
+ * The loop above for the usual case of one candidate (a landmark-rich site still has one landmark
+ * of a class within a detection's gates): the landmark's position and its confusion factor are
+ * read once, not per particle, and termFromResiduals is written out with the same operations in
+ * the same order, so every term has the same bits as the general loop's.
+ */
+function bestTermsForOneLandmark(
+  model: LandmarkModel,
+  { x, y, cosTheta, sinTheta }: PoseArrays,
+  from: number,
+  to: number,
+  landmark: number,
+  reportedClass: number,
+  range: number,
+  sinB: number,
+  cosB: number,
+  best: Float64Array,
+): void {
+  const rangeGate = model.gateSigmas * model.rangeSigma;
+  const tangent = model.bearingGateTangent;
+  const maxRangeSquared = model.maxRange * model.maxRange;
+  const lx = model.x[landmark];
+  const ly = model.y[landmark];
+  const normaliser = model.gaussianNormaliser;
+  const confusion = model.confusion[model.classIndex[landmark] * model.classCount + reportedClass];
+  const inverseRangeSigma = model.inverseRangeSigma;
+  const inverseBearingSigma = model.inverseBearingSigma;
+  const gateBearing = tangent !== Number.POSITIVE_INFINITY;
+  for (let i = from; i < to; i++) {
+    const c = cosTheta[i];
+    const s = sinTheta[i];
+    const ux = c * cosB - s * sinB;
+    const uy = s * cosB + c * sinB;
+    const dx = lx - x[i];
+    const dy = ly - y[i];
+    const distanceSquared = dx * dx + dy * dy;
+    best[i] = 0;
+    if (distanceSquared > maxRangeSquared) continue;
+    const residual = range - Math.sqrt(distanceSquared);
+    if (residual > rangeGate || residual < -rangeGate) continue;
+    const dot = dx * ux + dy * uy;
+    const cross = dx * uy - dy * ux;
+    if (gateBearing && (dot <= 0 || Math.abs(cross) > tangent * dot)) continue;
+    const r = residual * inverseRangeSigma;
+    const b = bearingResidual(cross, dot) * inverseBearingSigma;
+    const term = normaliser * exp(-0.5 * (r * r + b * b)) * confusion;
+    if (term > 0) best[i] = term;
   }
 }
 

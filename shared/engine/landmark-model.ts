@@ -147,7 +147,7 @@ export function buildLandmarkModel(landmarks: readonly Landmark[], detector: Det
 }
 
 /** Bearing residual (rad, in [-pi, pi]) from the cross and dot products of landmark direction and detection direction. */
-function bearingResidual(cross: number, dot: number): number {
+export function bearingResidual(cross: number, dot: number): number {
   if (dot > 0) {
     const t = cross / dot;
     return t <= SMALL_ATAN_LIMIT && t >= -SMALL_ATAN_LIMIT ? smallAtan(t) : atan(t);
