@@ -49,6 +49,8 @@ interface Fixtures {
 
 let uniqueCounter = 0;
 const unique = () => `${Date.now()}-${uniqueCounter++}`;
+const RECORDING_PROGRESS_ID = '2b7e4c1a-9f3d-4a8e-b6c2-7d1f0e5a3c98';
+let recordingProgressUpload: Promise<void> | undefined;
 
 const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promise<Sample>> = {
   ...caseWorkSamples(() => t),
@@ -106,6 +108,24 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
       ),
     },
   }),
+  'get /cases/:id/recordings/progress/:progressId': async (f) => {
+    // The demo investigator's finished upload: its progress stays readable for five minutes.
+    recordingProgressUpload ??= (async () => {
+      const file = await writeMcap(
+        path.resolve('sample-logs/wheel-slip'),
+        path.join(tmpdir(), `matrix-progress-${unique()}.mcap`),
+        { compression: 'none', scanLimit: 20 },
+      );
+      await request(t.app)
+        .post(`/api/cases/${f.caseId}/recordings`)
+        .set('Authorization', `Bearer ${await t.tokenFor('investigator')}`)
+        .field('progress_id', RECORDING_PROGRESS_ID)
+        .attach('recording', file)
+        .expect(201);
+    })();
+    await recordingProgressUpload;
+    return { path: `/api/cases/${f.caseId}/recordings/progress/${RECORDING_PROGRESS_ID}` };
+  },
   'get /cases/:id/bundles': (f) => ({ path: `/api/cases/${f.caseId}/bundles` }),
   'get /bundles/:id': (f) => ({ path: `/api/bundles/${f.bundleId}` }),
   'get /bundles/:id/tables/:name': (f) => ({ path: `/api/bundles/${f.bundleId}/tables/odometry` }),

@@ -45,6 +45,7 @@ const FULL_FINDINGS = {
     { type: 'bookmark', bookmarkId: ID, note: 'n' },
     { type: 'saved_query', queryId: ID, resultSha256: SHA, note: 'n' },
     { type: 'bundle_file', bundleId: ID, file: 'odometry.csv', sha256: SHA, note: 'n' },
+    { type: 'cause', replayId: ID, digest: 'digest-1', kind: 'odometry_fault', note: 'n' },
   ],
 };
 

@@ -61,6 +61,8 @@ export const ACCESS_POLICY: Record<string, RoutePolicy> = {
   // Evidence: bundles, recordings, replays and their views.
   'post /cases/:id/bundles': caseWrite(['investigator']),
   'post /cases/:id/recordings': caseWrite(['investigator']),
+  // Only the uploader's own progress; admins do not upload.
+  'get /cases/:id/recordings/progress/:progressId': { member: ['investigator'], nonMember: [] },
   'get /cases/:id/bundles': caseRead(),
   'get /bundles/:id': caseRead(),
   'get /bundles/:id/tables/:name': caseRead(),

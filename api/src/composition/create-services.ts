@@ -23,6 +23,7 @@ import { createMailQueue } from '../services/mail/mail-queue';
 import { createNotifications } from '../services/mail/notifications';
 import { createOutboxService } from '../services/mail/outbox-service';
 import { createCaseMembersService } from '../services/membership/case-members-service';
+import { createImportProgressBoard } from '../services/recordings/import-progress';
 import { createRecordingsService } from '../services/recordings/recordings-service';
 import { createReplaysService } from '../services/replays/replays-service';
 import { createSavedQueriesService } from '../services/saved-queries/saved-queries-service';
@@ -68,7 +69,13 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const derivedDir = path.join(config.dataDir, 'derived');
   const { maxUnpackedBytes } = config;
   const bundles = createBundlesService({ db, audit, lifecycle, evidence, derivedDir, maxUnpackedBytes });
-  const recordings = createRecordingsService({ db, audit, bundles, evidence });
+  const recordings = createRecordingsService({
+    db,
+    audit,
+    bundles,
+    evidence,
+    progress: createImportProgressBoard(),
+  });
   const replayWorkers = replayPool ?? createReplayPool();
   const replays = createReplaysService({
     ...{ db, audit, evidence, derivedDir, logger, maxUnpackedBytes },

@@ -9,9 +9,18 @@ import { ZCaseParams } from './cases';
 
 const FILE_FIELDS: RecordingFileRole[] = ['recording', 'map', 'map_image', 'params', 'robot'];
 const time = safeText().trim().max(40).optional();
-const ZRecordingFields = z.strictObject({ from: time, to: time, incident: time });
+const ZRecordingFields = z.strictObject({
+  from: time,
+  to: time,
+  incident: time,
+  progress_id: z.uuid('progress_id must be an id the page made (a UUID)').optional(),
+});
+const ZProgressParams = ZCaseParams.extend({ progressId: z.uuid('The progress id must be a UUID') });
 
-/** POST /cases/:id/recordings: a robot recording (and its map, parameter, robot files) becomes a bundle. */
+/**
+ * POST /cases/:id/recordings: a robot recording (and its map, parameter, robot files) becomes a
+ * bundle. GET /cases/:id/recordings/progress/:progressId: how far the uploader's recording got.
+ */
 export function recordingRoutes(
   recordings: RecordingsService,
   options: { incomingDir: string; maxUploadBytes: number },
@@ -60,9 +69,25 @@ export function recordingRoutes(
           await removeAll();
           throw error;
         }
-        const outcome = await recordings.importUpload({ caseId, actor: req.user, files, ...fields });
+        const { progress_id: progressId, ...times } = fields;
+        const outcome = await recordings.importUpload({
+          caseId,
+          actor: req.user,
+          files,
+          progressId,
+          ...times,
+        });
         const status = outcome.bundle.status === 'invalid' ? 422 : outcome.isDuplicate ? 200 : 201;
         res.status(status).json({ bundle: outcome.bundle, duplicate: outcome.isDuplicate });
+      },
+    },
+    {
+      method: 'get',
+      path: '/cases/:id/recordings/progress/:progressId',
+      access: ['investigator'],
+      handler: async (req, res) => {
+        const { id, progressId } = ZProgressParams.parse(req.params);
+        res.json(await recordings.progressOf(id, req.user, progressId));
       },
     },
   ];

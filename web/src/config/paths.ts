@@ -106,6 +106,8 @@ export const apiPaths = {
   caseAuditVerify: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/audit/verify`,
   caseBundles: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bundles`,
   caseRecordings: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/recordings`,
+  caseRecordingProgress: (caseId: string, progressId: string) =>
+    `/api/cases/${encodeURIComponent(caseId)}/recordings/progress/${encodeURIComponent(progressId)}`,
   caseBookmarks: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/bookmarks`,
   caseQueries: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/queries`,
   caseMembers: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/members`,

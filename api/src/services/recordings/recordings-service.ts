@@ -9,6 +9,7 @@ import type { AuditService } from '../audit/audit-service';
 import type { BundlesService, UploadOutcome } from '../bundles/bundles-service';
 import type { EvidenceStore } from '../evidence/evidence-store';
 import { assertCaseMember } from '../membership/case-access';
+import type { ImportProgressBoard } from './import-progress';
 
 export type RecordingFileRole = 'recording' | 'map' | 'map_image' | 'params' | 'robot';
 
@@ -19,6 +20,8 @@ export interface RecordingUpload {
   from?: string;
   to?: string;
   incident?: string;
+  /** The client's id for polling how far the upload got (see import-progress.ts). */
+  progressId?: string;
 }
 
 /**
@@ -33,10 +36,43 @@ export function createRecordingsService(deps: {
   audit: AuditService;
   bundles: BundlesService;
   evidence: EvidenceStore;
+  progress: ImportProgressBoard;
 }) {
-  const { db, audit, bundles, evidence } = deps;
+  const { db, audit, bundles, evidence, progress } = deps;
 
   async function importUpload(upload: RecordingUpload): Promise<UploadOutcome> {
+    const id = upload.progressId;
+    const report = (phase: Parameters<ImportProgressBoard['update']>[1], fraction: number) => {
+      if (id) progress.update(id, phase, fraction);
+    };
+    if (id) progress.start(id, { caseId: upload.caseId, userId: upload.actor.id });
+    try {
+      const outcome = await importStoredUpload(upload, report);
+      report('done', 1);
+      return outcome;
+    } catch (error) {
+      report('failed', 0);
+      throw error;
+    }
+  }
+
+  /** How far the uploader's recording `progressId` has got, or a 404 naming what is missing. */
+  async function progressOf(caseId: string, actor: Actor, progressId: string) {
+    await assertCaseMember(db, caseId, actor, 'see its uploads');
+    const found = progress.read(progressId, caseId, actor.id);
+    if (!found) {
+      throw new AppError(
+        'not_found',
+        'No recording upload of yours on this case has that progress id; it may have ended more than five minutes ago.',
+      );
+    }
+    return found;
+  }
+
+  async function importStoredUpload(
+    upload: RecordingUpload,
+    report: (phase: 'storing' | 'reading' | 'writing' | 'checking', fraction: number) => void,
+  ): Promise<UploadOutcome> {
     await assertCaseMember(db, upload.caseId, upload.actor, 'add evidence to it').catch(async (error) => {
       // A refused upload leaves nothing behind: the files were only ever in incoming/.
       await Promise.all(
@@ -50,6 +86,7 @@ export function createRecordingsService(deps: {
       { tempFile: string; originalName: string },
     ][]) {
       const kept = await evidence.storeUploadedFile(file.tempFile);
+      report('storing', (stored.length + 1) / Object.keys(upload.files).length);
       stored.push({ role, name: file.originalName, sha256: kept.sha256, path: kept.path });
     }
     const recording = stored.find((file) => file.role === 'recording');
@@ -74,17 +111,20 @@ export function createRecordingsService(deps: {
       const out = path.join(work, `${path.parse(recording.name).name}-bundle.zip`);
       const displayNames = Object.fromEntries(stored.map((file) => [file.role, file.name]));
       try {
-        await importRecording({
-          source: linked.recording as string,
-          map: linked.map,
-          params: linked.params,
-          robot: linked.robot,
-          from: upload.from,
-          to: upload.to,
-          incident: upload.incident,
-          displayNames,
-          out,
-        });
+        await importRecording(
+          {
+            source: linked.recording as string,
+            map: linked.map,
+            params: linked.params,
+            robot: linked.robot,
+            from: upload.from,
+            to: upload.to,
+            incident: upload.incident,
+            displayNames,
+            out,
+          },
+          ({ phase, fraction }) => report(phase, fraction),
+        );
       } catch (error) {
         const message =
           error instanceof RecordingError
@@ -105,6 +145,7 @@ export function createRecordingsService(deps: {
           [{ path: 'recording', message }],
         );
       }
+      report('checking', 0);
       return await bundles.uploadBundle({
         caseId: upload.caseId,
         tempFile: out,
@@ -117,7 +158,7 @@ export function createRecordingsService(deps: {
     }
   }
 
-  return { importUpload };
+  return { importUpload, progressOf };
 }
 
 /** The map YAML names its image; the uploaded image is linked under that name. */

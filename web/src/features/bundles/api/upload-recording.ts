@@ -13,6 +13,8 @@ export interface RecordingUpload {
   files: RecordingFiles;
   /** Seconds from the recording's start or an RFC 3339 time; empty means not given. */
   incident?: string;
+  /** The page's id for polling how far the server got once the bytes are sent. */
+  progressId?: string;
 }
 
 /**
@@ -31,6 +33,7 @@ export async function uploadRecording(
 ): Promise<RecordingOutcome> {
   const form = new FormData();
   if (upload.incident?.trim()) form.append('incident', upload.incident.trim());
+  if (upload.progressId) form.append('progress_id', upload.progressId);
   for (const role of RECORDING_FILE_ROLES) {
     const file = upload.files[role];
     if (file) form.append(role, file, file.name);

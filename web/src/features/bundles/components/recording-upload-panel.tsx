@@ -1,3 +1,4 @@
+import { RECORDING_PROGRESS_WORDS, type TRecordingProgress } from '@shared/contracts/recordings';
 import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import { DropZone } from '@web/components/drop-zone';
@@ -5,6 +6,7 @@ import { FormField } from '@web/components/form-field';
 import { TextInput } from '@web/components/inputs';
 import { Bot } from 'lucide-react';
 import { type FormEvent, useState } from 'react';
+import { useRecordingProgress } from '../api/get-recording-progress';
 import { type RecordingFiles, useUploadRecording } from '../api/upload-recording';
 import { sortRecordingFiles } from '../lib/sort-recording-files';
 import { RecordingFileFields } from './recording-file-fields';
@@ -18,7 +20,10 @@ export function RecordingUploadPanel({ caseId }: { caseId: string }) {
   const [files, setFiles] = useState<RecordingFiles>({});
   const [incident, setIncident] = useState('');
   const [unrecognised, setUnrecognised] = useState<string[]>([]);
+  const [progressId, setProgressId] = useState<string>();
   const upload = useUploadRecording(caseId);
+  const isReading = upload.isPending && upload.progress >= 1;
+  const serverProgress = useRecordingProgress(caseId, progressId, isReading);
 
   const takeDropped = async (dropped: File[]) => {
     const sorted = await sortRecordingFiles(dropped);
@@ -27,7 +32,10 @@ export function RecordingUploadPanel({ caseId }: { caseId: string }) {
   };
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
-    if (files.recording) upload.mutate({ files, incident });
+    if (!files.recording) return;
+    const id = crypto.randomUUID();
+    setProgressId(id);
+    upload.mutate({ files, incident, progressId: id });
   };
 
   return (
@@ -65,12 +73,11 @@ export function RecordingUploadPanel({ caseId }: { caseId: string }) {
       <Button type="submit" variant="primary" disabled={!files.recording} isBusy={upload.isPending}>
         Read recording
       </Button>
-      {upload.isPending && (
+      {upload.isPending && !isReading && (
         <div aria-live="polite">
           <p className="text-sm">
             Uploading <span className="font-bold">{files.recording?.name}</span>…{' '}
             {Math.round(upload.progress * 100)} %
-            {upload.progress >= 1 && ' — reading the recording; a large one takes a while'}
           </p>
           <progress
             className="h-2 w-full"
@@ -80,8 +87,29 @@ export function RecordingUploadPanel({ caseId }: { caseId: string }) {
           />
         </div>
       )}
+      {isReading && <ServerProgress progress={serverProgress.data} />}
       {upload.isError && <Alert title="The upload failed">{upload.error.message}</Alert>}
       {upload.data && <RecordingOutcomeView outcome={upload.data} />}
     </form>
+  );
+}
+
+/** After the bytes arrived: the server's phase and its share, or a plain wait until it answers. */
+function ServerProgress({ progress }: { progress?: TRecordingProgress }) {
+  const phase = progress && progress.phase !== 'done' && progress.phase !== 'failed' ? progress : undefined;
+  return (
+    <div aria-live="polite" data-testid="recording-server-progress">
+      <p className="text-sm">
+        {phase
+          ? `${RECORDING_PROGRESS_WORDS[phase.phase]}… ${Math.round(phase.fraction * 100)} %`
+          : 'Uploaded; the server is reading the recording…'}
+      </p>
+      <progress
+        className="h-2 w-full"
+        max={1}
+        value={phase?.fraction}
+        aria-label="Recording reading progress"
+      />
+    </div>
   );
 }
