@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { writeMcap } from '../support/recordings/write-mcap';
 import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
 import { openCaseFromList } from './support/open-case';
+import { startReplayAndWait } from './support/replays';
 import { signInAs } from './support/sign-in';
 
 /**
@@ -23,11 +24,12 @@ async function openCase(page: Awaited<ReturnType<ReturnType<typeof useBrowser>['
 describe('robot recording upload on the case page', () => {
   const browser = useBrowser();
 
-  it('reads a recording into a bundle and shows its overview, then names what is wrong with a bad file', async () => {
+  it('reads a recording into a bundle that replays with its flag, then names what is wrong with a bad file', async () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'driftcase-recording-e2e-'));
     const mcap = await writeMcap(SAMPLE, path.join(dir, 'heron-dock.mcap'), {
       compression: 'zstd',
-      scanLimit: 150,
+      // 26 s of scans: past the wheel slip at 18-22 s (sample-logs/catalog.json).
+      scanLimit: 260,
     });
     const page = await browser.open({ viewport: DESKTOP });
     await openCase(page);
@@ -48,6 +50,18 @@ describe('robot recording upload on the case page', () => {
     await saveScreenshot(page, 'recording-upload-valid');
     // The derived bundle is listed on the case like any bundle.
     await page.getByTestId('bundle-row').filter({ hasText: 'heron-dock-bundle.zip' }).first().waitFor();
+
+    // The derived bundle replays in the workspace and its flags are listed there. The import's
+    // default settings (global start, 1000 particles) are not the sample's own, so which flag
+    // the slip raises first differs; that some flag is raised after the slip at 18 s does not.
+    await panel.getByRole('link', { name: 'Open workspace' }).click();
+    await startReplayAndWait(page, 'From the dock recording');
+    const flags = page.getByRole('list', { name: 'Flags in this replay' }).getByRole('listitem');
+    await flags.first().waitFor({ timeout: 60_000 });
+    expect(await flags.count()).toBeGreaterThan(0);
+    await saveScreenshot(page, 'recording-upload-replayed');
+    await page.getByRole('link', { name: 'Back to the case' }).click();
+    await page.getByRole('heading', { name: 'Robot recording' }).waitFor();
 
     const notRecording = path.join(dir, 'gate-camera.mcap');
     fs.writeFileSync(notRecording, `a camera export, not a robot recording ${Date.now()}`);
