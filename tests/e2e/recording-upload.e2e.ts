@@ -59,6 +59,23 @@ describe('robot recording upload on the case page', () => {
     const flags = page.getByRole('list', { name: 'Flags in this replay' }).getByRole('listitem');
     await flags.first().waitFor({ timeout: 60_000 });
     expect(await flags.count()).toBeGreaterThan(0);
+    // Each flag's (i) buttons sit beside its title's words, never over them.
+    const covered = await flags.evaluateAll((items) =>
+      items.some((item) => {
+        const title = item.querySelector('[data-testid="flag-title"]');
+        if (!title) return true;
+        const range = document.createRange();
+        range.selectNodeContents(title);
+        const words = [...range.getClientRects()];
+        const buttons = [...item.querySelectorAll('button[aria-label^="What is"]')].map((b) =>
+          b.getBoundingClientRect(),
+        );
+        return words.some((w) =>
+          buttons.some((b) => w.left < b.right && b.left < w.right && w.top < b.bottom && b.top < w.bottom),
+        );
+      }),
+    );
+    expect(covered).toBe(false);
     await saveScreenshot(page, 'recording-upload-replayed');
     await page.getByRole('link', { name: 'Back to the case' }).click();
     await page.getByRole('heading', { name: 'Robot recording' }).waitFor();

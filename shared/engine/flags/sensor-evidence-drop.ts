@@ -59,7 +59,7 @@ export function detectSensorEvidenceDrop(
       drop >= EVIDENCE_CRITICAL_DROP_NATS || (isCountDrop && ratio < EVIDENCE_CRITICAL_COUNT_RATIO);
     const seconds = fixed(runSeconds(series.t, run));
     const fit = Number.isFinite(drop)
-      ? `log-likelihood per measurement fell by a median ${fixed(drop, 2)} nats from its ${REFERENCE_WINDOW} s level of ${fixed(level, 2)}`
+      ? `the log-likelihood per measurement fell by a median ${fixed(drop, 2)} nats from its ${REFERENCE_WINDOW} s level of ${fixed(level, 2)}`
       : 'no usable measurements arrived';
     const beams = isCountDrop
       ? ` and valid measurements fell as low as ${fixed(ratio * 100, 0)} % of the recent ${fixed(count, 0)} per step`
@@ -69,7 +69,7 @@ export function detectSensorEvidenceDrop(
       start: series.t[run.first],
       end: series.t[run.last],
       severity: critical ? 'critical' : 'warning',
-      evidence: `For ${seconds} s the ${fit}${beams}${counts ? ` (steps where at least ${fixed(EXPLAINED_SCAN_SHARE * 100, 0)} % of the scan still fit the map or an unmapped object are not counted)` : ''}.`,
+      evidence: `For ${seconds} s ${fit}${beams}${counts ? ` (steps where at least ${fixed(EXPLAINED_SCAN_SHARE * 100, 0)} % of the scan still fit the map or an unmapped object are not counted)` : ''}.`,
     });
   }
   return flags;
