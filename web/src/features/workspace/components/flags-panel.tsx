@@ -48,7 +48,9 @@ export function FlagsPanel({ flags, time, onOpen }: FlagsPanelProps) {
               <span className="flex items-center gap-1.5 font-bold">
                 <Flag aria-hidden className="size-4 text-series-flag" />
                 {/* Room on the right for the info buttons laid over the row, so they never cover the words. */}
-                <span className="min-w-0 flex-1 pr-12" data-testid="flag-title">{labelFor(FLAG_KIND_LABELS, flag.kind)}</span>
+                <span className="min-w-0 flex-1 pr-12" data-testid="flag-title">
+                  {labelFor(FLAG_KIND_LABELS, flag.kind)}
+                </span>
                 <span className="ml-auto text-xs font-normal uppercase text-ink-muted">
                   {FLAG_SEVERITY_LABELS[flag.severity]}
                 </span>

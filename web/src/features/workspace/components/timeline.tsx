@@ -8,6 +8,7 @@ import { useElementWidth } from '../hooks/use-element-width';
 import { type TrackSpec, useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
+import { formatReadoutValue, readTracksAt } from '../lib/track-readout';
 import { TimelineMarkers } from './timeline-markers';
 
 const LEFT = 168;
@@ -53,6 +54,8 @@ export const Timeline = memo(function Timeline({
   const full = useMemo<TimeDomain>(() => ({ start: times[0] ?? 0, end: times.at(-1) ?? 0 }), [times]);
   const [domain, setDomain] = useState<TimeDomain>(full);
   const [hovered, setHovered] = useState<TReplayFlag | null>(null);
+  /** The pointer's x (px) over the tracks, for the readout; null when it is elsewhere. */
+  const [pointerX, setPointerX] = useState<number | null>(null);
   useEffect(() => setDomain(full), [full]);
   const ownSpecs = useTrackSpecs(series, tracks, clearance);
   const specs = useMemo(
@@ -141,8 +144,19 @@ export const Timeline = memo(function Timeline({
               </text>
               {extents.length > 0 && (
                 <>
+                  {[0, TRACK_HEIGHT / 2, TRACK_HEIGHT].map((y) => (
+                    <line key={y} x1={LEFT - 3} x2={LEFT} y1={y} y2={y} stroke="#5a6472" />
+                  ))}
                   <text x={LEFT - 4} y={10} textAnchor="end" className="fill-ink-muted text-xs tabular-nums">
                     {formatValue(high)}
+                  </text>
+                  <text
+                    x={LEFT - 4}
+                    y={TRACK_HEIGHT / 2 + 4}
+                    textAnchor="end"
+                    className="fill-ink-muted text-xs tabular-nums"
+                  >
+                    {formatValue((low + high) / 2)}
                   </text>
                   <text
                     x={LEFT - 4}
@@ -188,6 +202,7 @@ export const Timeline = memo(function Timeline({
                   strokeDasharray={spec.lines[i].dashed ? '3 2' : undefined}
                 />
               ))}
+              <TrackLegend lines={spec.lines} right={LEFT + plotWidth - 4} />
               {extents.length === 0 && (
                 <text x={LEFT + 8} y={TRACK_HEIGHT / 2 + 4} className="fill-ink-faint text-xs italic">
                   no data for this track
@@ -203,7 +218,17 @@ export const Timeline = memo(function Timeline({
   const cursorX = scale.toPx(times[step] ?? 0);
 
   return (
-    <div ref={containerRef} className="relative w-full">
+    <div
+      ref={containerRef}
+      className="relative w-full"
+      onPointerMove={(event) => {
+        const box = event.currentTarget.getBoundingClientRect();
+        const x = event.clientX - box.left;
+        const y = event.clientY - box.top;
+        setPointerX(x >= LEFT && x <= LEFT + plotWidth && y >= tracksTop ? x : null);
+      }}
+      onPointerLeave={() => setPointerX(null)}
+    >
       {/* biome-ignore lint/a11y/useSemanticElements: an SVG cannot be a fieldset; the group holds the focusable flags. */}
       <svg
         role="group"
@@ -236,6 +261,15 @@ export const Timeline = memo(function Timeline({
           data-testid="timeline-cursor"
           className="pointer-events-none absolute top-0 w-0.5 bg-ink"
           style={{ height, transform: `translateX(${cursorX - 1}px)`, left: 0, willChange: 'transform' }}
+        />
+      )}
+      {pointerX !== null && !hovered && (
+        <TrackReadoutBox
+          specs={specs}
+          time={scale.toTime(pointerX)}
+          x={pointerX}
+          height={height}
+          alignRight={pointerX > LEFT + plotWidth / 2}
         />
       )}
       {hovered && (
@@ -278,3 +312,83 @@ export const Timeline = memo(function Timeline({
     </div>
   );
 });
+
+/** Each line's name beside its stroke, at the top right of its track: the track's legend. */
+function TrackLegend({ lines, right }: { lines: TrackSpec['lines']; right: number }) {
+  let x = right;
+  const placed = [...lines].reverse().map((line) => {
+    const width = line.name.length * 6 + 22;
+    x -= width;
+    return { line, x };
+  });
+  return (
+    <g data-testid="track-legend" aria-hidden>
+      {placed.map(({ line, x: at }) => (
+        <g key={line.name} transform={`translate(${at}, 9)`}>
+          <line
+            x1={0}
+            x2={14}
+            y1={-3}
+            y2={-3}
+            stroke={line.colour}
+            strokeWidth={2}
+            strokeDasharray={line.dashed ? '3 2' : undefined}
+          />
+          <text x={18} y={0} className="fill-ink-muted" style={{ fontSize: 10 }}>
+            {line.name}
+          </text>
+        </g>
+      ))}
+    </g>
+  );
+}
+
+/** The pointer's time and every track's value there, beside a thin line at the pointer. */
+function TrackReadoutBox({
+  specs,
+  time,
+  x,
+  height,
+  alignRight,
+}: {
+  specs: TrackSpec[];
+  time: number;
+  x: number;
+  height: number;
+  alignRight: boolean;
+}) {
+  const readout = readTracksAt(specs, time);
+  return (
+    <>
+      <div
+        aria-hidden
+        className="pointer-events-none absolute top-0 w-px bg-ink-muted"
+        style={{ height, left: x }}
+      />
+      <div
+        role="status"
+        aria-label="Values at the pointer"
+        data-testid="timeline-readout"
+        className="pointer-events-none absolute top-8 z-10 min-w-48 rounded-md border border-canvas-line bg-canvas-raised p-2 text-xs tabular-nums shadow-md"
+        style={alignRight ? { right: `calc(100% - ${x - 8}px)` } : { left: x + 8 }}
+      >
+        <p className="font-bold" data-testid="readout-time">
+          {time.toFixed(2)} s
+        </p>
+        {readout.map((track) => (
+          <p key={track.id} data-track={track.id}>
+            <span className="text-ink-muted">{track.label}: </span>
+            {track.lines
+              .map((line) =>
+                track.lines.length > 1
+                  ? `${line.name} ${formatReadoutValue(line.value)}`
+                  : formatReadoutValue(line.value),
+              )
+              .join(' · ')}{' '}
+            <span className="text-ink-muted">{track.unit.split(',')[0]}</span>
+          </p>
+        ))}
+      </div>
+    </>
+  );
+}

@@ -5,6 +5,8 @@ import { useMemo } from 'react';
 export interface TrackLine {
   times: ArrayLike<number>;
   values: ArrayLike<number | null>;
+  /** What the line shows, in the legend and the pointer readout (e.g. "onboard vs reference"). */
+  name: string;
   colour: string;
   dashed?: boolean;
 }
@@ -32,7 +34,7 @@ export function useTrackSpecs(
         id: 'ess',
         label: 'Effective sample size',
         unit: 'particles',
-        lines: [{ times: t, values: c.ess, colour: '#0072B2' }],
+        lines: [{ times: t, values: c.ess, name: 'effective sample size', colour: '#0072B2' }],
         rule: particles
           ? { value: series.resamplingThreshold * particles, label: 'resampling threshold' }
           : undefined,
@@ -41,22 +43,36 @@ export function useTrackSpecs(
         id: 'loglik',
         label: 'Log-likelihood',
         unit: 'nats',
-        lines: [{ times: t, values: c.log_likelihood, colour: '#0072B2' }],
+        lines: [{ times: t, values: c.log_likelihood, name: 'per measurement', colour: '#0072B2' }],
       },
       {
         id: 'error',
         label: 'Position error',
         unit: 'm',
         lines: [
-          { times: t, values: c.error_reference, colour: '#009E73' },
-          { times: t, values: c.error_onboard, colour: '#E69F00', dashed: true },
+          { times: t, values: c.error_reference, name: 'replay vs reference', colour: '#009E73' },
+          {
+            times: t,
+            values: c.error_onboard,
+            name: 'onboard vs reference',
+            colour: '#E69F00',
+            dashed: true,
+          },
         ],
       },
     ];
     if (tracks) {
-      const speed: TrackLine[] = [{ times: tracks.speed.t, values: tracks.speed.speed, colour: '#5a6472' }];
+      const speed: TrackLine[] = [
+        { times: tracks.speed.t, values: tracks.speed.speed, name: 'odometry', colour: '#5a6472' },
+      ];
       if (tracks.commands)
-        speed.push({ times: tracks.commands.t, values: tracks.commands.v, colour: '#8a93a0', dashed: true });
+        speed.push({
+          times: tracks.commands.t,
+          values: tracks.commands.v,
+          name: 'commanded',
+          colour: '#8a93a0',
+          dashed: true,
+        });
       specs.push({ id: 'speed', label: 'Speed', unit: 'm/s', lines: speed });
     }
     if (clearance) {
@@ -64,7 +80,7 @@ export function useTrackSpecs(
         id: 'clearance',
         label: 'Clearance',
         unit: 'm, footprint to map',
-        lines: [{ times: t, values: clearance, colour: '#0072B2' }],
+        lines: [{ times: t, values: clearance, name: 'replay pose to map', colour: '#0072B2' }],
         rule: { value: 0, label: 'footprint touches' },
       });
     }
