@@ -1,8 +1,9 @@
+import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { DESKTOP, SCREENSHOT_DIR, useBrowser } from './support/browser';
+import { DESKTOP, SCREENSHOT_DIR, saveScreenshot, useBrowser } from './support/browser';
 import { openCaseFromList } from './support/open-case';
 import { startReplayAndWait } from './support/replays';
 import { signInAs } from './support/sign-in';
@@ -27,7 +28,7 @@ const PNG_SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0
 describe('pictures for the file', () => {
   const browser = useBrowser();
 
-  it('exports the map and the timeline at the cursor as SVG and PNG, each labelled with replay, digest and step', async () => {
+  it('exports the map and the timeline at the cursor as SVG and PNG, each labelled with replay, digest and step, and cites a saved one in the findings', async () => {
     const page = await browser.open({ viewport: DESKTOP });
     await signInAs(page, 'investigator');
     await openCaseFromList(page, /leaking defrost drain/i);
@@ -55,6 +56,9 @@ describe('pictures for the file', () => {
     const mapText = mapSvg.bytes.toString('utf8');
     expect(mapText).toContain(`Map · ${caption}`);
     expect(mapText).toContain('href="data:image/png;base64,');
+    // Its scale bar says what the on-screen one says (a picture of a map needs its scale).
+    const scaleMetres = await page.getByTestId('scale-bar').getAttribute('data-metres');
+    expect(mapText).toContain(`>${scaleMetres} m</text>`);
 
     const timelineSvg = await download(page, 'Export the timeline as SVG');
     expect(timelineSvg.name).toBe(`timeline-${replayId?.slice(0, 8)}-step-7.svg`);
@@ -84,6 +88,38 @@ describe('pictures for the file', () => {
     fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
     fs.writeFileSync(path.join(SCREENSHOT_DIR, 'picture-timeline.png'), timelinePng.bytes);
     fs.writeFileSync(path.join(SCREENSHOT_DIR, 'picture-map.png'), mapPng.bytes);
+
+    // Saved to the case as a figure, then cited in the findings: shown by its caption with its picture.
+    await page.getByRole('button', { name: 'Save map to case' }).click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /Saved to the case as a figure \(SHA-256 [0-9a-f]{12}…\)/ })
+      .waitFor();
+    const bundleId = new URL(page.url()).pathname.split('/')[2];
+    const { caseId } = await (await page.request.get(`/api/bundles/${bundleId}`)).json();
+    const figures = (await (await page.request.get(`/api/cases/${caseId}/figures`)).json()).items;
+    const figure = figures.find((f: { caption: string }) => f.caption === `Map · ${caption}`);
+    expect(figure).toMatchObject({ mediaType: 'image/png', replayId, step: 7 });
+    const stored = await page.request.get(`/api/figures/${figure.id}/file`);
+    // SHA-256 of the served bytes by Node's own hash (FIPS 180-4), not the server's record.
+    expect(
+      createHash('sha256')
+        .update(await stored.body())
+        .digest('hex'),
+    ).toBe(figure.sha256);
+
+    await page.goto(`/cases/${caseId}/findings`);
+    await page.getByRole('heading', { name: 'Findings', exact: true }).waitFor();
+    await page.getByLabel('Cite a').selectOption('figure');
+    await page.getByLabel('Figure', { exact: true }).selectOption(figure.id);
+    await page.getByRole('button', { name: 'Add evidence' }).click();
+    const citation = page.getByTestId('evidence-citation').filter({ hasText: `Map · ${caption}` });
+    await citation.getByRole('link', { name: `Map · ${caption}` }).waitFor();
+    const thumbnail = citation.getByTestId('figure-thumbnail');
+    await expect
+      .poll(() => thumbnail.evaluate((img) => (img as HTMLImageElement).naturalWidth), { timeout: 10_000 })
+      .toBe(pngSize(mapPng.bytes).width);
+    await saveScreenshot(page, 'findings-cited-figure');
     expect(mapPng.bytes.subarray(0, 8)).toEqual(PNG_SIGNATURE);
     expect(pngSize(mapPng.bytes).width).toBe(2 * Number(/width="(\d+)"/.exec(mapText)?.[1]));
   });

@@ -8,8 +8,8 @@ import { downloadBlob } from '../lib/rasterise-svg';
 export interface PictureExportBarProps {
   /** Returns what the picture is made from, read when a button is pressed. */
   source: () => PictureSource | null;
-  /** Extra actions for a made picture (e.g. saving it to the case as a figure). */
-  onSave?: (picture: Picture) => Promise<void>;
+  /** Saves a made picture to the case as a figure; answers what to tell the person. */
+  onSave?: (picture: Picture) => Promise<string>;
 }
 
 const CHOICES: { subject: PictureSubject; format: PictureFormat; words: string }[] = [
@@ -22,16 +22,18 @@ const CHOICES: { subject: PictureSubject; format: PictureFormat; words: string }
 /** "Export picture": the map or the timeline at the cursor, labelled with replay, digest and step. */
 export function PictureExportBar({ source, onSave }: PictureExportBarProps) {
   const [problem, setProblem] = useState<string | null>(null);
+  const [saved, setSaved] = useState<string | null>(null);
   const [busy, setBusy] = useState<string | null>(null);
 
   async function run(key: string, subject: PictureSubject, format: PictureFormat, save: boolean) {
     const from = source();
     if (!from) return;
     setProblem(null);
+    setSaved(null);
     setBusy(key);
     try {
       const picture = await makePicture(from, subject, format);
-      if (save && onSave) await onSave(picture);
+      if (save && onSave) setSaved(await onSave(picture));
       else downloadBlob(picture.blob, picture.fileName);
     } catch (error) {
       setProblem((error as Error).message);
@@ -74,6 +76,11 @@ export function PictureExportBar({ source, onSave }: PictureExportBarProps) {
             Save {subject} to case
           </Button>
         ))}
+      {saved && (
+        <p role="status" className="w-full text-state-ok">
+          {saved}
+        </p>
+      )}
       {problem && (
         <p role="alert" className="w-full text-state-bad">
           {problem}

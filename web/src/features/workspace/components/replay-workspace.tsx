@@ -44,7 +44,7 @@ export interface ReplayWorkspaceProps {
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
   /** Stores an exported picture in the case (shown as "Save … to case" when given). */
-  onSavePicture?: (picture: Picture) => Promise<void>;
+  onSavePicture?: (picture: Picture) => Promise<string>;
 }
 
 /** A finished replay: scrubber, map view and timeline sharing one cursor, and the side panel. */

@@ -1,4 +1,4 @@
-import { mapPictureSvg } from './map-picture';
+import { type MapScale, mapPictureSvg } from './map-picture';
 import {
   type PictureFormat,
   type PictureMoment,
@@ -34,6 +34,14 @@ function drawnStep(subject: PictureSubject, element: Element): number {
   return step;
 }
 
+/** The scale bar the map shows now, from its data attributes; null before the map is laid out. */
+function mapScale(container: HTMLElement): MapScale | null {
+  const bar = container.querySelector<HTMLElement>('[data-testid="scale-bar"]');
+  const px = Number(bar?.dataset.px);
+  const metres = Number(bar?.dataset.metres);
+  return Number.isFinite(px) && Number.isFinite(metres) && px > 0 ? { px, metres } : null;
+}
+
 /** Makes the picture of the map or the timeline as it is on screen now, as SVG or PNG. */
 export async function makePicture(
   source: PictureSource,
@@ -54,7 +62,7 @@ export async function makePicture(
   const caption = pictureCaption(subject, moment);
   const svgText =
     subject === 'map'
-      ? mapPictureSvg(element as HTMLCanvasElement, caption)
+      ? mapPictureSvg(element as HTMLCanvasElement, caption, mapScale(source.container))
       : timelinePictureSvg(element as SVGSVGElement, caption);
   const blob =
     format === 'svg' ? new Blob([svgText], { type: 'image/svg+xml' }) : await rasteriseSvg(svgText);
