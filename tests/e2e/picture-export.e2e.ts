@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
+import { csrfHeaders } from './support/api-session';
 import { DESKTOP, SCREENSHOT_DIR, saveScreenshot, useBrowser } from './support/browser';
 import { openCaseFromList } from './support/open-case';
 import { startReplayAndWait } from './support/replays';
@@ -107,6 +108,18 @@ describe('pictures for the file', () => {
         .update(await stored.body())
         .digest('hex'),
     ).toBe(figure.sha256);
+
+    // The exported SVGs are plain pictures by the server's own check, so they can be saved too.
+    for (const svg of [mapSvg, timelineSvg]) {
+      const saved = await page.request.post(`/api/cases/${caseId}/figures`, {
+        headers: await csrfHeaders(page),
+        multipart: {
+          caption: `SVG ${svg.name}`,
+          figure: { name: svg.name, mimeType: 'image/svg+xml', buffer: svg.bytes },
+        },
+      });
+      expect([saved.status(), svg.name]).toEqual([201, svg.name]);
+    }
 
     await page.goto(`/cases/${caseId}/findings`);
     await page.getByRole('heading', { name: 'Findings', exact: true }).waitFor();

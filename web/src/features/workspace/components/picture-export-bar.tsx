@@ -13,10 +13,10 @@ export interface PictureExportBarProps {
 }
 
 const CHOICES: { subject: PictureSubject; format: PictureFormat; words: string }[] = [
-  { subject: 'map', format: 'png', words: 'Map PNG' },
-  { subject: 'map', format: 'svg', words: 'Map SVG' },
-  { subject: 'timeline', format: 'png', words: 'Timeline PNG' },
-  { subject: 'timeline', format: 'svg', words: 'Timeline SVG' },
+  { subject: 'map', format: 'png', words: 'Map as PNG' },
+  { subject: 'map', format: 'svg', words: 'Map as SVG' },
+  { subject: 'timeline', format: 'png', words: 'Timeline as PNG' },
+  { subject: 'timeline', format: 'svg', words: 'Timeline as SVG' },
 ];
 
 /** "Export picture": the map or the timeline at the cursor, labelled with replay, digest and step. */
