@@ -1,4 +1,7 @@
 import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -21,6 +24,9 @@ const PLAIN_SVG = `<?xml version="1.0" encoding="UTF-8"?>
 const CAPTION = 'Map · Dock 4 replay · digest 0123456789ab… · step 3 · 0.30 s';
 /** SHA-256 by Node's own hash, not by the server under test (FIPS 180-4). */
 const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
+/** Where uploads wait before they are kept or refused (the test app's DATA_DIR, tests/support/test-app.ts). */
+const INCOMING = path.join(os.tmpdir(), `driftcase-test-${process.pid}`, 'incoming');
+const incomingCount = () => fs.readdirSync(INCOMING).length;
 
 let t: TestApp;
 let fixture: CaseWithReplay;
@@ -91,6 +97,14 @@ describe('saving a picture to the case as a figure', () => {
     const again = await upload(TINY_PNG);
     expect([again.status, again.body.duplicate, again.body.figure.id]).toEqual([200, true, pngFigure.id]);
     expect(await figureEntries(pngFigure.id)).toHaveLength(1);
+  });
+
+  it('keeps the same picture sent twice at once as one figure with one entry', async () => {
+    const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="7" height="7"><title>twice</title></svg>`;
+    const answers = await Promise.all([upload(svg), upload(svg)]);
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 201]);
+    expect(answers[0].body.figure.id).toBe(answers[1].body.figure.id);
+    expect(await figureEntries(answers[0].body.figure.id)).toHaveLength(1);
   });
 
   it('serves the stored bytes unchanged, under headers that let no picture run script (CSP sandbox, nosniff)', async () => {
@@ -234,15 +248,21 @@ describe('findings citing a figure, and the evidence archive', () => {
     );
     const file = await downloadArchive(t, fixture.caseId, await makeTempDir('driftcase-figure-archive-'));
     const entries = await readZipEntries(file);
-    const path = `figures/${sha256(TINY_PNG)}/figure-${sha256(TINY_PNG).slice(0, 12)}.png`;
-    expect(sha256(entries.get(path) as Buffer)).toBe(sha256(TINY_PNG));
+    const archivePath = `figures/${sha256(TINY_PNG)}/figure-${sha256(TINY_PNG).slice(0, 12)}.png`;
+    expect(sha256(entries.get(archivePath) as Buffer)).toBe(sha256(TINY_PNG));
     const manifest = JSON.parse((entries.get('manifest.json') as Buffer).toString('utf8'));
-    expect(manifest.files).toContainEqual({ path, size: TINY_PNG.length, sha256: sha256(TINY_PNG) });
+    expect(manifest.files).toContainEqual({
+      path: archivePath,
+      size: TINY_PNG.length,
+      sha256: sha256(TINY_PNG),
+    });
     const listed = JSON.parse((entries.get('figures/figures.json') as Buffer).toString('utf8'));
-    expect(listed).toContainEqual(expect.objectContaining({ id: figure.id, caption: CAPTION, path }));
+    expect(listed).toContainEqual(
+      expect.objectContaining({ id: figure.id, caption: CAPTION, path: archivePath }),
+    );
     const report = (entries.get('report.html') as Buffer).toString('utf8');
     expect(report).toContain(`Figure: ${CAPTION}`);
     expect(report).toContain(`src="data:image/png;base64,${TINY_PNG.toString('base64')}"`);
-    expect(report).toContain(`<a href="${path}">`);
+    expect(report).toContain(`<a href="${archivePath}">`);
   }, 120_000);
 });

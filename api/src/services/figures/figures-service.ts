@@ -22,7 +22,7 @@ export interface FigureUpload {
 
 const SEE_FIGURES = 'see its figures';
 
-/** A figure's file name in the store's listing: its caption is what people read, this what they save. */
+/** The extension a figure's file gets from its media type, as checked from its bytes. */
 const FILE_EXTENSIONS = { 'image/png': 'png', 'image/svg+xml': 'svg' } as const;
 
 /**
@@ -70,14 +70,11 @@ export function createFiguresService(deps: { db: Database; audit: AuditService; 
       throw error;
     }
     const kept = await evidence.storeUploadedFile(upload.tempFile);
-    const [existing] = await db
-      .select()
-      .from(figures)
-      .where(and(eq(figures.caseId, caseId), eq(figures.sha256, kept.sha256)));
-    if (existing) return { figure: (await withPeople([existing]))[0], duplicate: true };
-    const row = await db.transaction(async (tx) => {
+    // The same bytes saved twice (or by two people at once) are one figure: the insert that loses
+    // the race writes nothing, and the figure already recorded is answered as a duplicate.
+    const inserted = await db.transaction(async (tx) => {
       const id = randomUUID();
-      const [inserted] = await tx
+      const [row] = await tx
         .insert(figures)
         .values({
           id,
@@ -91,7 +88,9 @@ export function createFiguresService(deps: { db: Database; audit: AuditService; 
           step: fields.step ?? null,
           uploadedBy: actor.id,
         })
+        .onConflictDoNothing({ target: [figures.caseId, figures.sha256] })
         .returning();
+      if (!row) return null;
       await audit.append(tx, {
         actor,
         action: 'figure.store',
@@ -107,9 +106,14 @@ export function createFiguresService(deps: { db: Database; audit: AuditService; 
         },
         payload: { ...fields, sha256: kept.sha256, mediaType },
       });
-      return inserted;
+      return row;
     });
-    return { figure: (await withPeople([row]))[0], duplicate: false };
+    if (inserted) return { figure: (await withPeople([inserted]))[0], duplicate: false };
+    const [existing] = await db
+      .select()
+      .from(figures)
+      .where(and(eq(figures.caseId, caseId), eq(figures.sha256, kept.sha256)));
+    return { figure: (await withPeople([existing]))[0], duplicate: true };
   }
 
   async function listFigures(caseId: string, actor: Actor): Promise<TFigure[]> {
