@@ -169,7 +169,9 @@ describe('saving a picture to the case as a figure', () => {
     async (_, bytes, words) => {
       const before = (await as(t, 'investigator').get(`/api/cases/${fixture.caseId}/figures`)).body.items
         .length;
+      const waiting = incomingCount();
       const res = await upload(bytes, { name: 'picture.svg' });
+      expect(incomingCount()).toBe(waiting);
       expect(res.status).toBe(400);
       expect(res.body.error.code).toBe('validation_failed');
       expect(res.body.error.message).toMatch(words);
