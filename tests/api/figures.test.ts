@@ -5,6 +5,7 @@ import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { verifyArchive } from '../../api/src/archive/verify-archive';
 import { auditEntries } from '../../api/src/db/schema';
 import type { Role } from '../../shared/roles';
 import { readZipEntries } from '../archive/rewrite-zip';
@@ -266,5 +267,9 @@ describe('findings citing a figure, and the evidence archive', () => {
     expect(report).toContain(`Figure: ${CAPTION}`);
     expect(report).toContain(`src="data:image/png;base64,${TINY_PNG.toString('base64')}"`);
     expect(report).toContain(`<a href="${archivePath}">`);
+    // The offline verifier accepts the archive with its figures, each checked against the manifest.
+    const published = (await request(t.app).get('/api/keys').expect(200)).body;
+    const verified = await verifyArchive(file, { trust: { keys: published.keys, label: 'GET /api/keys' } });
+    expect(verified.checks.filter((c) => !c.ok)).toEqual([]);
   }, 120_000);
 });
