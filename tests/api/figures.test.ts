@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyArchive } from '../../api/src/archive/verify-archive';
@@ -106,6 +106,29 @@ describe('saving a picture to the case as a figure', () => {
     expect(answers.map((a) => a.status).sort()).toEqual([200, 201]);
     expect(answers[0].body.figure.id).toBe(answers[1].body.figure.id);
     expect(await figureEntries(answers[0].body.figure.id)).toHaveLength(1);
+  });
+
+  it('saves nothing when its audit entry cannot be written (a write and its entry commit together)', async () => {
+    const db = t.database.db;
+    // The database itself refuses the audit row, as a full disk would (tests/support/atomic-audit-suite.ts).
+    await db.execute(
+      sql.raw(`create or replace function figure_test_refuse() returns trigger language plpgsql as $$
+        begin raise exception 'refused by a test trigger'; end $$`),
+    );
+    await db.execute(
+      sql.raw(
+        'create trigger figure_test_refuse before insert on audit_entries for each row execute function figure_test_refuse()',
+      ),
+    );
+    const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="5" height="5"><title>unrecorded</title></svg>`;
+    try {
+      const res = await upload(svg);
+      expect([res.status, res.body.error.code]).toEqual([500, 'audit_failed']);
+    } finally {
+      await db.execute(sql.raw('drop trigger figure_test_refuse on audit_entries'));
+    }
+    const listed = (await as(t, 'investigator').get(`/api/cases/${fixture.caseId}/figures`)).body.items;
+    expect(listed.map((f: { sha256: string }) => f.sha256)).not.toContain(sha256(svg));
   });
 
   it('serves the stored bytes unchanged, under headers that let no picture run script (CSP sandbox, nosniff)', async () => {
