@@ -29,6 +29,7 @@ export const AUDIT_ACTIONS = [
   'bookmark.edit_note',
   'bookmark.delete',
   'saved_query.create',
+  'figure.store',
   'archive.export',
   'archive.verify',
   'key.rotate',

@@ -12,6 +12,7 @@ export const EVIDENCE_TYPE_LABELS: Record<TEvidenceItem['type'], string> = {
   saved_query: 'Saved query',
   cause: 'Probable cause',
   bundle_file: 'Bundle file',
+  figure: 'Figure',
 };
 
 export interface EvidenceNames {
@@ -22,6 +23,7 @@ export interface EvidenceNames {
   >;
   queries: ReadonlyMap<string, { title: string; bundleId: string }>;
   bundles: ReadonlyMap<string, { originalName: string }>;
+  figures: ReadonlyMap<string, { caption: string; fileName: string; sha256: string }>;
 }
 
 /** Where a cited item can be opened: a bundle's workspace, at a replay and moment when known. */
@@ -43,6 +45,8 @@ export interface NamedEvidence {
   /** False when the cited item is not (or no longer) in this case: only its id is known. */
   isFound: boolean;
   target: EvidenceTarget | null;
+  /** A cited figure's picture, so it can be shown as a thumbnail or linked. */
+  picture?: { figureId: string; fileName: string };
 }
 
 export const EMPTY_EVIDENCE_NAMES: EvidenceNames = {
@@ -50,6 +54,7 @@ export const EMPTY_EVIDENCE_NAMES: EvidenceNames = {
   bookmarks: new Map(),
   queries: new Map(),
   bundles: new Map(),
+  figures: new Map(),
 };
 
 /** The first 12 hex digits of a hash: enough to tell items apart on screen; the full one is kept. */
@@ -127,6 +132,20 @@ export function nameEvidence(item: TEvidenceItem, names: EvidenceNames): NamedEv
         target: isFound ? { bundleId: item.bundleId } : null,
       };
     }
+    case 'figure': {
+      const figure = names.figures.get(item.figureId);
+      const hash = { label: 'SHA-256', value: item.sha256 };
+      if (!figure)
+        return missing(`Figure ${shortId(item.figureId)}`, `SHA-256 ${shortHash(item.sha256)}`, hash);
+      return {
+        name: figure.caption,
+        detail: `picture ${figure.fileName}, SHA-256 ${shortHash(item.sha256)}`,
+        hash,
+        isFound: true,
+        target: null,
+        picture: { figureId: item.figureId, fileName: figure.fileName },
+      };
+    }
   }
 }
 
@@ -153,6 +172,7 @@ export function toEvidenceNames(lists: {
   }[];
   queries: readonly { id: string; title: string; bundleId: string }[];
   bundles: readonly { id: string; originalName: string }[];
+  figures: readonly { id: string; caption: string; fileName: string; sha256: string }[];
 }): EvidenceNames {
   const byId = <T extends { id: string }>(items: readonly T[]) =>
     new Map(items.map((item) => [item.id, item]));
@@ -161,5 +181,6 @@ export function toEvidenceNames(lists: {
     bookmarks: byId(lists.bookmarks),
     queries: byId(lists.queries),
     bundles: byId(lists.bundles),
+    figures: byId(lists.figures),
   };
 }

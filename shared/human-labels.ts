@@ -54,6 +54,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'bookmark.edit_note': 'Pin note edited',
   'bookmark.delete': 'Pin removed',
   'saved_query.create': 'Query saved',
+  'figure.store': 'Picture saved as a figure',
   'archive.export': 'Evidence archive exported',
   'archive.verify': 'Evidence archive checked',
   'key.rotate': 'Signing key replaced',

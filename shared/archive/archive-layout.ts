@@ -16,6 +16,12 @@ export const FIXES_PATH = 'fixes/fixes.json';
 export const BOOKMARKS_PATH = 'workspace/bookmarks.json';
 export const SAVED_QUERIES_PATH = 'workspace/saved-queries.json';
 
+/** Every picture saved to the case (caption, moment, SHA-256) and where its file is in the archive. */
+export const FIGURES_PATH = 'figures/figures.json';
+/** A saved picture byte for byte, under its SHA-256 and the file name the server gave it. */
+export const figureFilePath = (sha256: string, fileName: string) =>
+  `figures/${sha256}/${fileName.replace(/[^A-Za-z0-9._-]/g, '_').replace(/^\.+/, '') || 'figure'}`;
+
 export const bundleOriginalPath = (sha256: string) => `bundles/${sha256}/original.zip`;
 export const bundleValidationPath = (sha256: string) => `bundles/${sha256}/validation.json`;
 

@@ -15,5 +15,8 @@ export const ZEvidenceNamesResponse = z.object({
   ),
   queries: z.array(z.object({ id: z.string(), title: z.string(), bundleId: z.string() })),
   bundles: z.array(z.object({ id: z.string(), originalName: z.string() })),
+  figures: z.array(
+    z.object({ id: z.string(), caption: z.string(), fileName: z.string(), sha256: z.string() }),
+  ),
 });
 export type TEvidenceNamesResponse = z.infer<typeof ZEvidenceNamesResponse>;

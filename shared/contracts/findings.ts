@@ -80,6 +80,13 @@ export const ZEvidenceItem = z.discriminatedUnion('type', [
     sha256: ZSha256,
     note: safeText().max(2000).optional(),
   }),
+  z.strictObject({
+    // A picture saved to the case (map or timeline at a moment), cited by its id and SHA-256.
+    type: z.literal('figure'),
+    figureId: z.uuid(),
+    sha256: ZSha256,
+    note: safeText().max(2000).optional(),
+  }),
 ]);
 export type TEvidenceItem = z.infer<typeof ZEvidenceItem>;
 

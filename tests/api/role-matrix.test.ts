@@ -12,6 +12,7 @@ import { makeBundleFiles, makeTempDir, writeBundleZip } from '../support/bundle-
 import { bundleViewSamples } from '../support/bundle-view-samples';
 import { caseWorkSamples } from '../support/case-work-samples';
 import { evidenceSamples } from '../support/evidence-samples';
+import { figureSamples } from '../support/figure-samples';
 import { memberSamples } from '../support/member-samples';
 import { writeMcap } from '../support/recordings/write-mcap';
 import { replayToEnd } from '../support/replay-runs';
@@ -33,6 +34,8 @@ interface Sample {
   needsFreshSession?: boolean;
   /** Multipart upload: field name and file path. */
   attach?: { field: string; file: string };
+  /** Text fields sent with the upload. */
+  fields?: Record<string, string>;
 }
 
 interface Fixtures {
@@ -58,6 +61,7 @@ const SAMPLES: Record<string, (f: Fixtures, role: Role | null) => Sample | Promi
   ...evidenceSamples(() => t),
   ...bundleViewSamples(),
   ...memberSamples(() => t),
+  ...figureSamples(() => t),
   'get /health': () => ({ path: '/api/health' }),
   'get /site': () => ({ path: '/api/site' }),
   'post /auth/login': () => ({
@@ -285,7 +289,8 @@ async function callAs(spec: RouteSpec, caller: Caller | null) {
   const isAllowed = spec.access === 'public' || (role !== null && spec.access.includes(role));
   const prepared = req;
   // Awaiting a supertest request sends it, so it is wrapped until the caller is ready.
-  if (sample.attach && isAllowed) return () => prepared.attach(sample.attach!.field, sample.attach!.file);
+  if (sample.attach && isAllowed)
+    return () => prepared.field(sample.fields ?? {}).attach(sample.attach!.field, sample.attach!.file);
   return () => (sample.body ? prepared.send(sample.body) : prepared);
 }
 

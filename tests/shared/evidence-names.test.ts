@@ -7,6 +7,8 @@ const BUNDLE = '7d3c1f0e-2b4a-4c8e-9f10-aa0000000001';
 const REPLAY = '96b69dea-0c1d-4e2f-8a3b-bb0000000002';
 const BOOKMARK = '1f2e3d4c-5b6a-4978-8a9b-cc0000000003';
 const QUERY = 'a1b2c3d4-e5f6-4a7b-8c9d-dd0000000004';
+const FIGURE = 'e1f2a3b4-c5d6-4e7f-8a9b-ee0000000005';
+const FIGURE_SHA = 'ab12cd34'.repeat(8);
 const DIGEST = 'c0ffee00'.repeat(8);
 const names = toEvidenceNames({
   bundles: [{ id: BUNDLE, originalName: 'hl07-dock4.zip' }],
@@ -22,6 +24,14 @@ const names = toEvidenceNames({
     },
   ],
   queries: [{ id: QUERY, title: 'Protective stops per minute', bundleId: BUNDLE }],
+  figures: [
+    {
+      id: FIGURE,
+      caption: 'Map · Wider motion noise · digest c0ffee00c0ff… · step 42 · 4.20 s',
+      fileName: 'figure-ab12cd34ab12.png',
+      sha256: FIGURE_SHA,
+    },
+  ],
 });
 
 describe('cited evidence by name', () => {
@@ -70,5 +80,20 @@ describe('cited evidence by name', () => {
     expect(named.detail).toBe('digest c0ffee00c0ff…, not found in this case');
     expect(named.hash?.value).toBe(DIGEST);
     expect(named.target).toBeNull();
+  });
+
+  it('names a figure by its caption, with its file and short SHA-256, and points at its picture', () => {
+    const named = nameEvidence({ type: 'figure', figureId: FIGURE, sha256: FIGURE_SHA }, names);
+    expect(named).toEqual({
+      name: 'Map · Wider motion noise · digest c0ffee00c0ff… · step 42 · 4.20 s',
+      detail: 'picture figure-ab12cd34ab12.png, SHA-256 ab12cd34ab12…',
+      hash: { label: 'SHA-256', value: FIGURE_SHA },
+      isFound: true,
+      target: null,
+      picture: { figureId: FIGURE, fileName: 'figure-ab12cd34ab12.png' },
+    });
+    const unknown = nameEvidence({ type: 'figure', figureId: BOOKMARK, sha256: FIGURE_SHA }, names);
+    expect(unknown.isFound).toBe(false);
+    expect(unknown.detail).toBe('SHA-256 ab12cd34ab12…, not found in this case');
   });
 });

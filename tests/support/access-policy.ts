@@ -102,6 +102,11 @@ export const ACCESS_POLICY: Record<string, RoutePolicy> = {
   'get /cases/:id/archive': caseRead(['legal']),
   'get /cases/:id/archives': caseRead(['legal', 'reviewer', 'admin']),
 
+  // Pictures saved to the case as figures: made by investigators, read by every member.
+  'post /cases/:id/figures': caseWrite(['investigator']),
+  'get /cases/:id/figures': caseRead(),
+  'get /figures/:id/file': caseRead(),
+
   // The investigation workspace: bookmarks (notes) and saved queries.
   'get /cases/:id/bookmarks': caseRead(),
   'post /cases/:id/bookmarks': caseWrite(['investigator']),

@@ -80,6 +80,7 @@ export function buildArchiveEntries(evidence: CaseEvidence): ArchiveEntry[] {
       json(layout.SAVED_QUERIES_PATH, evidence.workspace.savedQueries),
     );
   }
+  entries.push(...figureEntries(evidence));
   entries.push(json(layout.AUDIT_CHAIN_PATH, evidence.auditChain));
   entries.push(
     text(layout.AUDIT_CHECKPOINTS_PATH, evidence.checkpointLines.map((line) => `${line}\n`).join('')),
@@ -102,5 +103,25 @@ function recordingOriginalEntries({ recordingOriginals }: CaseEvidence): Archive
       expectedSize: original.sizeBytes,
     })),
     json(layout.RECORDING_ORIGINALS_PATH, listed),
+  ];
+}
+
+/** Saved pictures byte for byte, and the list saying what each shows and where it sits. */
+function figureEntries({ figures }: CaseEvidence): ArchiveEntry[] {
+  if (figures.length === 0) return [];
+  return [
+    ...figures.map(({ figure, storedPath }) => ({
+      path: layout.figureFilePath(figure.sha256, figure.fileName),
+      file: storedPath,
+      expectedSha256: figure.sha256,
+      expectedSize: figure.sizeBytes,
+    })),
+    json(
+      layout.FIGURES_PATH,
+      figures.map(({ figure }) => ({
+        ...figure,
+        path: layout.figureFilePath(figure.sha256, figure.fileName),
+      })),
+    ),
   ];
 }

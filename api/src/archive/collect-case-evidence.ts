@@ -3,6 +3,7 @@ import path from 'node:path';
 import { type AuditChainEntry, auditChainOf } from '../../../shared/audit-chain';
 import type { TBundleRecord } from '../../../shared/contracts/bundles';
 import type { TCase } from '../../../shared/contracts/cases';
+import type { TFigure } from '../../../shared/contracts/figures';
 import type { TFindingsVersion } from '../../../shared/contracts/findings';
 import type { TFix } from '../../../shared/contracts/fixes';
 import type { TJwkSet } from '../../../shared/contracts/keys';
@@ -46,6 +47,8 @@ export interface CaseEvidence {
   checkpointLines: string[];
   jwks: TJwkSet;
   workspace: { bookmarks: unknown[]; savedQueries: unknown[] } | null;
+  /** Pictures saved to the case, each with its stored file (cited by findings or not: all are evidence). */
+  figures: { figure: TFigure; storedPath: string }[];
 }
 
 export interface CaseEvidenceSources {
@@ -62,6 +65,8 @@ export interface CaseEvidenceSources {
   checkpointLines(chain: string): Promise<string[]>;
   jwks(): Promise<TJwkSet>;
   workspace?: WorkspaceEvidenceSource;
+  /** The case's saved pictures, when the figures service exists. */
+  listFigures?(caseId: string): Promise<TFigure[]>;
 }
 
 const byTimeThenId = (a: { createdAt: string; id: string }, b: { createdAt: string; id: string }) =>
@@ -112,5 +117,9 @@ export async function collectCaseEvidence(
     checkpointLines: await sources.checkpointLines(auditChainOf(caseId)),
     jwks: await sources.jwks(),
     workspace,
+    figures: ((await sources.listFigures?.(caseId)) ?? []).map((figure) => ({
+      figure,
+      storedPath: sources.originalPathFor(figure.sha256),
+    })),
   };
 }

@@ -9,6 +9,7 @@ import { bundleRoutes } from '../routes/bundles';
 import { caseMemberRoutes } from '../routes/case-members';
 import { caseRoutes } from '../routes/cases';
 import { evidenceOrphanRoutes } from '../routes/evidence-orphans';
+import { figureRoutes } from '../routes/figures';
 import { findingsRoutes } from '../routes/findings';
 import { fixRoutes } from '../routes/fixes';
 import { healthRoutes } from '../routes/health';
@@ -51,5 +52,6 @@ export function createRouteSpecs(services: Services, config: AppConfig): RouteSp
     ...archiveRoutes(services.archives, uploads),
     ...bookmarkRoutes(services.bookmarks),
     ...savedQueryRoutes(services.savedQueries),
+    ...figureRoutes(services.figures, uploads),
   ];
 }

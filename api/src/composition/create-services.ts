@@ -14,6 +14,7 @@ import { createBundlesService } from '../services/bundles/bundles-service';
 import { createCasesService } from '../services/cases/cases-service';
 import { createEvidenceOrphans } from '../services/evidence/evidence-orphans';
 import { createEvidenceStore } from '../services/evidence/evidence-store';
+import { createFiguresService } from '../services/figures/figures-service';
 import { createFindingsService } from '../services/findings/findings-service';
 import { createReviewService } from '../services/findings/review-service';
 import { createFixesService } from '../services/fixes/fixes-service';
@@ -99,6 +100,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
   const fixes = createFixesService({ db, audit, notify });
   const bookmarks = createBookmarksService({ db, audit });
   const savedQueries = createSavedQueriesService({ db, audit });
+  const figures = createFiguresService({ db, audit, evidence });
 
   const checkpoints = createCheckpointService({ db, keys, notify, dataDir: config.dataDir, logger });
   const archives = createArchiveService({
@@ -116,6 +118,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
       checkpointLines: checkpoints.linesOfChain,
       jwks: keys.jwks,
       workspace: { listBookmarks: bookmarks.readBookmarks, listSavedQueries: savedQueries.readQueries },
+      listFigures: figures.readFigures,
     },
     ...{ keys, audit, notify, checkpoints, maxUnpackedBytes, siteTimeZone: config.siteTimeZone },
   });
@@ -145,6 +148,7 @@ export function createServices({ db, config, logger, replayPool }: ServiceDepend
     fixes,
     bookmarks,
     savedQueries,
+    figures,
     archives,
     checkpoints,
   };

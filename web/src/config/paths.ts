@@ -114,6 +114,8 @@ export const apiPaths = {
   caseMember: (caseId: string, userId: string) =>
     `/api/cases/${encodeURIComponent(caseId)}/members/${encodeURIComponent(userId)}`,
   caseMemberCandidates: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/member-candidates`,
+  caseFigures: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/figures`,
+  figureFile: (figureId: string) => `/api/figures/${encodeURIComponent(figureId)}/file`,
   caseEvidenceNames: (caseId: string) => `/api/cases/${encodeURIComponent(caseId)}/evidence-names`,
   bookmark: (bookmarkId: string) => `/api/bookmarks/${encodeURIComponent(bookmarkId)}`,
   savedQuery: (queryId: string) => `/api/queries/${encodeURIComponent(queryId)}`,

@@ -18,5 +18,6 @@ export function evidenceNamesOf(evidence: CaseEvidence): EvidenceNames {
     bookmarks,
     queries,
     bundles: evidence.bundles.map(({ record }) => record),
+    figures: evidence.figures.map(({ figure }) => figure),
   });
 }

@@ -1,3 +1,4 @@
+import { figureFilePath } from '../../../../shared/archive/archive-layout';
 import { verifyAuditChain } from '../../../../shared/audit-chain';
 import type { Bundle } from '../../../../shared/bundle/types';
 import {
@@ -36,11 +37,17 @@ export interface ReportInput {
   signingKeyThumbprint: string;
   /** IANA zone the report shows times in, named beside each (`SITE_TIME_ZONE`). */
   siteTimeZone: string;
+  /** Each saved figure's picture as a data: URL by figure id, so the report shows it without the network. */
+  figurePictures: ReadonlyMap<string, string>;
 }
 
 const row = (label: string, value: string) => `<tr><th>${escapeHtml(label)}</th><td>${value}</td></tr>`;
 
-function findingsSection(evidence: CaseEvidence, text: ReportText): string {
+function findingsSection(
+  evidence: CaseEvidence,
+  text: ReportText,
+  pictures: ReadonlyMap<string, string>,
+): string {
   const latestSigned = [...evidence.findings].reverse().find((v) => v.signature);
   const shown = latestSigned ?? evidence.findings.at(-1);
   if (!shown) return '<p>No findings have been submitted.</p>';
@@ -66,13 +73,17 @@ function findingsSection(evidence: CaseEvidence, text: ReportText): string {
     .join('');
   return `<p>Version ${shown.version} by ${escapeHtml(shown.author.name)}, submitted ${text.time(shown.submittedAt)}. ${status}</p>
 <table><tbody>${row('Incident class', escapeHtml(INCIDENT_CLASS_LABELS[c.incidentClass]))}${row('Summary', escapeHtml(c.summary))}${row('Root cause', `${escapeHtml(CAUSE_CATEGORY_LABELS[c.rootCause.category])}: ${escapeHtml(c.rootCause.text)}`)}${row('Contributing factors', causes ? `<ul>${causes}</ul>` : 'None given')}${row('Corrective actions', actions ? `<ul>${actions}</ul>` : 'None given')}</tbody></table>
-<h3>Evidence cited (${countOf(c.evidence.length, 'item')})</h3>${citedEvidenceList(c.evidence, evidenceNamesOf(evidence))}
+<h3>Evidence cited (${countOf(c.evidence.length, 'item')})</h3>${citedEvidenceList(c.evidence, evidenceNamesOf(evidence), pictures)}
 <h3>All versions</h3><table><thead><tr><th>Version</th><th>State</th><th>Author</th><th>Submitted</th><th>SHA-256</th></tr></thead><tbody>${versions}</tbody></table>
 <h3>Reviewers' comments</h3>${reviewsList(evidence, text)}`;
 }
 
 /** Every cited item by name, with the hash it stores and the investigator's note. */
-function citedEvidenceList(items: readonly TEvidenceItem[], names: EvidenceNames): string {
+function citedEvidenceList(
+  items: readonly TEvidenceItem[],
+  names: EvidenceNames,
+  pictures: ReadonlyMap<string, string>,
+): string {
   if (items.length === 0) return '<p>None.</p>';
   const entries = items.map((item) => {
     const named = nameEvidence(item, names);
@@ -80,9 +91,33 @@ function citedEvidenceList(items: readonly TEvidenceItem[], names: EvidenceNames
       ? `<br><span class="unit">${escapeHtml(named.hash.label)}</span> <span class="hash">${escapeHtml(named.hash.value)}</span>`
       : '';
     const note = item.note ? `<br>${escapeHtml(item.note)}` : '';
-    return `<li><strong>${escapeHtml(EVIDENCE_TYPE_LABELS[item.type])}: ${escapeHtml(named.name)}</strong> — ${escapeHtml(named.detail)}${hash}${note}</li>`;
+    const picture = item.type === 'figure' ? figurePicture(item, pictures) : '';
+    return `<li><strong>${escapeHtml(EVIDENCE_TYPE_LABELS[item.type])}: ${escapeHtml(named.name)}</strong> — ${escapeHtml(named.detail)}${hash}${note}${picture}</li>`;
   });
   return `<ol class="cited">${entries.join('')}</ol>`;
+}
+
+/** A cited figure shown inline, linked to its file in the archive. */
+function figurePicture(
+  item: Extract<TEvidenceItem, { type: 'figure' }>,
+  pictures: ReadonlyMap<string, string>,
+): string {
+  const source = pictures.get(item.figureId);
+  return source
+    ? `<br><img class="figure" src="${escapeHtml(source)}" alt="Cited figure ${escapeHtml(item.sha256.slice(0, 12))}">`
+    : '';
+}
+
+/** Every picture saved to the case, with the path of its file inside this archive. */
+function figuresTable(evidence: CaseEvidence): string {
+  if (evidence.figures.length === 0) return '';
+  const rows = evidence.figures
+    .map(({ figure }) => {
+      const file = figureFilePath(figure.sha256, figure.fileName);
+      return `<tr><td>${escapeHtml(figure.caption)}</td><td><a href="${escapeHtml(file)}">${escapeHtml(file)}</a></td><td>${figure.sizeBytes.toLocaleString('en-US')} <span class="unit">bytes</span></td><td class="hash">${escapeHtml(figure.sha256)}</td></tr>`;
+    })
+    .join('');
+  return `<h3>Figures saved to the case</h3><table><thead><tr><th>Caption</th><th>File in this archive</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${rows}</tbody></table>`;
 }
 
 /** Each review of each version in order, with the comment a reviewer returned it with. */
@@ -170,9 +205,9 @@ export function renderReport(input: ReportInput): string {
 <header class="brand"><div class="brand-line">${REPORT_BRAND_MARK}<span class="wordmark">Drift<span>case</span></span><span class="kind">Evidence report</span></div><h1><span class="ref">${escapeHtml(c.reference)}</span> ${escapeHtml(c.title)}</h1></header>
 <p class="caution" role="note">⚠ ${escapeHtml(input.safetyCaution)}</p>
 <section><h2>Case</h2>${text.casePath(c.path)}<table><tbody>${row('Reference', escapeHtml(c.reference))}${row('Site', escapeHtml(c.site))}${row('Robot', escapeHtml(c.robotId))}${row('Incident time', text.time(c.incidentTime))}${row('Severity', `<span class="severity">${renderSeverityMarkSvg(c.severity, 18)} ${escapeHtml(SEVERITY_LABELS[c.severity])}</span>`)}${row('Summary', escapeHtml(c.summary || '—'))}${row('Product version', escapeHtml(input.productVersion))}</tbody></table></section>
-<section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}${recordings}</section>
+<section><h2>Recorded evidence</h2>${bundleRows ? `<table><thead><tr><th>Bundle</th><th>Validation</th><th>Size</th><th>SHA-256</th></tr></thead><tbody>${bundleRows}</tbody></table>` : '<p>No bundles.</p>'}${recordings}${figuresTable(evidence)}</section>
 <section><h2>Replays and flags</h2>${replays ? `${REPLAY_RERUN_NOTE}${replays}` : '<p>No finished replays.</p>'}</section>
-<section><h2>Findings</h2>${findingsSection(evidence, text)}</section>
+<section><h2>Findings</h2>${findingsSection(evidence, text, input.figurePictures)}</section>
 <section><h2>Fixes and verification</h2>${fixesSection(evidence, text)}</section>
 <section><h2>Custody</h2>${custodySection(evidence, text)}</section>
 <section><h2>Signing key</h2><p>This archive is signed with the key whose RFC 7638 thumbprint is <code class="thumbprint">${escapeHtml(input.signingKeyThumbprint)}</code>. Compare it with the thumbprint your site publishes outside Driftcase: a key found only inside the archive proves nothing, since whoever edits an archive can replace it.</p></section>

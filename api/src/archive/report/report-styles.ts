@@ -41,6 +41,7 @@ h3{font-size:1rem;margin:1rem 0 .3rem}
 .caution{border:2px solid #e69f00;background:#fff8e6;padding:.6rem .8rem;margin:1rem 0;font-weight:700}
 table{border-collapse:collapse;width:100%;margin:.4rem 0;font-size:.9rem}th,td{text-align:left;padding:.25rem .4rem;border-bottom:1px solid var(--rule);vertical-align:top}
 th{font-weight:700;color:var(--muted)}
+img.figure{display:block;max-width:100%;max-height:320px;margin-top:.4rem;border:1px solid #d9dcd4}
 .hash{font-family:ui-monospace,Menlo,Consolas,monospace;font-size:.78rem;word-break:break-all}
 .unit{color:var(--muted);font-weight:400}
 .ok{color:var(--ok);font-weight:700}.bad{color:var(--bad);font-weight:700}

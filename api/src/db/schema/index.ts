@@ -3,6 +3,7 @@ export * from './bookmarks';
 export * from './bundles';
 export * from './case-members';
 export * from './cases';
+export * from './figures';
 export * from './findings';
 export * from './fixes';
 export * from './holds';

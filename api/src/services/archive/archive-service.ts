@@ -29,6 +29,16 @@ import type { SigningKeyStore } from '../signing/signing-key';
 /** Bundles larger than this are archived byte for byte but not parsed for the report's pictures. */
 const REPORT_PARSE_LIMIT_BYTES = 256 * 1024 * 1024;
 
+/** Each saved figure as a data: URL, for report.html to show inline (figures are at most 10 MB). */
+async function readFigurePictures(evidence: Awaited<ReturnType<typeof collectCaseEvidence>>) {
+  const pictures = new Map<string, string>();
+  for (const { figure, storedPath } of evidence.figures) {
+    const bytes = await fs.promises.readFile(storedPath);
+    pictures.set(figure.id, `data:${figure.mediaType};base64,${bytes.toString('base64')}`);
+  }
+  return pictures;
+}
+
 export interface ArchiveExporter {
   id: string;
   email: string;
@@ -89,6 +99,7 @@ export function createArchiveService(deps: {
           productVersion,
           safetyCaution: SAFETY_CAUTION,
           siteTimeZone: deps.siteTimeZone,
+          figurePictures: await readFigurePictures(evidence),
         });
         entries.unshift({ path: 'report.html', data: Buffer.from(report, 'utf8') });
         const exportedAt = new Date().toISOString();

@@ -3,7 +3,7 @@ import path from 'node:path';
 import { inArray, sql } from 'drizzle-orm';
 import type { TEvidenceOrphans, TOrphanFile } from '../../../../shared/contracts/evidence-orphans';
 import type { Database } from '../../db/client';
-import { bundles } from '../../db/schema';
+import { bundles, figures } from '../../db/schema';
 import type { EvidenceStore } from './evidence-store';
 
 const STORED_NAME = /^([0-9a-f]{64})\.bin$/;
@@ -37,7 +37,7 @@ async function recordingOriginalHashes(db: Database): Promise<string[]> {
 }
 
 /**
- * Compares `incoming/` and `evidence/` with the bundles table. It only reports: deleting a file
+ * Compares `incoming/` and `evidence/` with the bundles and figures tables. It only reports: deleting a file
  * someone may still need (an original whose row was lost) is a decision for a person, so the
  * admin sees the list and the start-up log says how many there are.
  */
@@ -72,7 +72,12 @@ export function createEvidenceOrphans({
         .select({ sha256: bundles.sha256 })
         .from(bundles)
         .where(inArray(bundles.sha256, chunk));
-      for (const row of rows) recorded.add(row.sha256);
+      // Figures saved to a case are stored beside bundle originals and are recorded too.
+      const figureRows = await db
+        .select({ sha256: figures.sha256 })
+        .from(figures)
+        .where(inArray(figures.sha256, chunk));
+      for (const row of [...rows, ...figureRows]) recorded.add(row.sha256);
     }
     if (stored.some((s) => !recorded.has(s.sha256))) {
       for (const sha256 of await recordingOriginalHashes(db)) recorded.add(sha256);

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import type { TEvidenceItem } from '../../../../shared/contracts/findings';
 import { AppError, type FieldIssue } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
-import { bookmarks, bundles, replays, savedQueries } from '../../db/schema';
+import { bookmarks, bundles, figures, replays, savedQueries } from '../../db/schema';
 
 export type ReplayCauses = (replayId: string) => Promise<readonly { kind: string }[] | null>;
 
@@ -33,7 +33,7 @@ export async function loadCitedCauseKinds(
 /**
  * Checks that cited replays (and the cited probable cause of one) and bundle files exist in this
  * case and that the cited hash is the stored one; cited bookmarks and saved queries must belong
- * to the case, and a saved query's result hash must be the stored one.
+ * to the case, and a saved query's result hash must be the stored one; so must a cited figure's.
  */
 export async function validateEvidence(
   db: Database,
@@ -105,6 +105,15 @@ export async function validateEvidence(
       else if (file.sha256 !== item.sha256) {
         issues.push({ path: `${at}.sha256`, message: `${item.file} has SHA-256 ${file.sha256}` });
       }
+    } else if (item.type === 'figure') {
+      const [row] = await db
+        .select({ caseId: figures.caseId, sha256: figures.sha256 })
+        .from(figures)
+        .where(eq(figures.id, item.figureId));
+      if (!row || row.caseId !== caseId)
+        issues.push({ path: `${at}.figureId`, message: `No figure ${item.figureId} in this case` });
+      else if (row.sha256 !== item.sha256)
+        issues.push({ path: `${at}.sha256`, message: `Figure ${item.figureId} has SHA-256 ${row.sha256}` });
     }
   }
   if (issues.length) {

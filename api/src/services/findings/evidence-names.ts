@@ -1,11 +1,11 @@
 import { asc, eq } from 'drizzle-orm';
 import type { TEvidenceNamesResponse } from '../../../../shared/contracts/evidence-names';
 import type { Database } from '../../db/client';
-import { bookmarks, bundles, replays, savedQueries } from '../../db/schema';
+import { bookmarks, bundles, figures, replays, savedQueries } from '../../db/schema';
 
 /** Every citable item of a case with what people call it (see shared/evidence-names.ts). */
 export async function readEvidenceNames(db: Database, caseId: string): Promise<TEvidenceNamesResponse> {
-  const [replayRows, bookmarkRows, queryRows, bundleRows] = await Promise.all([
+  const [replayRows, bookmarkRows, queryRows, bundleRows, figureRows] = await Promise.all([
     db
       .select({ id: replays.id, label: replays.label, bundleId: replays.bundleId })
       .from(replays)
@@ -34,6 +34,22 @@ export async function readEvidenceNames(db: Database, caseId: string): Promise<T
       .from(bundles)
       .where(eq(bundles.caseId, caseId))
       .orderBy(asc(bundles.uploadedAt), asc(bundles.id)),
+    db
+      .select({
+        id: figures.id,
+        caption: figures.caption,
+        fileName: figures.fileName,
+        sha256: figures.sha256,
+      })
+      .from(figures)
+      .where(eq(figures.caseId, caseId))
+      .orderBy(asc(figures.uploadedAt), asc(figures.id)),
   ]);
-  return { replays: replayRows, bookmarks: bookmarkRows, queries: queryRows, bundles: bundleRows };
+  return {
+    replays: replayRows,
+    bookmarks: bookmarkRows,
+    queries: queryRows,
+    bundles: bundleRows,
+    figures: figureRows,
+  };
 }

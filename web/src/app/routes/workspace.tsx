@@ -14,6 +14,7 @@ import { ReplayLauncher } from '@web/features/replays/components/replay-launcher
 import { ReplayList } from '@web/features/replays/components/replay-list';
 import { SqlConsolePanel } from '@web/features/sql-console/components/sql-console-panel';
 import { useBundleTracks } from '@web/features/workspace/api/get-bundle-tracks';
+import { useSaveFigure } from '@web/features/workspace/api/save-figure';
 import { ReplayWorkspace } from '@web/features/workspace/components/replay-workspace';
 import { ArrowLeft, Columns2, History } from 'lucide-react';
 import { useMemo, useState } from 'react';
@@ -50,6 +51,7 @@ export function WorkspaceRoute() {
     [bookmarks.data, chosenId],
   );
   const me = useMe();
+  const saveFigure = useSaveFigure(bundle.data?.caseId ?? '');
   const navigate = useNavigate();
   // The bookmark being opened restores its step and map view in a fresh workspace.
   const [opened, setOpened] = useState<TBookmark | null>(null);
@@ -145,6 +147,8 @@ export function WorkspaceRoute() {
           initialTime={restoring ? undefined : deepLinkTime}
           extraMoments={bookmarkTimes}
           initialView={restoring?.view}
+          // Investigators make evidence; the export buttons themselves are for everyone.
+          onSavePicture={me.data?.user.role === 'investigator' ? saveFigure : undefined}
           toolbar={(moment) =>
             me.data?.user.role === 'investigator' && (
               <PinMomentButton

@@ -9,8 +9,10 @@ import { FormField } from '@web/components/form-field';
 import { SelectInput, TextInput } from '@web/components/inputs';
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
+import { useEvidenceNames } from '../api/get-evidence-names';
 import { type EvidenceSource, sourceLabel, useEvidenceSources } from '../api/get-evidence-sources';
 import { useReplayCauses } from '../api/get-replay-causes';
+import { FigurePicker } from './figure-picker';
 
 interface Pending {
   type: TEvidenceItem['type'];
@@ -86,6 +88,7 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
   const file = bundle?.files.find((f) => f.name === pending.file);
   const query = sources.data?.queries?.find((q) => q.id === pending.id);
   const causes = useReplayCauses(pending.type === 'cause' ? pending.id : '');
+  const figures = useEvidenceNames(caseId).data?.figures;
 
   function build(): unknown {
     switch (pending.type) {
@@ -108,6 +111,8 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
           file: pending.file,
           sha256: file?.sha256 ?? '',
         };
+      case 'figure':
+        return { type: 'figure', figureId: pending.id, sha256: figures?.get(pending.id)?.sha256 ?? '' };
     }
   }
 
@@ -225,6 +230,9 @@ export function AddEvidenceForm({ caseId, onAdd }: { caseId: string; onAdd: (ite
                 </FormField>
               )}
             </>
+          )}
+          {pending.type === 'figure' && (
+            <FigurePicker figures={figures} value={pending.id} onChange={(id) => set({ id })} />
           )}
           {pending.type === 'bundle_file' && (
             <div className="grid grid-cols-2 gap-3">

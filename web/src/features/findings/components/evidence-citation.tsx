@@ -5,7 +5,7 @@ import {
   type EvidenceTarget,
   nameEvidence,
 } from '@shared/evidence-names';
-import { paths } from '@web/config/paths';
+import { apiPaths, paths } from '@web/config/paths';
 import { Link } from 'react-router-dom';
 import { useEvidenceNames } from '../api/get-evidence-names';
 
@@ -37,6 +37,15 @@ export function EvidenceCitation({ caseId, item }: { caseId: string; item: TEvid
           <Link className="text-accent hover:underline" to={targetHref(caseId, named.target)}>
             {named.name}
           </Link>
+        ) : named.picture ? (
+          <a
+            className="text-accent hover:underline"
+            href={apiPaths.figureFile(named.picture.figureId)}
+            target="_blank"
+            rel="noreferrer"
+          >
+            {named.name}
+          </a>
         ) : (
           <span>{named.name}</span>
         )}
@@ -47,6 +56,15 @@ export function EvidenceCitation({ caseId, item }: { caseId: string; item: TEvid
         </p>
       ) : (
         <p className={`text-xs ${named.isFound ? 'text-ink-muted' : 'text-state-bad'}`}>{named.detail}</p>
+      )}
+      {named.picture && (
+        // Shown through <img>, so even an SVG figure cannot run anything here.
+        <img
+          src={apiPaths.figureFile(named.picture.figureId)}
+          alt={`Figure: ${named.name}`}
+          data-testid="figure-thumbnail"
+          className="mt-1 max-h-40 max-w-full rounded border border-canvas-line bg-white"
+        />
       )}
       {named.hash && (
         <p className="text-xs text-ink-muted">

@@ -267,6 +267,9 @@ export const MapView = memo(function MapView({
         {bar && (
           <div
             data-testid="scale-bar"
+            // Read by the picture export, which draws the same bar into the file.
+            data-px={bar.px}
+            data-metres={bar.metres}
             className="absolute bottom-2 left-2 rounded bg-white/85 px-1.5 py-0.5 text-xs"
           >
             <div className="h-1.5 border-x-2 border-b-2 border-ink" style={{ width: bar.px }} />

@@ -1,17 +1,19 @@
 import type { TReplay } from '@shared/contracts/replays';
 import { ErrorState, SkeletonBar } from '@web/components/states';
-import { type ReactNode, useCallback, useDeferredValue, useMemo, useState } from 'react';
+import { type ReactNode, useCallback, useDeferredValue, useMemo, useRef, useState } from 'react';
 import { useReplayCauses, useReplaySafety } from '../api/get-replay-detail';
 import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import { useSafetyOverlay } from '../hooks/use-safety-overlay';
 import { useSafetyTrackSpecs } from '../hooks/use-safety-track-specs';
+import type { Picture } from '../lib/make-picture';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
 import { CausesPanel } from './causes-panel';
 import { FlagsPanel } from './flags-panel';
 import { MapView } from './map-view';
 import { MomentLink } from './moment-link';
+import { PictureExportBar } from './picture-export-bar';
 import { SafetyPanel } from './safety-panel';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
@@ -41,6 +43,8 @@ export interface ReplayWorkspaceProps {
   initialView?: MapViewState;
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
+  /** Stores an exported picture in the case (shown as "Save … to case" when given). */
+  onSavePicture?: (picture: Picture) => Promise<string>;
 }
 
 /** A finished replay: scrubber, map view and timeline sharing one cursor, and the side panel. */
@@ -53,7 +57,9 @@ export function ReplayWorkspace({
   initialView,
   toolbar,
   extraMoments,
+  onSavePicture,
 }: ReplayWorkspaceProps) {
+  const viewsRef = useRef<HTMLDivElement>(null);
   const data = useReplayViewData(bundleId, replay.id);
   const times = (data.series?.columns.t ?? []) as number[];
   const [step, setStep] = useState<number | null>(null);
@@ -97,13 +103,19 @@ export function ReplayWorkspace({
   const shownMoment = { ...moment, step: shownStep, time: shownTime };
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
-      <div className="min-w-0 space-y-3">
+      <div ref={viewsRef} className="min-w-0 space-y-3">
         {/* Sticky, so the current time and step stay on screen while reading the timeline. */}
         <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
           <Scrubber times={times} step={current} onStep={setStep} moments={moments} />
           <div className="mt-2 flex flex-wrap items-center gap-2">
             {toolbar?.(moment)}
             <MomentLink bundleId={bundleId} replayId={replay.id} time={time} />
+          </div>
+          <div className="mt-2">
+            <PictureExportBar
+              source={() => viewsRef.current && { container: viewsRef.current, replay, times }}
+              onSave={onSavePicture}
+            />
           </div>
         </div>
         <MapView

@@ -239,6 +239,9 @@ export const Timeline = memo(function Timeline({
         onDoubleClick={() => setDomain(full)}
         data-testid="timeline"
         data-drawn-steps={times.length}
+        // Read by the picture export, which draws the cursor (an HTML overlay here) into the file.
+        data-cursor-step={step}
+        data-cursor-x={cursorX}
       >
         <g ref={axisRef} transform={`translate(0, ${BAND_HEIGHT + 2})`} className="text-xs text-ink-muted" />
         <TimelineMarkers
@@ -252,7 +255,8 @@ export const Timeline = memo(function Timeline({
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
         {trackElements}
-        <g ref={brushRef} />
+        {/* The zoom brush is a control: exported pictures leave it out. */}
+        <g ref={brushRef} data-picture-skip="" />
       </svg>
       {cursorX >= LEFT && cursorX <= LEFT + plotWidth && (
         // A separate element, so moving the cursor does not repaint the whole SVG.
