@@ -240,4 +240,56 @@ describe('the workspace tells the truth about the step it draws', () => {
     );
     await saveScreenshot(page, 'workspace-1280x800');
   }, 200_000);
+
+  it('reads every track at the pointer, with a legend for every line and labelled ticks', async () => {
+    if (!made) throw new Error('the first test did not make the long replay');
+    const { bundleId, replayId } = made;
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
+    const timeline = page.getByTestId('timeline').first();
+    await timeline.locator('[data-track="ess"] path').first().waitFor({ timeout: 60_000 });
+    const series = await (await page.request.get(`/api/replays/${replayId}/series`)).json();
+    const times = series.columns.t as number[];
+    const ess = series.columns.ess as number[];
+
+    // Every line drawn has its name in the track's legend.
+    const tracks = timeline.locator('g[data-track]');
+    for (let i = 0; i < (await tracks.count()); i++) {
+      const track = tracks.nth(i);
+      const drawn = await track.locator('path').count();
+      expect(await track.getByTestId('track-legend').locator('text').count()).toBe(drawn);
+      // Three value labels on the axis: bottom, middle, top (when the track has data).
+      if ((await track.locator('text').filter({ hasText: 'no data for this track' }).count()) === 0)
+        expect(await track.locator('text.tabular-nums').count()).toBe(3);
+    }
+
+    // Hover the ESS track two thirds of the way along: the readout's time and ESS are the
+    // series' own at the step nearest the pointer.
+    const essRect = timeline.locator('[data-track="ess"] rect').first();
+    await essRect.scrollIntoViewIfNeeded();
+    const box = await essRect.boundingBox();
+    if (!box) throw new Error('no ESS track drawn');
+    await page.mouse.move(box.x + box.width * (2 / 3), box.y + box.height / 2);
+    const readout = page.getByTestId('timeline-readout');
+    await readout.waitFor({ timeout: 5000 }).catch(async (error) => {
+      await saveScreenshot(page, 'workspace-timeline-readout-missing');
+      throw error;
+    });
+    const shownTime = Number.parseFloat((await readout.getByTestId('readout-time').textContent()) ?? '');
+    let nearest = 0;
+    for (let k = 0; k < times.length; k++)
+      if (Math.abs(times[k] - shownTime) < Math.abs(times[nearest] - shownTime)) nearest = k;
+    const essText = (await readout.locator('[data-track="ess"]').textContent()) ?? '';
+    const shownEss = Number.parseFloat(essText.replace(/^[^:]*:\s*/, ''));
+    // The time is shown to 0.01 s and steps are 0.1 s apart: the nearest step is the one read.
+    expect(Math.abs(shownEss - ess[nearest])).toBeLessThanOrEqual(
+      Math.max(0.5, Math.abs(ess[nearest]) * 0.005),
+    );
+    for (const track of ['loglik', 'error', 'speed'])
+      expect(await readout.locator(`[data-track="${track}"]`).count()).toBe(1);
+    await saveScreenshot(page, 'workspace-timeline-readout');
+    await page.mouse.move(5, 5);
+    await readout.waitFor({ state: 'detached' });
+  }, 120_000);
 });

@@ -139,8 +139,10 @@ export const Timeline = memo(function Timeline({
               <text x={8} y={14} className="fill-ink text-xs font-bold">
                 {spec.label}
               </text>
+              {/* The gutter holds the unit's first words; the readout at the pointer gives all of it. */}
               <text x={8} y={28} className="fill-ink-muted text-xs">
-                {spec.unit}
+                {spec.unit.split(',')[0]}
+                <title>{spec.unit}</title>
               </text>
               {extents.length > 0 && (
                 <>
@@ -296,7 +298,7 @@ export const Timeline = memo(function Timeline({
             key={spec.id}
             className="absolute"
             style={{
-              left: 8 + spec.unit.length * 7 + 6,
+              left: 8 + spec.unit.split(',')[0].length * 7 + 6,
               top: tracksTop + index * (TRACK_HEIGHT + TRACK_GAP) + 18,
             }}
           >
@@ -329,6 +331,8 @@ function TrackLegend({ lines, right }: { lines: TrackSpec['lines']; right: numbe
     <g data-testid="track-legend" aria-hidden>
       {placed.map(({ line, x: at }) => (
         <g key={line.name} transform={`translate(${at}, 9)`}>
+          {/* A backing so the names stay readable over a busy curve. */}
+          <rect x={-3} y={-9} width={line.name.length * 6 + 22} height={12} fill="#fafbf8" opacity={0.85} />
           <line
             x1={0}
             x2={14}
@@ -389,7 +393,7 @@ function TrackReadoutBox({
                   : formatReadoutValue(line.value),
               )
               .join(' · ')}{' '}
-            <span className="text-ink-muted">{track.unit.split(',')[0]}</span>
+            <span className="text-ink-muted">{track.unit}</span>
           </p>
         ))}
       </div>
