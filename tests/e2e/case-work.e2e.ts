@@ -155,10 +155,17 @@ describe('case work', () => {
     const fixCard = engineer.getByRole('article', { name: /Fix: Map rebuilt/ });
     await fixCard.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
 
-    // 6. The investigator marks it verified.
+    // 6. The investigator marks it verified, with a comment (and the confirmation, were nothing better).
     await investigator.goto(`/cases/${caseId}/fixes`);
-    await investigator.getByRole('button', { name: 'Mark verified' }).click();
-    await investigator.getByText(/Verified by/).waitFor();
+    const verifiedCard = investigator.getByRole('article', { name: /Fix: Map rebuilt/ });
+    await verifiedCard.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
+    await verifiedCard.getByRole('button', { name: 'Mark verified' }).click();
+    const verifyDialog = investigator.getByRole('dialog', { name: 'Mark the fix verified' });
+    await verifyDialog.getByLabel('What you checked').fill('Verification replay checked beside the incident.');
+    const confirmation = verifyDialog.getByLabel(/I verify this fix although/);
+    if ((await confirmation.count()) > 0) await confirmation.check();
+    await verifyDialog.getByRole('button', { name: 'Mark verified' }).click();
+    await verifiedCard.getByText(/Verified by/).first().waitFor();
 
     // 7. The reviewer sees every step in the audit trail, and the chain verifies.
     await reviewer.goto(`/cases/${caseId}`);

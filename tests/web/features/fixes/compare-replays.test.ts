@@ -1,35 +1,7 @@
-import type { TReplay } from '@shared/contracts/replays';
-import {
-  flagCountRows,
-  formatDivergence,
-  formatMetres,
-  pickOriginalReplay,
-} from '@web/features/fixes/lib/compare-replays';
+import { flagCountRows, formatDivergence, formatMetres } from '@web/features/fixes/lib/compare-replays';
 import { parseOverrides } from '@web/features/fixes/lib/parse-overrides';
 import { rollup } from 'd3';
 import { describe, expect, it } from 'vitest';
-
-const replay = (patch: Partial<TReplay>): TReplay => ({
-  id: 'r',
-  bundleId: 'b1',
-  caseId: 'c',
-  label: '',
-  status: 'done',
-  overrides: {},
-  settings: null,
-  digest: 'd',
-  engine: null,
-  steps: 1,
-  elapsedMs: 1,
-  metrics: null,
-  flags: [],
-  error: null,
-  progress: null,
-  createdBy: { id: 'u', name: 'U' },
-  createdAt: '2026-03-14T09:00:00Z',
-  finishedAt: null,
-  ...patch,
-});
 
 describe('side-by-side replay comparison', () => {
   it('counts flags per kind as d3.rollup does, with zero where one replay has none', () => {
@@ -54,21 +26,6 @@ describe('side-by-side replay comparison', () => {
       expect(row.verification).toBe(after.get(row.kind) ?? 0);
     }
     expect(rows.map((r) => r.kind)).toEqual(['belief_collapse', 'input_gap', 'map_mismatch']);
-  });
-
-  it('compares against the earliest finished replay of the same bundle that ran without overrides', () => {
-    const verification = replay({
-      id: 'v',
-      overrides: { particles: 800 },
-      createdAt: '2026-03-14T12:00:00Z',
-    });
-    const tuned = replay({ id: 't', overrides: { particles: 300 }, createdAt: '2026-03-14T08:00:00Z' });
-    const plain = replay({ id: 'p', createdAt: '2026-03-14T10:00:00Z' });
-    const otherBundle = replay({ id: 'o', bundleId: 'b2', createdAt: '2026-03-14T07:00:00Z' });
-    const failed = replay({ id: 'f', status: 'failed', createdAt: '2026-03-14T06:00:00Z' });
-    expect(pickOriginalReplay([verification, tuned, plain, otherBundle, failed], verification)?.id).toBe('p');
-    expect(pickOriginalReplay([verification, tuned], verification)?.id).toBe('t');
-    expect(pickOriginalReplay([verification], verification)).toBeUndefined();
   });
 
   it('writes units after numbers and a dash or "never" for missing values (common practice)', () => {

@@ -1,5 +1,3 @@
-import type { TReplay } from '@shared/contracts/replays';
-
 /** Flags per kind, kinds sorted by name so two replays line up row by row. */
 export function countFlagsByKind(flags: readonly { kind: string }[]): Map<string, number> {
   const counts = new Map<string, number>();
@@ -16,17 +14,6 @@ export function flagCountRows(
   const after = countFlagsByKind(verification);
   const kinds = [...new Set([...before.keys(), ...after.keys()])].sort();
   return kinds.map((kind) => ({ kind, original: before.get(kind) ?? 0, verification: after.get(kind) ?? 0 }));
-}
-
-/**
- * The replay a fix is compared against: the earliest finished replay of the same bundle run with
- * the manifest's own settings (no overrides), else the earliest finished one other than the fix's.
- */
-export function pickOriginalReplay(replays: readonly TReplay[], verification: TReplay): TReplay | undefined {
-  const candidates = replays
-    .filter((r) => r.bundleId === verification.bundleId && r.id !== verification.id && r.status === 'done')
-    .sort((a, b) => a.createdAt.localeCompare(b.createdAt));
-  return candidates.find((r) => Object.keys(r.overrides).length === 0) ?? candidates[0];
 }
 
 /** `0.042 m`, or an em dash for a missing value; RMSE is in metres in the replay metrics. */
