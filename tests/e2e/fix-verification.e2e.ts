@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { saveScreenshot, useBrowser } from './support/browser';
-import { findCase, linkFixOverApi, MOVED_RACK_CASE, replayOverApi } from './support/fix-cases';
+import {
+  findCase,
+  linkFixOverApi,
+  MOVED_RACK_CASE,
+  replayOverApi,
+  signedCaseOverApi,
+} from './support/fix-cases';
 import { signInAs } from './support/sign-in';
 
 // Issue #12, point 6: "Mark verified" asks for a comment, warns when nothing improved, and is recorded.
@@ -50,5 +56,43 @@ describe('fix verification that verifies', () => {
     const history = reviewer.getByRole('list', { name: 'Case history' });
     await history.getByText(comment).first().waitFor();
     for (const page of [engineer, investigator, reviewer]) await page.context().close();
+  });
+
+  it('names in "Your move" only what the signed-in role can do on a signed case', async () => {
+    const [investigator, reviewer, engineer] = await Promise.all([
+      browser.open(),
+      browser.open(),
+      browser.open(),
+    ]);
+    await signInAs(investigator, 'investigator');
+    await signInAs(reviewer, 'reviewer');
+    await signInAs(engineer, 'engineer');
+    const caseId = await signedCaseOverApi(investigator, reviewer);
+    const yourMove = (page: typeof engineer) => page.locator('p').filter({ hasText: 'Your move:' });
+
+    // No fix yet: the engineer is told to link one, never to verify or close (no such button).
+    await engineer.goto(`/cases/${caseId}`);
+    await yourMove(engineer)
+      .getByText(/Link the fix/)
+      .waitFor();
+    expect(await yourMove(engineer).textContent()).not.toMatch(/close|verify/i);
+    expect(await engineer.getByRole('button', { name: /Close/ }).count()).toBe(0);
+
+    // A fix waits for verification: nothing for the engineer; investigator and reviewer verify.
+    await linkFixOverApi(engineer, caseId, { description: 'Cross aisle cleared at every shift end' });
+    await engineer.reload();
+    // The case-work links appear once the lifecycle has loaded, so an absent "Your move" is real.
+    await engineer.getByRole('link', { name: 'Fixes' }).first().waitFor();
+    expect(await yourMove(engineer).count()).toBe(0);
+    await investigator.goto(`/cases/${caseId}`);
+    await yourMove(investigator)
+      .getByText(/Verify the linked fix/)
+      .waitFor();
+    expect(await yourMove(investigator).textContent()).not.toMatch(/close/i);
+    await reviewer.goto(`/cases/${caseId}`);
+    await yourMove(reviewer)
+      .getByText(/Verify the linked fix .* then close the case/)
+      .waitFor();
+    for (const page of [investigator, reviewer, engineer]) await page.context().close();
   });
 });
