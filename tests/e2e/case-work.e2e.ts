@@ -161,11 +161,16 @@ describe('case work', () => {
     await verifiedCard.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
     await verifiedCard.getByRole('button', { name: 'Mark verified' }).click();
     const verifyDialog = investigator.getByRole('dialog', { name: 'Mark the fix verified' });
-    await verifyDialog.getByLabel('What you checked').fill('Verification replay checked beside the incident.');
+    await verifyDialog
+      .getByLabel('What you checked')
+      .fill('Verification replay checked beside the incident.');
     const confirmation = verifyDialog.getByLabel(/I verify this fix although/);
     if ((await confirmation.count()) > 0) await confirmation.check();
     await verifyDialog.getByRole('button', { name: 'Mark verified' }).click();
-    await verifiedCard.getByText(/Verified by/).first().waitFor();
+    await verifiedCard
+      .getByText(/Verified by/)
+      .first()
+      .waitFor();
 
     // 7. The reviewer sees every step in the audit trail, and the chain verifies.
     await reviewer.goto(`/cases/${caseId}`);
