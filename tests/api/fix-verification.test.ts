@@ -3,6 +3,9 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEntries, bundles, replays, users } from '../../api/src/db/schema';
 import type { TReplay, TReplayFlag } from '../../shared/contracts/replays';
+import { readZipEntries } from '../archive/rewrite-zip';
+import { archivedCase, downloadArchive } from '../support/archive-samples';
+import { makeTempDir } from '../support/bundle-fixtures';
 import { as, createCase } from '../support/case-work-fixtures';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -112,6 +115,21 @@ describe('marking a fix verified', () => {
     expect(await verifyAuditPayloads(caseId)).toEqual([
       expect.objectContaining({ comment, outcome: 'improved' }),
     ]);
+  });
+
+  it("puts the verifier's comment in the evidence archive's report", async () => {
+    const { caseId } = await archivedCase(t);
+    const [fix] = (await as(t, 'reviewer').get(`/api/cases/${caseId}/fixes`)).body.items;
+    const comment = 'Only one replay of this bundle, so nothing to compare; checked the scans by eye.';
+    const verified = await as(t, 'reviewer').post(`/api/cases/${caseId}/fixes/${fix.id}/verify`, {
+      comment,
+      confirmWithoutImprovement: true,
+    });
+    expect(verified.status).toBe(200);
+    const archive = await downloadArchive(t, caseId, await makeTempDir('driftcase-fix-archive-'));
+    const report = (await readZipEntries(archive)).get('report.html')?.toString('utf8') ?? '';
+    expect(report).toContain(`“${comment}”`);
+    expect(report).toContain('confirmed although the replay showed no improvement');
   });
 
   it('asks for an explicit confirmation when the verification replay did not improve', async () => {
