@@ -146,8 +146,11 @@ describe('case work', () => {
       .getByLabel('Description')
       .fill('Map rebuilt after the row B move; layout changes now trigger a re-map.');
     await engineer.getByLabel(/Software version/).fill('nav-stack 4.12.1');
-    await engineer.getByLabel(/Fixed settings/).fill('{"particles": 800}');
-    await engineer.getByRole('button', { name: 'Start replay' }).click();
+    const settings = engineer
+      .getByRole('region', { name: 'Start a verification replay' })
+      .getByRole('form', { name: 'Start a replay' });
+    await settings.getByRole('textbox', { name: 'Particles' }).fill('800');
+    await settings.getByRole('button', { name: 'Start replay' }).click();
     await expect
       .poll(() => engineer.getByLabel(/Verification replay/).inputValue(), { timeout: 15_000 })
       .not.toBe('');

@@ -17,7 +17,9 @@ describe('fix verification that verifies', () => {
     const engineer = await browser.open();
     await signInAs(engineer, 'engineer');
     const { caseId, bundleId } = await findCase(engineer, MOVED_RACK_CASE);
-    // The manifest's own settings again: the same digest as the incident replay, so nothing improves.
+    // An incident replay of its own (the seeded one may still be running), then the manifest's own
+    // settings again: the same digest as the incident replay, so nothing improves.
+    await replayOverApi(engineer, bundleId, { label: `Incident ${Date.now() % 100_000}` });
     const unchanged = await replayOverApi(engineer, bundleId, { label: `Unchanged ${Date.now() % 100_000}` });
     const description = await linkFixOverApi(engineer, caseId, {
       description: `Speed limit note only ${Date.now() % 100_000}`,
@@ -29,6 +31,12 @@ describe('fix verification that verifies', () => {
     await investigator.goto(`/cases/${caseId}/fixes`);
     const card = investigator.getByRole('article', { name: `Fix: ${description}` });
     await card.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
+    // Side by side, causes too: the same settings found the same causes (same digest).
+    const causes = card.getByRole('row', { name: /Probable causes/ }).getByRole('cell');
+    await expect.poll(() => causes.allTextContents(), { timeout: 15_000 }).not.toContain('…');
+    const [originalCauses, verificationCauses] = await causes.allTextContents();
+    expect(originalCauses).not.toBe('—');
+    expect(verificationCauses).toBe(originalCauses);
     await card.getByRole('button', { name: 'Mark verified' }).click();
 
     const dialog = investigator.getByRole('dialog', { name: 'Mark the fix verified' });
@@ -94,5 +102,43 @@ describe('fix verification that verifies', () => {
       .getByText(/Verify the linked fix .* then close the case/)
       .waitFor();
     for (const page of [investigator, reviewer, engineer]) await page.context().close();
+  });
+
+  it('starts the verification replay from the settings form, not from typed JSON', async () => {
+    const engineer = await browser.open();
+    await signInAs(engineer, 'engineer');
+    const { caseId } = await findCase(engineer, MOVED_RACK_CASE);
+    await engineer.goto(`/cases/${caseId}/fixes`);
+    await engineer.getByRole('button', { name: 'Link a fix' }).click();
+    expect(await engineer.getByLabel(/Fixed settings/).count()).toBe(0);
+    const description = `Particle count raised ${Date.now() % 100_000}`;
+    await engineer.getByLabel(/Change request or ticket URL/).fill('https://tracker.example/CR-2251');
+    await engineer.getByLabel('Description').fill(description);
+
+    const settings = engineer
+      .getByRole('region', { name: 'Start a verification replay' })
+      .getByRole('form', { name: 'Start a replay' });
+    // The fields start at the manifest's settings, as in the workspace.
+    expect(await settings.getByRole('textbox', { name: 'Particles' }).inputValue()).not.toBe('');
+    await settings.getByRole('textbox', { name: 'Label' }).fill('Verification, 900 particles');
+    await settings.getByRole('textbox', { name: 'Particles' }).fill('900');
+    await settings.getByRole('button', { name: 'Start replay' }).click();
+    await expect
+      .poll(() => engineer.getByLabel(/Verification replay/).inputValue(), { timeout: 15_000 })
+      .not.toBe('');
+    await saveScreenshot(engineer, 'fix-link-settings-form');
+    await engineer.getByRole('button', { name: 'Link fix' }).click();
+    await engineer.getByRole('article', { name: `Fix: ${description}` }).waitFor();
+
+    // What was typed in the form is what the replay ran with (the only override).
+    const fixes = (await (await engineer.request.get(`/api/cases/${caseId}/fixes`)).json()).items as {
+      description: string;
+      verificationReplayId: string;
+    }[];
+    const replayId = fixes.find((fix) => fix.description === description)?.verificationReplayId;
+    const replay = await (await engineer.request.get(`/api/replays/${replayId}`)).json();
+    expect(replay.overrides).toEqual({ particles: 900 });
+    expect(replay.label).toBe('Verification, 900 particles');
+    await engineer.context().close();
   });
 });

@@ -1,5 +1,10 @@
-import { flagCountRows, formatDivergence, formatMetres } from '@web/features/fixes/lib/compare-replays';
-import { parseOverrides } from '@web/features/fixes/lib/parse-overrides';
+import type { TProbableCause } from '@shared/contracts/replays';
+import {
+  describeCauses,
+  flagCountRows,
+  formatDivergence,
+  formatMetres,
+} from '@web/features/fixes/lib/compare-replays';
 import { rollup } from 'd3';
 import { describe, expect, it } from 'vitest';
 
@@ -37,17 +42,24 @@ describe('side-by-side replay comparison', () => {
   });
 });
 
-describe('verification replay overrides box', () => {
-  it('empty means the manifest settings; JSON the engine accepts passes through', () => {
-    expect(parseOverrides('  ')).toEqual({ overrides: {} });
-    expect(parseOverrides('{"particles": 800, "recovery": true}')).toEqual({
-      overrides: { particles: 800, recovery: true },
-    });
+describe('probable causes in the comparison', () => {
+  const cause = (kind: TProbableCause['kind'], confidence: number): TProbableCause => ({
+    kind,
+    start: 1,
+    end: 2,
+    confidence,
+    evidence: '',
+    against: '',
+    counterfactuals: [],
   });
 
-  it('names the problem: not JSON, or the field the engine refuses', () => {
-    expect(parseOverrides('{particles: 800')).toEqual({ problem: expect.stringMatching(/must be JSON/) });
-    expect(parseOverrides('{"particles": 0}').problem).toMatch(/field "particles"/);
-    expect(parseOverrides('{"particels": 10}').problem).toMatch(/particels|Unrecognized/i);
+  // Labels are the product's own words (shared/human-labels.ts); percentages rounded (common practice).
+  it('lists found causes in the API order with their confidence, and says when none was found', () => {
+    expect(describeCauses([cause('map_changed', 0.724), cause('odometry_fault', 0.31)])).toBe(
+      'Site differs from the map 72 % · Odometry fault 31 %',
+    );
+    expect(describeCauses([cause('none', 0.9)])).toBe('none found');
+    expect(describeCauses([])).toBe('none found');
+    expect(describeCauses(undefined)).toBe('…');
   });
 });

@@ -7,10 +7,10 @@ import { Button } from '@web/components/button';
 import { caseReplaysQueryOptions, describeReplay } from '@web/components/case-replays-query';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextInput } from '@web/components/inputs';
+import { useReplayCauses } from '@web/components/replay-causes-query';
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
 import { type EvidenceSource, sourceLabel, useEvidenceSources } from '../api/get-evidence-sources';
-import { useReplayCauses } from '../api/get-replay-causes';
 
 interface Pending {
   type: TEvidenceItem['type'];

@@ -1,3 +1,6 @@
+import type { TProbableCause } from '@shared/contracts/replays';
+import { CAUSE_KIND_LABELS, labelFor } from '@shared/human-labels';
+
 /** Flags per kind, kinds sorted by name so two replays line up row by row. */
 export function countFlagsByKind(flags: readonly { kind: string }[]): Map<string, number> {
   const counts = new Map<string, number>();
@@ -24,4 +27,17 @@ export function formatMetres(value: number | null | undefined): string {
 /** `12.4 s` since the bundle start, or "never" when the replay did not diverge. */
 export function formatDivergence(seconds: number | null | undefined): string {
   return seconds === null || seconds === undefined ? 'never' : `${seconds.toFixed(1)} s`;
+}
+
+/**
+ * A replay's probable causes in one line, highest confidence first as the API lists them, e.g.
+ * "Site differs from the map 72 %"; "none found" when it has none, "…" while loading.
+ */
+export function describeCauses(causes: readonly TProbableCause[] | undefined): string {
+  if (causes === undefined) return '…';
+  const found = causes.filter((cause) => cause.kind !== 'none');
+  if (found.length === 0) return 'none found';
+  return found
+    .map((cause) => `${labelFor(CAUSE_KIND_LABELS, cause.kind)} ${Math.round(cause.confidence * 100)} %`)
+    .join(' · ');
 }
