@@ -172,7 +172,11 @@ export function nextActor(state: TCaseStatus): { roles: Role[]; action: string }
     analysing: { roles: ['investigator'], action: 'Write the findings and submit them for review' },
     in_review: { roles: ['reviewer'], action: 'Sign the submitted findings or return them with comments' },
     changes_requested: { roles: ['investigator'], action: 'Revise the findings and resubmit them' },
-    signed_off: { roles: ['engineer', 'reviewer'], action: 'Link and verify the fix, then close the case' },
+    // What happens here depends on the linked fixes: shared/next-step.ts words it per role.
+    signed_off: {
+      roles: ['engineer', 'reviewer'],
+      action: 'An engineer links the fix; it is verified; a safety reviewer closes the case',
+    },
     closed: { roles: [], action: 'Nothing: the case is closed' },
   };
   return NEXT[state];

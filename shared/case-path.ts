@@ -1,5 +1,5 @@
-import { nextActor } from './case-lifecycle';
 import { CASE_STAGES, type TCasePath, type TCaseStage, type TCaseStatus } from './contracts/cases';
+import { holderOf } from './next-step';
 
 /**
  * A case's path through Driftcase's own stages — evidence in → replayed → findings drafted →
@@ -75,16 +75,6 @@ function describeStanding(facts: CasePathFacts, reached: Record<TCaseStage, stri
   }
 }
 
-/**
- * Who holds the case and what they do next. A signed case whose every linked fix is verified only
- * waits to be closed, which the lifecycle allows the safety reviewer (not the engineer) to do.
- */
-function holderOf(facts: CasePathFacts): { roles: readonly string[]; action: string } {
-  if (facts.status === 'signed_off' && facts.fixesLinked > 0 && facts.fixesUnverified === 0)
-    return { roles: ['reviewer'], action: 'Close the case' };
-  return nextActor(facts.status);
-}
-
 /** The case's path: every stage with its state and time, where it stands, who holds it and since when. */
 export function deriveCasePath(facts: CasePathFacts): TCasePath {
   const reached = reachedAt(facts);
@@ -104,7 +94,7 @@ export function deriveCasePath(facts: CasePathFacts): TCasePath {
             : ('todo' as const),
     at: reached[stage],
   }));
-  const next = holderOf(facts);
+  const next = holderOf(facts.status, facts);
   return {
     stages,
     standing,

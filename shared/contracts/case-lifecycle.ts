@@ -13,6 +13,8 @@ export const ZCaseLifecycle = z.object({
   caseId: z.string(),
   status: ZCaseStatus,
   nextActor: z.object({ roles: z.array(z.string()), action: z.string() }),
+  /** The next step the signed-in person's role can take itself; null when the case waits for others. */
+  yourMove: z.string().nullable(),
   /** Moves available from here (any role), for buttons on the case page. */
   transitions: z.array(
     z.object({

@@ -33,5 +33,23 @@ export const ZFix = z.object({
   linkedAt: z.string(),
   verifiedBy: z.object({ id: z.string(), name: z.string() }).nullable(),
   verifiedAt: z.string().nullable(),
+  /** What the verifier checked, in their words; null until verified (and on fixes verified before comments). */
+  verificationComment: z.string().nullable(),
+  /** True when the verifier confirmed it although the verification replay showed no improvement. */
+  isVerifiedWithoutImprovement: z.boolean(),
 });
 export type TFix = z.infer<typeof ZFix>;
+
+/** Body of `POST /api/cases/:id/fixes/:fixId/verify`. */
+export const ZVerifyFixRequest = z.strictObject({
+  comment: safeText({ error: 'Write a comment saying what you checked before marking the fix verified' })
+    .trim()
+    .min(3, 'Write a comment saying what you checked (at least 3 characters)')
+    .max(4000, 'Keep the comment under 4,000 characters'),
+  /**
+   * Needed when the verification replay did not improve on the original (shared/fixes/fix-outcome.ts):
+   * the verifier confirms they saw the warning and verify the fix anyway.
+   */
+  confirmWithoutImprovement: z.boolean().optional(),
+});
+export type TVerifyFixRequest = z.infer<typeof ZVerifyFixRequest>;

@@ -37,10 +37,11 @@ export function printableText(text: string): string {
 
 /**
  * `z.string()` that refuses NUL and lone surrogates. Every text field of a request (body, query
- * string, record key) is built from this; chain `.trim().min().max()` after it as usual.
+ * string, record key) is built from this; chain `.trim().min().max()` after it as usual. `error`
+ * words the refusal of a missing or non-text value, which zod would otherwise call "expected string".
  */
-export function safeText() {
-  return z.string().superRefine((text, ctx) => {
+export function safeText(params?: { error: string }) {
+  return z.string(params).superRefine((text, ctx) => {
     const reason = unsafeTextReason(text);
     if (reason) ctx.addIssue({ code: 'custom', message: `Text ${reason}` });
   });

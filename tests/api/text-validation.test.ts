@@ -10,7 +10,7 @@ import { ZAddCaseMemberRequest } from '../../shared/contracts/case-members';
 import { ZCaseListQuery, ZCreateCaseRequest, ZUpdateCaseRequest } from '../../shared/contracts/cases';
 import { ZEmptyBody } from '../../shared/contracts/empty-body';
 import { ZFindingsDraft, ZReturnRequest, ZSignoffRequest } from '../../shared/contracts/findings';
-import { ZLinkFixRequest } from '../../shared/contracts/fixes';
+import { ZLinkFixRequest, ZVerifyFixRequest } from '../../shared/contracts/fixes';
 import { ZPlaceHoldRequest, ZReleaseHoldRequest } from '../../shared/contracts/holds';
 import { ZStartReplayRequest } from '../../shared/contracts/replays';
 import { ZCreateSavedQueryRequest } from '../../shared/contracts/saved-queries';
@@ -158,8 +158,8 @@ const BODIES: BodyCase[] = [
   {
     route: 'post /cases/:id/fixes/:fixId/verify',
     url: `/api/cases/${ID}/fixes/${ID}/verify`,
-    contract: ZEmptyBody,
-    body: {},
+    contract: ZVerifyFixRequest,
+    body: { comment: 'Checked the replay' },
   },
   {
     route: 'post /cases/:id/hold',

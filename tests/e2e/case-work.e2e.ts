@@ -146,8 +146,11 @@ describe('case work', () => {
       .getByLabel('Description')
       .fill('Map rebuilt after the row B move; layout changes now trigger a re-map.');
     await engineer.getByLabel(/Software version/).fill('nav-stack 4.12.1');
-    await engineer.getByLabel(/Fixed settings/).fill('{"particles": 800}');
-    await engineer.getByRole('button', { name: 'Start replay' }).click();
+    const settings = engineer
+      .getByRole('region', { name: 'Start a verification replay' })
+      .getByRole('form', { name: 'Start a replay' });
+    await settings.getByRole('textbox', { name: 'Particles' }).fill('800');
+    await settings.getByRole('button', { name: 'Start replay' }).click();
     await expect
       .poll(() => engineer.getByLabel(/Verification replay/).inputValue(), { timeout: 15_000 })
       .not.toBe('');
@@ -155,10 +158,22 @@ describe('case work', () => {
     const fixCard = engineer.getByRole('article', { name: /Fix: Map rebuilt/ });
     await fixCard.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
 
-    // 6. The investigator marks it verified.
+    // 6. The investigator marks it verified, with a comment (and the confirmation, were nothing better).
     await investigator.goto(`/cases/${caseId}/fixes`);
-    await investigator.getByRole('button', { name: 'Mark verified' }).click();
-    await investigator.getByText(/Verified by/).waitFor();
+    const verifiedCard = investigator.getByRole('article', { name: /Fix: Map rebuilt/ });
+    await verifiedCard.getByText('RMSE against reference').waitFor({ timeout: 60_000 });
+    await verifiedCard.getByRole('button', { name: 'Mark verified' }).click();
+    const verifyDialog = investigator.getByRole('dialog', { name: 'Mark the fix verified' });
+    await verifyDialog
+      .getByLabel('What you checked')
+      .fill('Verification replay checked beside the incident.');
+    const confirmation = verifyDialog.getByLabel(/I verify this fix although/);
+    if ((await confirmation.count()) > 0) await confirmation.check();
+    await verifyDialog.getByRole('button', { name: 'Mark verified' }).click();
+    await verifiedCard
+      .getByText(/Verified by/)
+      .first()
+      .waitFor();
 
     // 7. The reviewer sees every step in the audit trail, and the chain verifies.
     await reviewer.goto(`/cases/${caseId}`);

@@ -86,7 +86,8 @@ describe('case path', () => {
     };
     expect(states(facts).slice(3)).toEqual(['signed:done', 'fix_verified:now', 'closed:todo']);
     expect(deriveCasePath(facts).summary).toBe('Signed; fix awaiting verification');
-    expect(deriveCasePath(facts).holders).toEqual(['engineer', 'reviewer']);
+    // Verifying a fix is the investigator's or the reviewer's move (access of POST .../fixes/:fixId/verify).
+    expect(deriveCasePath(facts).holders).toEqual(['investigator', 'reviewer']);
   });
 
   it('a signed case whose fixes are all verified waits for the reviewer to close it', () => {

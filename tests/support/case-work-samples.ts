@@ -74,7 +74,11 @@ export function caseWorkSamples(
     }),
     'post /cases/:id/fixes/:fixId/verify': async () => {
       const { caseId, fixId } = await caseWithFix(app());
-      return { path: `/api/cases/${caseId}/fixes/${fixId}/verify` };
+      return {
+        path: `/api/cases/${caseId}/fixes/${fixId}/verify`,
+        // The sample fix has no verification replay, so verifying it needs the confirmation.
+        body: { comment: 'Checked on site', confirmWithoutImprovement: true },
+      };
     },
     'get /cases/:id/hold': (f) => ({ path: `/api/cases/${f.caseId}/hold` }),
     'post /cases/:id/hold': async () => ({

@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import { parseEmptyBody } from '../../../shared/contracts/empty-body';
-import { ZLinkFixRequest } from '../../../shared/contracts/fixes';
+import { ZLinkFixRequest, ZVerifyFixRequest } from '../../../shared/contracts/fixes';
 import { ROLES } from '../../../shared/roles';
 import type { RouteSpec } from '../http/route-spec';
 import type { FixesService } from '../services/fixes/fixes-service';
@@ -35,8 +34,7 @@ export function fixRoutes(fixes: FixesService): RouteSpec[] {
       audit: { action: 'fix.verify' },
       handler: async (req, res) => {
         const { id, fixId } = ZFixParams.parse(req.params);
-        parseEmptyBody(req.body);
-        res.json(await fixes.verifyFix(id, fixId, req.user));
+        res.json(await fixes.verifyFix(id, fixId, ZVerifyFixRequest.parse(req.body), req.user));
       },
     },
   ];

@@ -1,9 +1,10 @@
-import { CircleAlert, Info } from 'lucide-react';
+import { CircleAlert, Info, TriangleAlert } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { classNames } from '../lib/class-names';
 
 interface AlertProps {
-  tone?: 'error' | 'info';
+  /** `warning`: something the reader must weigh before going on, not a failure. */
+  tone?: 'error' | 'warning' | 'info';
   title?: string;
   children: ReactNode;
   className?: string;
@@ -11,15 +12,17 @@ interface AlertProps {
 
 /** An inline message; errors are announced to screen readers as they appear. */
 export function Alert({ tone = 'error', title, children, className }: AlertProps) {
-  const Icon = tone === 'error' ? CircleAlert : Info;
+  const Icon = { error: CircleAlert, warning: TriangleAlert, info: Info }[tone];
   return (
     <div
-      role={tone === 'error' ? 'alert' : 'status'}
+      role={tone === 'info' ? 'status' : 'alert'}
       className={classNames(
         'flex gap-2 rounded-md border px-3 py-2 text-sm',
-        tone === 'error'
-          ? 'border-state-bad/40 bg-state-bad/5 text-state-bad'
-          : 'border-state-info/30 bg-state-info/5 text-ink',
+        {
+          error: 'border-state-bad/40 bg-state-bad/5 text-state-bad',
+          warning: 'border-state-warn/50 bg-state-warn/10 text-state-warn',
+          info: 'border-state-info/30 bg-state-info/5 text-ink',
+        }[tone],
         className,
       )}
     >

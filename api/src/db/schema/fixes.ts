@@ -1,4 +1,4 @@
-import { index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { cases } from './cases';
 import { users } from './users';
 
@@ -23,6 +23,9 @@ export const caseFixes = pgTable(
     linkedAt: timestamp('linked_at', { withTimezone: true }).notNull().defaultNow(),
     verifiedBy: uuid('verified_by').references(() => users.id),
     verifiedAt: timestamp('verified_at', { withTimezone: true }),
+    verificationComment: text('verification_comment'),
+    /** The verifier confirmed the fix although its verification replay showed no improvement. */
+    isVerifiedWithoutImprovement: boolean('verified_without_improvement').notNull().default(false),
   },
   (table) => [index('case_fixes_case_idx').on(table.caseId)],
 );

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
-import type { TFix, TLinkFixRequest } from '../../../../shared/contracts/fixes';
+import type { TFix, TLinkFixRequest, TVerifyFixRequest } from '../../../../shared/contracts/fixes';
 import { AppError } from '../../../../shared/errors';
 import type { Database } from '../../db/client';
 import { bundles, type CaseFixRow, caseFixes, replays } from '../../db/schema';
@@ -10,6 +10,7 @@ import { loadPeople, type Person } from '../findings/people';
 import { loadCaseState } from '../lifecycle/case-state';
 import type { Notifications } from '../mail/notifications';
 import { assertCaseMember } from '../membership/case-access';
+import { judgeVerificationReplay } from './judge-verification-replay';
 
 function toFix(row: CaseFixRow, people: Map<string, Person>): TFix {
   const who = (id: string) => ({ id, name: people.get(id)?.name ?? '' });
@@ -26,6 +27,8 @@ function toFix(row: CaseFixRow, people: Map<string, Person>): TFix {
     linkedAt: row.linkedAt.toISOString(),
     verifiedBy: row.verifiedBy ? who(row.verifiedBy) : null,
     verifiedAt: row.verifiedAt?.toISOString() ?? null,
+    verificationComment: row.verificationComment,
+    isVerifiedWithoutImprovement: row.isVerifiedWithoutImprovement,
   };
 }
 
@@ -104,7 +107,12 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
     return (await withPeople([row]))[0];
   }
 
-  async function verifyFix(caseId: string, fixId: string, actor: Actor): Promise<TFix> {
+  async function verifyFix(
+    caseId: string,
+    fixId: string,
+    request: TVerifyFixRequest,
+    actor: Actor,
+  ): Promise<TFix> {
     const row = await db.transaction(async (tx) => {
       await assertCaseMember(tx, caseId, actor, 'verify its fixes');
       const [existing] = await tx
@@ -117,12 +125,39 @@ export function createFixesService(deps: { db: Database; audit: AuditService; no
           'conflict',
           `Fix ${fixId} was already verified at ${existing.verifiedAt.toISOString()}.`,
         );
+      const outcome = await judgeVerificationReplay(tx, existing.verificationReplayId);
+      const isConfirmed = request.confirmWithoutImprovement === true;
+      if (outcome.kind !== 'improved' && !isConfirmed)
+        throw new AppError(
+          'validation_failed',
+          `${outcome.warning} To verify the fix anyway, confirm it (confirmWithoutImprovement: true).`,
+          [{ path: 'confirmWithoutImprovement', message: outcome.warning }],
+        );
       const [updated] = await tx
         .update(caseFixes)
-        .set({ verifiedAt: new Date(), verifiedBy: actor.id })
+        .set({
+          verifiedAt: new Date(),
+          verifiedBy: actor.id,
+          verificationComment: request.comment,
+          isVerifiedWithoutImprovement: outcome.kind !== 'improved',
+        })
         .where(eq(caseFixes.id, fixId))
         .returning();
-      await audit.append(tx, { actor, action: 'fix.verify', targetType: 'fix', targetId: fixId, caseId });
+      await audit.append(tx, {
+        actor,
+        action: 'fix.verify',
+        targetType: 'fix',
+        targetId: fixId,
+        caseId,
+        // Details (not only a payload hash) so the case history shows what the verifier wrote.
+        details: {
+          comment: request.comment,
+          outcome: outcome.kind,
+          ...(outcome.kind === 'improved'
+            ? { improvements: outcome.improvements }
+            : { warning: outcome.warning, confirmedWithoutImprovement: true }),
+        },
+      });
       return updated;
     });
     return (await withPeople([row]))[0];

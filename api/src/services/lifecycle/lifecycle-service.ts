@@ -1,9 +1,10 @@
 import { and, count, eq, isNull } from 'drizzle-orm';
 import type { AuditAction } from '../../../../shared/audit-actions';
-import { checkTransition, nextActor, transitionsFrom } from '../../../../shared/case-lifecycle';
+import { checkTransition, transitionsFrom } from '../../../../shared/case-lifecycle';
 import type { TCaseLifecycle, TCaseTransitionRequest } from '../../../../shared/contracts/case-lifecycle';
 import type { TCaseStatus } from '../../../../shared/contracts/cases';
 import { AppError } from '../../../../shared/errors';
+import { type FixFacts, holderOf, nextStepFor } from '../../../../shared/next-step';
 import type { Role } from '../../../../shared/roles';
 import type { Database, Transaction } from '../../db/client';
 import { caseFixes, cases } from '../../db/schema';
@@ -26,6 +27,14 @@ async function unverifiedFixes(db: Database, caseId: string): Promise<number> {
     .from(caseFixes)
     .where(and(eq(caseFixes.caseId, caseId), isNull(caseFixes.verifiedAt)));
   return total;
+}
+
+async function fixFacts(db: Database, caseId: string): Promise<FixFacts> {
+  const [{ linked }] = await db
+    .select({ linked: count() })
+    .from(caseFixes)
+    .where(eq(caseFixes.caseId, caseId));
+  return { fixesLinked: linked, fixesUnverified: await unverifiedFixes(db, caseId) };
 }
 
 /**
@@ -141,10 +150,12 @@ export function createLifecycleService({ db, audit }: { db: Database; audit: Aud
     await assertCaseMember(db, caseId, actor, 'see its next steps');
     const state = await loadCaseState(db, caseId);
     const hold = await findActiveHold(db, caseId);
+    const facts = await fixFacts(db, caseId);
     return {
       caseId,
       status: state.status,
-      nextActor: nextActor(state.status),
+      nextActor: holderOf(state.status, facts),
+      yourMove: nextStepFor(state.status, actor.role, facts),
       transitions: transitionsFrom(state.status).map(({ to, event, roles, cause, isDirect }) => ({
         to,
         event,

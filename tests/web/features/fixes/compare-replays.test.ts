@@ -1,35 +1,12 @@
-import type { TReplay } from '@shared/contracts/replays';
+import type { TProbableCause } from '@shared/contracts/replays';
 import {
+  describeCauses,
   flagCountRows,
   formatDivergence,
   formatMetres,
-  pickOriginalReplay,
 } from '@web/features/fixes/lib/compare-replays';
-import { parseOverrides } from '@web/features/fixes/lib/parse-overrides';
 import { rollup } from 'd3';
 import { describe, expect, it } from 'vitest';
-
-const replay = (patch: Partial<TReplay>): TReplay => ({
-  id: 'r',
-  bundleId: 'b1',
-  caseId: 'c',
-  label: '',
-  status: 'done',
-  overrides: {},
-  settings: null,
-  digest: 'd',
-  engine: null,
-  steps: 1,
-  elapsedMs: 1,
-  metrics: null,
-  flags: [],
-  error: null,
-  progress: null,
-  createdBy: { id: 'u', name: 'U' },
-  createdAt: '2026-03-14T09:00:00Z',
-  finishedAt: null,
-  ...patch,
-});
 
 describe('side-by-side replay comparison', () => {
   it('counts flags per kind as d3.rollup does, with zero where one replay has none', () => {
@@ -56,21 +33,6 @@ describe('side-by-side replay comparison', () => {
     expect(rows.map((r) => r.kind)).toEqual(['belief_collapse', 'input_gap', 'map_mismatch']);
   });
 
-  it('compares against the earliest finished replay of the same bundle that ran without overrides', () => {
-    const verification = replay({
-      id: 'v',
-      overrides: { particles: 800 },
-      createdAt: '2026-03-14T12:00:00Z',
-    });
-    const tuned = replay({ id: 't', overrides: { particles: 300 }, createdAt: '2026-03-14T08:00:00Z' });
-    const plain = replay({ id: 'p', createdAt: '2026-03-14T10:00:00Z' });
-    const otherBundle = replay({ id: 'o', bundleId: 'b2', createdAt: '2026-03-14T07:00:00Z' });
-    const failed = replay({ id: 'f', status: 'failed', createdAt: '2026-03-14T06:00:00Z' });
-    expect(pickOriginalReplay([verification, tuned, plain, otherBundle, failed], verification)?.id).toBe('p');
-    expect(pickOriginalReplay([verification, tuned], verification)?.id).toBe('t');
-    expect(pickOriginalReplay([verification], verification)).toBeUndefined();
-  });
-
   it('writes units after numbers and a dash or "never" for missing values (common practice)', () => {
     expect(formatMetres(0.0414735)).toBe('0.041 m');
     expect(formatMetres(null)).toBe('—');
@@ -80,17 +42,24 @@ describe('side-by-side replay comparison', () => {
   });
 });
 
-describe('verification replay overrides box', () => {
-  it('empty means the manifest settings; JSON the engine accepts passes through', () => {
-    expect(parseOverrides('  ')).toEqual({ overrides: {} });
-    expect(parseOverrides('{"particles": 800, "recovery": true}')).toEqual({
-      overrides: { particles: 800, recovery: true },
-    });
+describe('probable causes in the comparison', () => {
+  const cause = (kind: TProbableCause['kind'], confidence: number): TProbableCause => ({
+    kind,
+    start: 1,
+    end: 2,
+    confidence,
+    evidence: '',
+    against: '',
+    counterfactuals: [],
   });
 
-  it('names the problem: not JSON, or the field the engine refuses', () => {
-    expect(parseOverrides('{particles: 800')).toEqual({ problem: expect.stringMatching(/must be JSON/) });
-    expect(parseOverrides('{"particles": 0}').problem).toMatch(/field "particles"/);
-    expect(parseOverrides('{"particels": 10}').problem).toMatch(/particels|Unrecognized/i);
+  // Labels are the product's own words (shared/human-labels.ts); percentages rounded (common practice).
+  it('lists found causes in the API order with their confidence, and says when none was found', () => {
+    expect(describeCauses([cause('map_changed', 0.724), cause('odometry_fault', 0.31)])).toBe(
+      'Site differs from the map 72 % · Odometry fault 31 %',
+    );
+    expect(describeCauses([cause('none', 0.9)])).toBe('none found');
+    expect(describeCauses([])).toBe('none found');
+    expect(describeCauses(undefined)).toBe('…');
   });
 });

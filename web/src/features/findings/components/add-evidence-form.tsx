@@ -7,11 +7,11 @@ import { Button } from '@web/components/button';
 import { caseReplaysQueryOptions, describeReplay } from '@web/components/case-replays-query';
 import { FormField } from '@web/components/form-field';
 import { SelectInput, TextInput } from '@web/components/inputs';
+import { useReplayCauses } from '@web/components/replay-causes-query';
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
 import { useEvidenceNames } from '../api/get-evidence-names';
 import { type EvidenceSource, sourceLabel, useEvidenceSources } from '../api/get-evidence-sources';
-import { useReplayCauses } from '../api/get-replay-causes';
 import { FigurePicker } from './figure-picker';
 
 interface Pending {

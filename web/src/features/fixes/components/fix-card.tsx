@@ -1,13 +1,13 @@
 import type { TFix } from '@shared/contracts/fixes';
+import { judgeFixOutcome, pickOriginalReplay } from '@shared/fixes/fix-outcome';
 import { REPLAY_STATUS_LABELS } from '@shared/human-labels';
-import { Alert } from '@web/components/alert';
 import { Button } from '@web/components/button';
 import type { CaseReplays } from '@web/components/case-replays-query';
 import { LocalTime } from '@web/components/local-time';
 import { BadgeCheck, CircleDashed, ExternalLink } from 'lucide-react';
-import { useVerifyFix } from '../api/verify-fix';
-import { pickOriginalReplay } from '../lib/compare-replays';
+import { useState } from 'react';
 import { ReplayComparison } from './replay-comparison';
+import { VerifyFixDialog } from './verify-fix-dialog';
 
 function VerificationReplay({ fix, replays }: { fix: TFix; replays?: CaseReplays }) {
   if (!fix.verificationReplayId)
@@ -41,7 +41,10 @@ export function FixCard({
   canVerify: boolean;
   replays?: CaseReplays;
 }) {
-  const verify = useVerifyFix(caseId);
+  const [isVerifying, setIsVerifying] = useState(false);
+  const all = replays?.replays ?? [];
+  const verification = all.find((r) => r.id === fix.verificationReplayId);
+  const original = verification && pickOriginalReplay(all, verification);
   return (
     <article
       aria-label={`Fix: ${fix.description}`}
@@ -107,17 +110,28 @@ export function FixCard({
         Original and verification replay
       </h4>
       <VerificationReplay fix={fix} replays={replays} />
+      {fix.verifiedAt && (
+        <div className="mt-4 border-t border-canvas-line pt-3 text-sm">
+          <p className="text-xs text-ink-muted">
+            Verified by {fix.verifiedBy?.name}, <LocalTime iso={fix.verifiedAt} />
+            {fix.isVerifiedWithoutImprovement && ', confirmed although the replay showed no improvement'}
+          </p>
+          {fix.verificationComment && <p className="mt-1 whitespace-pre-wrap">{fix.verificationComment}</p>}
+        </div>
+      )}
       {canVerify && !fix.verifiedAt && (
         <div className="mt-4 border-t border-canvas-line pt-3">
-          <Button
-            variant="primary"
-            icon={BadgeCheck}
-            isBusy={verify.isPending}
-            onClick={() => verify.mutate(fix.id)}
-          >
+          <Button variant="primary" icon={BadgeCheck} onClick={() => setIsVerifying(true)}>
             Mark verified
           </Button>
-          {verify.isError && <Alert className="mt-2">{verify.error.message}</Alert>}
+          {isVerifying && (
+            <VerifyFixDialog
+              caseId={caseId}
+              fixId={fix.id}
+              outcome={judgeFixOutcome(original, verification)}
+              onClose={() => setIsVerifying(false)}
+            />
+          )}
         </div>
       )}
     </article>

@@ -8,12 +8,21 @@ import { useState } from 'react';
 import { useFixes } from '../api/get-fixes';
 import { FixCard } from './fix-card';
 import { LinkFixForm } from './link-fix-form';
+import type { RenderReplayLauncher } from './start-replay-panel';
 
 const PANEL = 'rounded-lg border border-canvas-line bg-canvas-raised p-5 shadow-sm';
 const VERIFIER_ROLES: readonly Role[] = ['investigator', 'reviewer'];
 
 /** Fixes linked to the case; engineers link new ones, investigators and reviewers verify them. */
-export function FixesView({ caseId, role }: { caseId: string; role: Role }) {
+export function FixesView({
+  caseId,
+  role,
+  renderReplayLauncher,
+}: {
+  caseId: string;
+  role: Role;
+  renderReplayLauncher: RenderReplayLauncher;
+}) {
   const fixes = useFixes(caseId);
   const replays = useQuery(caseReplaysQueryOptions(caseId));
   const [isLinking, setIsLinking] = useState(false);
@@ -27,7 +36,12 @@ export function FixesView({ caseId, role }: { caseId: string; role: Role }) {
             <h2 id="link-fix" className="mb-3 text-base font-bold">
               Link a fix
             </h2>
-            <LinkFixForm caseId={caseId} replays={replays.data} onLinked={() => setIsLinking(false)} />
+            <LinkFixForm
+              caseId={caseId}
+              replays={replays.data}
+              renderReplayLauncher={renderReplayLauncher}
+              onLinked={() => setIsLinking(false)}
+            />
           </section>
         ) : (
           <Button variant="primary" icon={Wrench} onClick={() => setIsLinking(true)}>

@@ -8,10 +8,10 @@ import { FormField } from '@web/components/form-field';
 import { SelectInput, TextArea, TextInput } from '@web/components/inputs';
 import { applyServerErrors } from '@web/lib/form-errors';
 import { Link2 } from 'lucide-react';
-import { useEffect, useState } from 'react';
+import { useEffect, useId, useState } from 'react';
 import { type Resolver, useForm } from 'react-hook-form';
 import { useLinkFix } from '../api/link-fix';
-import { StartReplayPanel } from './start-replay-panel';
+import { type RenderReplayLauncher, StartReplayPanel } from './start-replay-panel';
 
 type FixFormValues = Record<
   'url' | 'commitId' | 'description' | 'changedSettings' | 'softwareVersion' | 'verificationReplayId',
@@ -45,12 +45,15 @@ const resolver: Resolver<FixFormValues> = async (values, context, options) => {
 export function LinkFixForm({
   caseId,
   replays,
+  renderReplayLauncher,
   onLinked,
 }: {
   caseId: string;
   replays?: CaseReplays;
+  renderReplayLauncher: RenderReplayLauncher;
   onLinked: () => void;
 }) {
+  const formId = useId();
   const link = useLinkFix(caseId);
   const form = useForm<FixFormValues>({ resolver, defaultValues: EMPTY });
   const [problem, setProblem] = useState<string>();
@@ -76,56 +79,66 @@ export function LinkFixForm({
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <div className="grid grid-cols-2 gap-3">
+    // The settings form is a form of its own, so it sits beside this one rather than inside it.
+    <div className="space-y-4">
+      <form id={formId} onSubmit={onSubmit} noValidate className="space-y-4">
+        <div className="grid grid-cols-2 gap-3">
+          <FormField
+            label="Change request or ticket URL"
+            isOptional
+            hint="A URL or a commit id is needed."
+            error={errors.url?.message}
+          >
+            {(control) => <TextInput {...control} type="url" {...form.register('url')} />}
+          </FormField>
+          <FormField label="Commit id" isOptional hint="7 to 64 hex digits." error={errors.commitId?.message}>
+            {(control) => <TextInput {...control} {...form.register('commitId')} />}
+          </FormField>
+        </div>
+        <FormField label="Description" error={errors.description?.message}>
+          {(control) => <TextArea {...control} className="min-h-16" {...form.register('description')} />}
+        </FormField>
+        <div className="grid grid-cols-2 gap-3">
+          <FormField label="Changed settings" isOptional error={errors.changedSettings?.message}>
+            {(control) => (
+              <TextArea {...control} className="min-h-16" {...form.register('changedSettings')} />
+            )}
+          </FormField>
+          <FormField label="Software version" isOptional error={errors.softwareVersion?.message}>
+            {(control) => <TextInput {...control} {...form.register('softwareVersion')} />}
+          </FormField>
+        </div>
         <FormField
-          label="Change request or ticket URL"
+          label="Verification replay"
           isOptional
-          hint="A URL or a commit id is needed."
-          error={errors.url?.message}
+          hint="A replay of the incident bundle under the fixed settings."
+          error={errors.verificationReplayId?.message}
         >
-          {(control) => <TextInput {...control} type="url" {...form.register('url')} />}
+          {(control) => (
+            <SelectInput {...control} {...form.register('verificationReplayId')}>
+              <option value="">None</option>
+              {choosable.map((r) => (
+                <option key={r.id} value={r.id}>
+                  {describeReplay(r, replays?.bundles ?? [])}
+                  {r.status !== 'done' ? ` (${REPLAY_STATUS_LABELS[r.status].toLowerCase()})` : ''}
+                </option>
+              ))}
+            </SelectInput>
+          )}
         </FormField>
-        <FormField label="Commit id" isOptional hint="7 to 64 hex digits." error={errors.commitId?.message}>
-          {(control) => <TextInput {...control} {...form.register('commitId')} />}
-        </FormField>
-      </div>
-      <FormField label="Description" error={errors.description?.message}>
-        {(control) => <TextArea {...control} className="min-h-16" {...form.register('description')} />}
-      </FormField>
-      <div className="grid grid-cols-2 gap-3">
-        <FormField label="Changed settings" isOptional error={errors.changedSettings?.message}>
-          {(control) => <TextArea {...control} className="min-h-16" {...form.register('changedSettings')} />}
-        </FormField>
-        <FormField label="Software version" isOptional error={errors.softwareVersion?.message}>
-          {(control) => <TextInput {...control} {...form.register('softwareVersion')} />}
-        </FormField>
-      </div>
-      <FormField
-        label="Verification replay"
-        isOptional
-        hint="A replay of the incident bundle under the fixed settings."
-        error={errors.verificationReplayId?.message}
-      >
-        {(control) => (
-          <SelectInput {...control} {...form.register('verificationReplayId')}>
-            <option value="">None</option>
-            {choosable.map((r) => (
-              <option key={r.id} value={r.id}>
-                {describeReplay(r, replays?.bundles ?? [])}
-                {r.status !== 'done' ? ` (${REPLAY_STATUS_LABELS[r.status].toLowerCase()})` : ''}
-              </option>
-            ))}
-          </SelectInput>
-        )}
-      </FormField>
-      <StartReplayPanel caseId={caseId} replays={replays} onStarted={setStartedId} />
+      </form>
+      <StartReplayPanel
+        caseId={caseId}
+        replays={replays}
+        renderReplayLauncher={renderReplayLauncher}
+        onStarted={setStartedId}
+      />
       {problem && <Alert title="The fix was not linked">{problem}</Alert>}
       <div className="flex justify-end">
-        <Button type="submit" variant="primary" icon={Link2} isBusy={link.isPending}>
+        <Button type="submit" form={formId} variant="primary" icon={Link2} isBusy={link.isPending}>
           Link fix
         </Button>
       </div>
-    </form>
+    </div>
   );
 }

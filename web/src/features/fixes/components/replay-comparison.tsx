@@ -1,5 +1,6 @@
 import type { TReplay } from '@shared/contracts/replays';
-import { flagCountRows, formatDivergence, formatMetres } from '../lib/compare-replays';
+import { useReplayCauses } from '@web/components/replay-causes-query';
+import { describeCauses, flagCountRows, formatDivergence, formatMetres } from '../lib/compare-replays';
 
 function Metric({
   label,
@@ -21,9 +22,11 @@ function Metric({
   );
 }
 
-/** The incident replay beside the verification replay: flags by kind, RMSE and divergence time. */
+/** The incident replay beside the verification replay: flags by kind, RMSE, divergence and causes. */
 export function ReplayComparison({ original, verification }: { original?: TReplay; verification: TReplay }) {
   const rows = flagCountRows(original?.flags ?? [], verification.flags);
+  const originalCauses = useReplayCauses(original?.id ?? '');
+  const verificationCauses = useReplayCauses(verification.id);
   return (
     <table className="w-full text-sm">
       <caption className="sr-only">Original replay compared with the verification replay</caption>
@@ -67,6 +70,11 @@ export function ReplayComparison({ original, verification }: { original?: TRepla
             verification={String(row.verification)}
           />
         ))}
+        <Metric
+          label="Probable causes"
+          original={original ? describeCauses(originalCauses.data) : '—'}
+          verification={describeCauses(verificationCauses.data)}
+        />
       </tbody>
     </table>
   );

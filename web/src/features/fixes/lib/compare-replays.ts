@@ -1,4 +1,5 @@
-import type { TReplay } from '@shared/contracts/replays';
+import type { TProbableCause } from '@shared/contracts/replays';
+import { CAUSE_KIND_LABELS, labelFor } from '@shared/human-labels';
 
 /** Flags per kind, kinds sorted by name so two replays line up row by row. */
 export function countFlagsByKind(flags: readonly { kind: string }[]): Map<string, number> {
@@ -18,17 +19,6 @@ export function flagCountRows(
   return kinds.map((kind) => ({ kind, original: before.get(kind) ?? 0, verification: after.get(kind) ?? 0 }));
 }
 
-/**
- * The replay a fix is compared against: the earliest finished replay of the same bundle run with
- * the manifest's own settings (no overrides), else the earliest finished one other than the fix's.
- */
-export function pickOriginalReplay(replays: readonly TReplay[], verification: TReplay): TReplay | undefined {
-  const candidates = replays
-    .filter((r) => r.bundleId === verification.bundleId && r.id !== verification.id && r.status === 'done')
-    .sort((a, b) => a.createdAt.localeCompare(b.createdAt));
-  return candidates.find((r) => Object.keys(r.overrides).length === 0) ?? candidates[0];
-}
-
 /** `0.042 m`, or an em dash for a missing value; RMSE is in metres in the replay metrics. */
 export function formatMetres(value: number | null | undefined): string {
   return value === null || value === undefined || !Number.isFinite(value) ? '—' : `${value.toFixed(3)} m`;
@@ -37,4 +27,17 @@ export function formatMetres(value: number | null | undefined): string {
 /** `12.4 s` since the bundle start, or "never" when the replay did not diverge. */
 export function formatDivergence(seconds: number | null | undefined): string {
   return seconds === null || seconds === undefined ? 'never' : `${seconds.toFixed(1)} s`;
+}
+
+/**
+ * A replay's probable causes in one line, highest confidence first as the API lists them, e.g.
+ * "Site differs from the map 72 %"; "none found" when it has none, "…" while loading.
+ */
+export function describeCauses(causes: readonly TProbableCause[] | undefined): string {
+  if (causes === undefined) return '…';
+  const found = causes.filter((cause) => cause.kind !== 'none');
+  if (found.length === 0) return 'none found';
+  return found
+    .map((cause) => `${labelFor(CAUSE_KIND_LABELS, cause.kind)} ${Math.round(cause.confidence * 100)} %`)
+    .join(' · ');
 }

@@ -66,14 +66,13 @@ export function CaseWorkSection({ caseId, role }: { caseId: string; role: Role }
 
   // Only plain status moves are buttons; submitting, returning and signing happen on the findings pages.
   const moves = state.transitions.filter((t) => t.isDirect && t.roles.includes(role));
-  const isMyTurn = state.nextActor.roles.includes(role);
 
   return (
     <div className="space-y-4">
-      {isMyTurn && (
+      {state.yourMove && (
         <p className="flex items-center gap-1.5 rounded-md bg-accent-soft px-3 py-2 text-sm text-accent-strong">
           <UserRoundCheck aria-hidden className="size-4" />
-          <span className="font-bold">Your move:</span> {state.nextActor.action}.
+          <span className="font-bold">Your move:</span> {state.yourMove}.
         </p>
       )}
       <CaseWorkLinks caseId={caseId} role={role} />

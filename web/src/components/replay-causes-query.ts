@@ -3,7 +3,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiPaths } from '@web/config/paths';
 import { apiRequest } from '@web/lib/api-client';
 
-/** A finished replay's probable causes, for citing one in the findings (empty when it has none). */
+/**
+ * A finished replay's probable causes (empty when it has none): cited in the findings and shown
+ * beside a fix's verification replay, so both features read them through this one query.
+ */
 export async function getReplayCauses(replayId: string, signal?: AbortSignal) {
   return (await apiRequest(apiPaths.replay(replayId), { schema: ZReplay, signal })).causes ?? [];
 }
