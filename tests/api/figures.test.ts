@@ -219,6 +219,10 @@ describe('saving a picture to the case as a figure', () => {
     const noCaption = await upload(TINY_PNG, { fields: {} });
     expect(noCaption.status).toBe(400);
     expect(noCaption.body.error.details).toEqual([expect.objectContaining({ path: 'caption' })]);
+    // NUL has no place in PostgreSQL text (tests/api/text-validation.test.ts covers JSON bodies).
+    const nulCaption = await upload(TINY_PNG, { fields: { caption: 'Map\u0000at step 3' } });
+    expect(nulCaption.status).toBe(400);
+    expect(nulCaption.body.error.details).toEqual([expect.objectContaining({ path: 'caption' })]);
     const otherCase = await caseWithReplay(t);
     const foreign = await upload(TINY_PNG, { fields: { caption: CAPTION, replayId: otherCase.replayId } });
     expect(foreign.status).toBe(400);

@@ -46,6 +46,7 @@ const FULL_FINDINGS = {
     { type: 'saved_query', queryId: ID, resultSha256: SHA, note: 'n' },
     { type: 'bundle_file', bundleId: ID, file: 'odometry.csv', sha256: SHA, note: 'n' },
     { type: 'cause', replayId: ID, digest: 'digest-1', kind: 'odometry_fault', note: 'n' },
+    { type: 'figure', figureId: ID, sha256: SHA, note: 'n' },
   ],
 };
 
@@ -228,8 +229,14 @@ const BODIES: BodyCase[] = [
 ];
 
 /** Uploads: multipart with a file and no text field (the file name is checked with the upload). */
-const MULTIPART_ROUTES = ['post /cases/:id/bundles', 'post /archives/verify', 'post /cases/:id/recordings'];
-// The recording upload's text fields (from, to, incident) are checked in tests/api/recordings/recording-upload.test.ts.
+const MULTIPART_ROUTES = [
+  'post /cases/:id/bundles',
+  'post /archives/verify',
+  'post /cases/:id/recordings',
+  'post /cases/:id/figures',
+];
+// The recording upload's text fields (from, to, incident) are checked in tests/api/recordings/recording-upload.test.ts;
+// the figure's caption (safeText, like every text field) in tests/api/figures.test.ts.
 
 let t: TestApp;
 let specs: RouteSpec[];
