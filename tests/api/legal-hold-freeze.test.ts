@@ -122,6 +122,7 @@ const ALLOWED = new Set([
   'post /cases/:id/queries',
   'post /cases/:id/bundles',
   'post /cases/:id/recordings', // a new original and its bundle: an addition, like a bundle upload
+  'post /cases/:id/figures', // a new picture kept as evidence: an addition, nothing recorded changes
   'post /bundles/:id/replays',
   'delete /replays/:id', // cancels a running replay; a finished replay's results are kept
   'post /cases/:id/fixes',
