@@ -9,11 +9,12 @@ describe('SQL console', () => {
   it('an investigator runs a starter query, sees a DuckDB error, and saves a query to the case', async () => {
     const page = await browser.open({ viewport: DESKTOP });
     await signInAs(page, 'investigator');
-    // The seeded wheel-slip case and its bundle, found through the API with the page's own session.
-    const cases = await (await page.request.get('/api/cases?search=wheel')).json();
-    const caseId: string = (
-      cases.items.find((c: { title: string }) => /slip/i.test(c.title)) ?? cases.items[0]
-    ).id;
+    // The seeded wheel-slip case (api/src/seed/demo-cases.ts) and its bundle, found through the
+    // API with the page's own session; other browser tests make cases of their own beside it.
+    const cases = await (await page.request.get('/api/cases?search=defrost%20drain')).json();
+    const seeded = cases.items.find((c: { title: string }) => /leaking defrost drain/.test(c.title));
+    expect(seeded, 'the seeded wheel-slip case').toBeDefined();
+    const caseId: string = seeded.id;
     const bundles = await (await page.request.get(`/api/cases/${caseId}/bundles`)).json();
     const bundleId: string = bundles.items[0].id;
 
