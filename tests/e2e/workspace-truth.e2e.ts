@@ -292,4 +292,66 @@ describe('the workspace tells the truth about the step it draws', () => {
     await page.mouse.move(5, 5);
     await readout.waitFor({ state: 'detached' });
   }, 120_000);
+
+  it('reads the map coordinates at the pointer and measures the distance between two clicks', async () => {
+    if (!made) throw new Error('the first test did not make the long replay');
+    const { bundleId, replayId } = made;
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
+    const canvas = page.getByTestId('map-canvas');
+    await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 60_000 }).toBe('0');
+    const map = await (await page.request.get(`/api/bundles/${bundleId}/map`)).json();
+    await canvas.scrollIntoViewIfNeeded();
+    const box = await canvas.boundingBox();
+    if (!box) throw new Error('no map canvas');
+
+    // The map opens showing the whole grid centred (the map's metadata: origin + size / 2), and
+    // the scale bar drawn on the map gives the metres per screen pixel.
+    const scaleBar = page.getByTestId('scale-bar');
+    const metresPerPx =
+      Number(await scaleBar.getAttribute('data-metres')) / Number(await scaleBar.getAttribute('data-px'));
+    const centre = {
+      x: map.origin[0] + (map.width * map.resolution) / 2,
+      y: map.origin[1] + (map.height * map.resolution) / 2,
+    };
+    const cx = box.x + box.width / 2;
+    const cy = box.y + box.height / 2;
+    const pointer = page.getByTestId('map-pointer');
+    const readAt = async (x: number, y: number) => {
+      await page.mouse.move(x, y);
+      await pointer.waitFor();
+      return {
+        x: Number(await pointer.getAttribute('data-x')),
+        y: Number(await pointer.getAttribute('data-y')),
+      };
+    };
+    const atCentre = await readAt(cx, cy);
+    // Half a pixel of rounding in the canvas's layout position.
+    expect(Math.abs(atCentre.x - centre.x)).toBeLessThanOrEqual(metresPerPx);
+    expect(Math.abs(atCentre.y - centre.y)).toBeLessThanOrEqual(metresPerPx);
+    // 100 px right and 60 px up: x grows east, y grows north (the map frame's convention).
+    const moved = await readAt(cx + 100, cy - 60);
+    expect(moved.x - atCentre.x).toBeCloseTo(100 * metresPerPx, 6);
+    expect(moved.y - atCentre.y).toBeCloseTo(60 * metresPerPx, 6);
+    expect(await pointer.textContent()).toContain(`x ${moved.x.toFixed(2)}`);
+
+    // The tool is a keyboard toggle; two clicks 120 px across and 90 px down are 150 px apart
+    // (a 3-4-5 triangle), so the distance is 150 px at the scale bar's metres per pixel.
+    const toggle = page.getByRole('button', { name: 'Measure', exact: true });
+    await toggle.focus();
+    await page.keyboard.press('Enter');
+    expect(await toggle.getAttribute('aria-pressed')).toBe('true');
+    await page.mouse.click(cx - 60, cy - 45);
+    await page.mouse.click(cx + 60, cy + 45);
+    const distance = page.getByTestId('map-distance');
+    await distance.waitFor();
+    const metres = Number(await distance.getAttribute('data-metres'));
+    expect(metres).toBeCloseTo(150 * metresPerPx, 6);
+    expect(await distance.textContent()).toContain(metres.toFixed(2));
+    await saveScreenshot(page, 'workspace-map-measure');
+    await page.keyboard.press('Escape');
+    await distance.waitFor({ state: 'detached' });
+    expect(await toggle.getAttribute('aria-pressed')).toBe('false');
+  }, 120_000);
 });
