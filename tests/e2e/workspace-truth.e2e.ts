@@ -44,6 +44,14 @@ describe('the workspace tells the truth about the step it draws', () => {
   // The long replay is made once by the first test and reused by the next.
   let made: { bundleId: string; caseId: string; replayId: string } | null = null;
 
+  /** A signed-in investigator's page and the long replay the first test made. */
+  async function openWithLongReplay() {
+    if (!made) throw new Error('the first test did not make the long replay');
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    return { page, ...made };
+  }
+
   it('after a fast drag across the 6,000-step replay, draws the cursor step within 0.5 s with at most 40 step requests', async () => {
     const page = await browser.open({ viewport: DESKTOP });
     await signInAs(page, 'investigator');
@@ -294,10 +302,7 @@ describe('the workspace tells the truth about the step it draws', () => {
   }, 120_000);
 
   it('reads the map coordinates at the pointer and measures the distance between two clicks', async () => {
-    if (!made) throw new Error('the first test did not make the long replay');
-    const { bundleId, replayId } = made;
-    const page = await browser.open({ viewport: DESKTOP });
-    await signInAs(page, 'investigator');
+    const { page, bundleId, replayId } = await openWithLongReplay();
     await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
     const canvas = page.getByTestId('map-canvas');
     await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 60_000 }).toBe('0');
@@ -353,5 +358,51 @@ describe('the workspace tells the truth about the step it draws', () => {
     await page.keyboard.press('Escape');
     await distance.waitFor({ state: 'detached' });
     expect(await toggle.getAttribute('aria-pressed')).toBe('false');
+  }, 120_000);
+
+  it("draws this replay's bookmarks on the timeline, titled on hover and focus, and seeks to one on click", async () => {
+    const { page, bundleId, caseId, replayId } = await openWithLongReplay();
+    const series = await (await page.request.get(`/api/replays/${replayId}/series`)).json();
+    const times = series.columns.t as number[];
+    // An invented bookmark two thirds of the way in; its step and time are the series' own.
+    const step = 4000;
+    const note = 'Pallet jack parked across the aisle';
+    const created = await page.request.post(`/api/cases/${caseId}/bookmarks`, {
+      headers: await csrfHeaders(page),
+      data: { replayId, step, t: times[step], view: { centerX: 0, centerY: 0, zoom: 10 }, note },
+    });
+    expect(created.status()).toBe(201);
+
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replayId}`);
+    const marker = page
+      .getByTestId('timeline-bookmark')
+      .and(page.getByRole('button', { name: `Bookmark at ${times[step].toFixed(2)} s: ${note}` }));
+    await marker.waitFor({ timeout: 60_000 });
+    // One marker per bookmark of this replay (the earlier tests pin some too), from the case's list.
+    const listed = (await (await page.request.get(`/api/cases/${caseId}/bookmarks`)).json()).items;
+    expect(await page.getByTestId('timeline-bookmark').count()).toBe(
+      listed.filter((b: { replayId: string }) => b.replayId === replayId).length,
+    );
+    expect(Number(await marker.getAttribute('data-t'))).toBe(times[step]);
+    await marker.scrollIntoViewIfNeeded();
+    const title = page.getByTestId('timeline-bookmark-title');
+    await marker.hover();
+    expect(await title.textContent()).toContain(note);
+    await page.mouse.move(5, 5);
+    await title.waitFor({ state: 'detached' });
+    await marker.focus();
+    expect(await title.textContent()).toContain(`${times[step].toFixed(2)} s`);
+    await saveScreenshot(page, 'workspace-timeline-bookmark');
+
+    await marker.click();
+    const scrubber = page.getByRole('slider', { name: 'Replay time' });
+    await expect.poll(() => scrubber.getAttribute('aria-valuenow')).toBe(String(step));
+    // The timeline's cursor now stands where the bookmark is drawn.
+    const timeline = page.getByTestId('timeline').first();
+    await expect.poll(() => timeline.getAttribute('data-cursor-step')).toBe(String(step));
+    expect(Number(await timeline.getAttribute('data-cursor-x'))).toBeCloseTo(
+      Number(await marker.getAttribute('data-x')),
+      3,
+    );
   }, 120_000);
 });

@@ -18,6 +18,7 @@ import { SafetyPanel } from './safety-panel';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
 import { Timeline } from './timeline';
+import type { TimelineBookmark } from './timeline-bookmarks';
 
 /** The moment on screen, handed to side-panel content (e.g. "pin this moment"). */
 export interface WorkspaceMoment {
@@ -40,6 +41,8 @@ export interface ReplayWorkspaceProps {
   initialTime?: number;
   /** More moments for Previous/Next besides flag starts and events (e.g. bookmark times, s). */
   extraMoments?: readonly number[];
+  /** This replay's bookmarks, drawn on the timeline. */
+  bookmarks?: readonly TimelineBookmark[];
   initialView?: MapViewState;
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
@@ -57,6 +60,7 @@ export function ReplayWorkspace({
   initialView,
   toolbar,
   extraMoments,
+  bookmarks,
   onSavePicture,
 }: ReplayWorkspaceProps) {
   const viewsRef = useRef<HTMLDivElement>(null);
@@ -144,6 +148,7 @@ export function ReplayWorkspace({
             flags={replay.flags}
             step={shownStep}
             onSeek={setStep}
+            bookmarks={bookmarks}
           />
         </div>
       </div>

@@ -9,6 +9,7 @@ import { type TrackSpec, useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { formatReadoutValue, readTracksAt } from '../lib/track-readout';
+import { type TimelineBookmark, TimelineBookmarks } from './timeline-bookmarks';
 import { TimelineMarkers } from './timeline-markers';
 
 const LEFT = 168;
@@ -17,7 +18,9 @@ const TRACK_TERMS: Record<string, string> = { ess: 'ess', loglik: 'loglik' };
 const RIGHT = 16;
 const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
-const BAND_HEIGHT = 44;
+/** Flags, events and bookmarks rows above the time axis. */
+const BAND_HEIGHT = 64;
+const BOOKMARKS_TOP = 42;
 
 export interface TimelineProps {
   series: TReplaySeriesResponse;
@@ -30,6 +33,8 @@ export interface TimelineProps {
   label?: string;
   /** Tracks added below the replay's own (e.g. the separation and stopping analysis). */
   extraTracks?: TrackSpec[];
+  /** This replay's bookmarks, drawn in their own row; clicking one seeks to it. */
+  bookmarks?: readonly TimelineBookmark[];
 }
 
 const formatValue = (v: number) =>
@@ -46,6 +51,7 @@ export const Timeline = memo(function Timeline({
   onSeek,
   label = 'Replay timeline',
   extraTracks,
+  bookmarks = [],
 }: TimelineProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const axisRef = useRef<SVGGElement>(null);
@@ -254,6 +260,14 @@ export const Timeline = memo(function Timeline({
           left={LEFT}
           right={LEFT + plotWidth}
           onHover={setHovered}
+          onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
+        />
+        <TimelineBookmarks
+          bookmarks={bookmarks}
+          toPx={scale.toPx}
+          domain={domain}
+          top={BOOKMARKS_TOP}
+          right={LEFT + plotWidth}
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
         {trackElements}
