@@ -405,4 +405,75 @@ describe('the workspace tells the truth about the step it draws', () => {
       3,
     );
   }, 120_000);
+
+  it('stacks overlapping flags in rows on the timeline, no two touching and no label cut off', async () => {
+    const page = await browser.open({ viewport: DESKTOP });
+    await signInAs(page, 'investigator');
+    // The seeded wheel-slip incident (invented) is the demo bundle whose replays raise flags.
+    const cases = await (await page.request.get('/api/cases?search=defrost')).json();
+    const caseId = cases.items.find((c: { title: string }) => /defrost/i.test(c.title)).id as string;
+    const bundleId = (await (await page.request.get(`/api/cases/${caseId}/bundles`)).json()).items[0].id;
+    const started = await page.request.post(`/api/bundles/${bundleId}/replays`, {
+      headers: await csrfHeaders(page),
+      data: { label: `Flag rows ${Date.now() % 100_000}` },
+    });
+    expect(started.status()).toBe(202);
+    const replayId = (await started.json()).id as string;
+    await waitForReplay(page, replayId);
+    const replay = (await (await page.request.get(`/api/replays/${replayId}`)).json()) as {
+      id: string;
+      flags: unknown[];
+    };
+    expect(replay.flags.length).toBeGreaterThan(1);
+
+    await page.goto(`/bundles/${bundleId}/workspace?replay=${replay.id}`);
+    const timeline = page.getByTestId('timeline').first();
+    await timeline.locator('[data-track="ess"] path').first().waitFor({ timeout: 60_000 });
+    // One bar per flag the replay's own record lists (the whole replay is in view).
+    const markers = timeline.getByTestId('timeline-flag');
+    expect(await markers.count()).toBe(replay.flags.length);
+    // The browser's own measure of each flag's bar and label (not the layout's estimate).
+    const boxes = await markers.evaluateAll((groups) =>
+      groups.map((g) => {
+        const box = (g as SVGGraphicsElement).getBBox();
+        const text = (g.querySelector('text') as SVGTextElement).getBBox();
+        // An SVGRect does not cross to the test as it is: copy the numbers out.
+        const label = { x: text.x, width: text.width };
+        return {
+          row: Number(g.getAttribute('data-row')),
+          x0: box.x,
+          x1: box.x + box.width,
+          y0: box.y,
+          y1: box.y + box.height,
+          label,
+        };
+      }),
+    );
+    const svgWidth = Number(await timeline.getAttribute('width'));
+    for (const box of boxes) {
+      expect(box.label.x).toBeGreaterThanOrEqual(0);
+      expect(box.label.x + box.label.width).toBeLessThanOrEqual(svgWidth);
+    }
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const apartInX = a.x1 <= b.x0 || b.x1 <= a.x0;
+        const apartInY = a.y1 <= b.y0 || b.y1 <= a.y0;
+        expect(apartInX || apartInY, `flags ${i} and ${j} overlap`).toBe(true);
+        if (a.row !== b.row) expect(apartInY).toBe(true);
+      }
+    // The first track starts below the last row of flags.
+    const lowest = Math.max(...boxes.map((b) => b.y1));
+    const essTop = await timeline
+      .locator('[data-track="ess"] rect')
+      .first()
+      .evaluate(
+        (r) =>
+          (r as SVGGraphicsElement).getBoundingClientRect().top -
+          (r as SVGGraphicsElement).ownerSVGElement!.getBoundingClientRect().top,
+      );
+    expect(essTop).toBeGreaterThan(lowest);
+    await timeline.scrollIntoViewIfNeeded();
+    await saveScreenshot(page, 'workspace-timeline-flag-rows');
+  }, 240_000);
 });

@@ -10,7 +10,7 @@ import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../l
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { formatReadoutValue, readTracksAt } from '../lib/track-readout';
 import { type TimelineBookmark, TimelineBookmarks } from './timeline-bookmarks';
-import { TimelineMarkers } from './timeline-markers';
+import { FLAG_ROW_HEIGHT, TimelineMarkers, useFlagBand } from './timeline-markers';
 
 const LEFT = 168;
 /** Tracks whose term has an explanation on the Help page (glossary ids). */
@@ -18,9 +18,8 @@ const TRACK_TERMS: Record<string, string> = { ess: 'ess', loglik: 'loglik' };
 const RIGHT = 16;
 const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
-/** Flags, events and bookmarks rows above the time axis. */
-const BAND_HEIGHT = 64;
-const BOOKMARKS_TOP = 42;
+/** Height of the events row and of the bookmarks row under the flags' rows, px. */
+const MARKER_ROW_HEIGHT = 22;
 
 export interface TimelineProps {
   series: TReplaySeriesResponse;
@@ -70,7 +69,12 @@ export const Timeline = memo(function Timeline({
   );
   const plotWidth = Math.max(50, width - LEFT - RIGHT);
   const scale = useMemo(() => createTimeScale(domain, LEFT, LEFT + plotWidth), [domain, plotWidth]);
-  const tracksTop = BAND_HEIGHT + 24;
+  const flagBand = useFlagBand(flags, scale.toPx, domain, LEFT, LEFT + plotWidth);
+  // Flags stack into as many rows as they need; events, bookmarks and the axis go below them.
+  const flagsHeight = Math.max(1, flagBand.rowCount) * FLAG_ROW_HEIGHT + 4;
+  const bookmarksTop = flagsHeight + MARKER_ROW_HEIGHT;
+  const bandHeight = bookmarksTop + MARKER_ROW_HEIGHT;
+  const tracksTop = bandHeight + 24;
   const height = tracksTop + specs.length * (TRACK_HEIGHT + TRACK_GAP) + 4;
   const seekRef = useRef(onSeek);
   seekRef.current = onSeek;
@@ -251,14 +255,13 @@ export const Timeline = memo(function Timeline({
         data-cursor-step={step}
         data-cursor-x={cursorX}
       >
-        <g ref={axisRef} transform={`translate(0, ${BAND_HEIGHT + 2})`} className="text-xs text-ink-muted" />
+        <g ref={axisRef} transform={`translate(0, ${bandHeight + 2})`} className="text-xs text-ink-muted" />
         <TimelineMarkers
-          flags={flags}
+          band={flagBand}
           events={tracks?.events ?? []}
           toPx={scale.toPx}
           domain={domain}
-          left={LEFT}
-          right={LEFT + plotWidth}
+          eventsY={flagsHeight + 12}
           onHover={setHovered}
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
@@ -266,7 +269,7 @@ export const Timeline = memo(function Timeline({
           bookmarks={bookmarks}
           toPx={scale.toPx}
           domain={domain}
-          top={BOOKMARKS_TOP}
+          top={bookmarksTop}
           right={LEFT + plotWidth}
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
