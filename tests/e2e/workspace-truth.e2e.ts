@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { largeBundleZip } from '../../bench/support/large-bundle-zip';
 import { csrfHeaders, waitForReplay } from './support/api-session';
-import { DESKTOP, saveScreenshot, useBrowser } from './support/browser';
+import { DESKTOP, NARROW, saveScreenshot, useBrowser } from './support/browser';
 import { signInAs } from './support/sign-in';
 
 // The figures checked here are the issue's acceptance numbers (drawn step equals the cursor
@@ -406,6 +406,9 @@ describe('the workspace tells the truth about the step it draws', () => {
     );
   }, 120_000);
 
+  // The flagged replay the flag-rows test makes, reused by the layout test after it.
+  let flagged: { bundleId: string; replayId: string } | null = null;
+
   it('stacks overlapping flags in rows on the timeline, no two touching and no label cut off', async () => {
     const page = await browser.open({ viewport: DESKTOP });
     await signInAs(page, 'investigator');
@@ -426,6 +429,7 @@ describe('the workspace tells the truth about the step it draws', () => {
     };
     expect(replay.flags.length).toBeGreaterThan(1);
 
+    flagged = { bundleId, replayId };
     await page.goto(`/bundles/${bundleId}/workspace?replay=${replay.id}`);
     const timeline = page.getByTestId('timeline').first();
     await timeline.locator('[data-track="ess"] path').first().waitFor({ timeout: 60_000 });
@@ -476,4 +480,58 @@ describe('the workspace tells the truth about the step it draws', () => {
     await timeline.scrollIntoViewIfNeeded();
     await saveScreenshot(page, 'workspace-timeline-flag-rows');
   }, 240_000);
+
+  it('shows the map, the first timeline tracks and the flags together at 1280x800, and nothing covers the map at 1024x768', async () => {
+    if (!flagged) throw new Error('the flag-rows test did not make the flagged replay');
+    for (const [viewport, name] of [
+      [DESKTOP, 'workspace-layout-1280'],
+      [NARROW, 'workspace-layout-1024'],
+    ] as const) {
+      const page = await browser.open({ viewport });
+      await signInAs(page, 'investigator');
+      await page.goto(`/bundles/${flagged.bundleId}/workspace?replay=${flagged.replayId}`);
+      const timeline = page.getByTestId('timeline').first();
+      const firstTrack = timeline.locator('[data-track="ess"] rect').first();
+      await firstTrack.waitFor({ timeout: 60_000 });
+      const canvas = page.getByTestId('map-canvas');
+      await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 30_000 }).toBe('0');
+      await saveScreenshot(page, name);
+      expect(await page.evaluate(() => window.scrollY)).toBe(0);
+      const box = async (locator: typeof canvas) => {
+        const b = await locator.boundingBox();
+        if (!b) throw new Error('not laid out');
+        return b;
+      };
+      const map = await box(canvas);
+      if (viewport === DESKTOP) {
+        // Fully inside the window without scrolling: the map, the flags' row and the first track,
+        // and the side panel's first flag.
+        const onScreen = [
+          map,
+          await box(timeline.getByTestId('timeline-flag').first()),
+          await box(firstTrack),
+          await box(page.getByRole('list', { name: 'Flags in this replay' }).getByRole('button').first()),
+        ];
+        for (const b of onScreen) {
+          expect(b.y).toBeGreaterThanOrEqual(0);
+          expect(b.y + b.height).toBeLessThanOrEqual(viewport.height);
+          expect(b.x + b.width).toBeLessThanOrEqual(viewport.width);
+        }
+      }
+      // Nothing covers the map: what the browser finds at points across it is the map itself or
+      // the map's own overlays (its readouts and zoom buttons), never the controls or side panel.
+      const covered = await page.evaluate((m) => {
+        const figure = document.querySelector('[data-testid="map-canvas"]')!.closest('figure')!;
+        const misses: string[] = [];
+        for (let i = 1; i < 10; i++)
+          for (let j = 1; j < 10; j++) {
+            const hit = document.elementFromPoint(m.x + (m.width * i) / 10, m.y + (m.height * j) / 10);
+            if (!hit || !figure.contains(hit)) misses.push(`${i},${j}: ${hit?.outerHTML.slice(0, 80)}`);
+          }
+        return misses;
+      }, map);
+      expect(covered).toEqual([]);
+      await page.context().close();
+    }
+  }, 120_000);
 });

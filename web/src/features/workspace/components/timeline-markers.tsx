@@ -9,7 +9,7 @@ import type { TimeDomain } from '../lib/time-scale';
 /** Flag intensity by severity; the label carries the severity too, never the shade alone. */
 const SEVERITY_OPACITY = { info: 0.25, warning: 0.5, critical: 0.85 } as const;
 /** Height of one row of flags, px. */
-export const FLAG_ROW_HEIGHT = 20;
+export const FLAG_ROW_HEIGHT = 19;
 /** An over-estimate of a text-xs character's width, so a label is given all the room it needs. */
 const CHAR_PX = 7;
 

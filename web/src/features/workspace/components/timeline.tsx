@@ -73,7 +73,8 @@ export const Timeline = memo(function Timeline({
   // Flags stack into as many rows as they need; events, bookmarks and the axis go below them.
   const flagsHeight = Math.max(1, flagBand.rowCount) * FLAG_ROW_HEIGHT + 4;
   const bookmarksTop = flagsHeight + MARKER_ROW_HEIGHT;
-  const bandHeight = bookmarksTop + MARKER_ROW_HEIGHT;
+  // The bookmarks row is drawn only when there is something to draw, to keep the tracks high up.
+  const bandHeight = bookmarksTop + (bookmarks.length ? MARKER_ROW_HEIGHT : 0);
   const tracksTop = bandHeight + 24;
   const height = tracksTop + specs.length * (TRACK_HEIGHT + TRACK_GAP) + 4;
   const seekRef = useRef(onSeek);
@@ -265,14 +266,16 @@ export const Timeline = memo(function Timeline({
           onHover={setHovered}
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
-        <TimelineBookmarks
-          bookmarks={bookmarks}
-          toPx={scale.toPx}
-          domain={domain}
-          top={bookmarksTop}
-          right={LEFT + plotWidth}
-          onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
-        />
+        {bookmarks.length > 0 && (
+          <TimelineBookmarks
+            bookmarks={bookmarks}
+            toPx={scale.toPx}
+            domain={domain}
+            top={bookmarksTop}
+            right={LEFT + plotWidth}
+            onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
+          />
+        )}
         {trackElements}
         {/* The zoom brush is a control: exported pictures leave it out. */}
         <g ref={brushRef} data-picture-skip="" />
