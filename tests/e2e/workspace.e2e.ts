@@ -49,7 +49,15 @@ describe('investigator workspace', () => {
     const step = await scrubber.getAttribute('aria-valuenow');
     await expect.poll(() => canvas.getAttribute('data-drawn-step'), { timeout: 20_000 }).toBe(step);
     expect(Number(await canvas.getAttribute('data-particle-count'))).toBeGreaterThan(0);
-    // And pixels of the replay colour (#0072B2) are on the canvas.
+    // And pixels of the replay colour (#0072B2) are on the canvas. The map fits 1280x800 beside
+    // the timeline, so it opens small: follow the robot and zoom in for the cloud to spread out.
+    await page.getByLabel('Follow robot').check();
+    await page.getByRole('button', { name: 'Zoom in' }).click();
+    await page.getByRole('button', { name: 'Zoom in' }).click();
+    // Two animation frames: the zoomed view renders, then the canvas draws it.
+    await page.evaluate(
+      () => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))),
+    );
     const bluePixels = await canvas.evaluate((element) => {
       const c = element as HTMLCanvasElement;
       const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;

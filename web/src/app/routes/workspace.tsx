@@ -46,10 +46,14 @@ export function WorkspaceRoute() {
   const linkedTime = search.get('t') === null ? undefined : Number(search.get('t'));
   const deepLinkTime = linkedTime !== undefined && Number.isFinite(linkedTime) ? linkedTime : undefined;
   const bookmarks = useBookmarks(bundle.data?.caseId ?? '');
-  const bookmarkTimes = useMemo(
-    () => (bookmarks.data ?? []).filter((b) => b.replayId === chosenId).map((b) => b.t),
+  const replayBookmarks = useMemo(
+    () =>
+      (bookmarks.data ?? [])
+        .filter((b) => b.replayId === chosenId)
+        .map((b) => ({ id: b.id, t: b.t, title: b.note || `Bookmark by ${b.author.name}` })),
     [bookmarks.data, chosenId],
   );
+  const bookmarkTimes = useMemo(() => replayBookmarks.map((b) => b.t), [replayBookmarks]);
   const me = useMe();
   const saveFigure = useSaveFigure(bundle.data?.caseId ?? '');
   const navigate = useNavigate();
@@ -146,6 +150,7 @@ export function WorkspaceRoute() {
           initialStep={restoring?.step}
           initialTime={restoring ? undefined : deepLinkTime}
           extraMoments={bookmarkTimes}
+          bookmarks={replayBookmarks}
           initialView={restoring?.view}
           // Investigators make evidence; the export buttons themselves are for everyone.
           onSavePicture={me.data?.user.role === 'investigator' ? saveFigure : undefined}

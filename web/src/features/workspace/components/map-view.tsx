@@ -1,10 +1,11 @@
 import type { TBundleMap, TBundleTracks } from '@shared/contracts/bundle-views';
 import type { TReplayStepResponse } from '@shared/contracts/replays';
 import { Button } from '@web/components/button';
-import { Crosshair, Maximize, Minus, Plus } from 'lucide-react';
+import { Crosshair, Maximize, Minus, Plus, Ruler } from 'lucide-react';
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { useReplayDisagreement } from '../api/get-replay-disagreement';
 import { useElementWidth } from '../hooks/use-element-width';
+import { useMapMeasure } from '../hooks/use-map-measure';
 import { useMapViewport } from '../hooks/use-map-viewport';
 import {
   drawCovarianceEllipse,
@@ -23,6 +24,7 @@ import { mapToScreen, nearestParticle, scaleBarLength, screenToMap } from '../li
 import { momentDisagreement } from '../lib/moment-disagreement';
 import { poseAtTime } from '../lib/pose-at-time';
 import { MapLegend } from './map-legend';
+import { MapMeasureOverlay } from './map-measure-overlay';
 
 export interface MapViewProps {
   map: TBundleMap;
@@ -72,6 +74,7 @@ export const MapView = memo(function MapView({
   const showHeat = heatMode !== 'off';
   const [hover, setHover] = useState<{ px: number; py: number; index: number } | null>(null);
   const [drawnCount, setDrawnCount] = useState(0);
+  const measure = useMapMeasure();
   const heat = useReplayDisagreement(replayId, heatMode === 'replay');
   const momentHeat = useMemo(
     () => (heatMode === 'moment' && particles ? momentDisagreement(map, particles.scanEndpoints) : undefined),
@@ -211,21 +214,39 @@ export const MapView = memo(function MapView({
           data-testid="map-canvas"
           data-particle-count={drawnCount}
           style={{ width, height, touchAction: 'none' }}
-          className="block cursor-grab active:cursor-grabbing"
+          className={`block ${measure.isMeasuring ? 'cursor-crosshair' : 'cursor-grab active:cursor-grabbing'}`}
           onWheel={handlers.onWheel}
-          onPointerDown={handlers.onPointerDown}
+          // While measuring, a press places a point instead of starting a pan.
+          onPointerDown={measure.isMeasuring ? undefined : handlers.onPointerDown}
           onPointerUp={handlers.onPointerUp}
-          onPointerLeave={() => setHover(null)}
+          onClick={(event) => {
+            if (!measure.isMeasuring || !view) return;
+            const rect = event.currentTarget.getBoundingClientRect();
+            const [x, y] = screenToMap(
+              view,
+              width,
+              height,
+              event.clientX - rect.left,
+              event.clientY - rect.top,
+            );
+            measure.addPoint({ x, y });
+          }}
+          onPointerLeave={() => {
+            setHover(null);
+            measure.setPointer(null);
+          }}
           onPointerMove={(event) => {
             if (handlers.dragTo(event)) {
               setIsFollowing(false);
               return;
             }
-            if (!view || !particles) return;
+            if (!view) return;
             const rect = event.currentTarget.getBoundingClientRect();
             const px = event.clientX - rect.left;
             const py = event.clientY - rect.top;
             const [mx, my] = screenToMap(view, width, height, px, py);
+            measure.setPointer({ x: mx, y: my });
+            if (!particles) return;
             setHover({
               px,
               py,
@@ -277,7 +298,17 @@ export const MapView = memo(function MapView({
             {bar.metres} <span className="text-ink-muted">m</span>
           </div>
         )}
+        {view && <MapMeasureOverlay view={view} size={{ width, height }} measure={measure} />}
         <div className="absolute top-2 right-2 flex flex-col gap-1">
+          <Button
+            size="sm"
+            icon={Ruler}
+            variant={measure.isMeasuring ? 'primary' : 'secondary'}
+            aria-pressed={measure.isMeasuring}
+            aria-label="Measure"
+            title="Measure: click two points on the map (Escape clears)"
+            onClick={measure.toggleMeasuring}
+          />
           <Button size="sm" icon={Plus} aria-label="Zoom in" title="Zoom in" onClick={() => zoom(1.5)} />
           <Button
             size="sm"

@@ -29,7 +29,7 @@ export function MomentLink({ bundleId, replayId, time }: MomentLinkProps) {
     }
   };
   return (
-    <span className="inline-flex items-center gap-1.5">
+    <span className="inline-flex flex-wrap items-center gap-1.5">
       <Button size="sm" icon={copied === 'yes' ? Check : Link2} onClick={copy}>
         {copied === 'yes' ? 'Link copied' : 'Copy link to this moment'}
       </Button>

@@ -6,6 +6,7 @@ import { useReplayStep } from '../api/get-replay-step';
 import { useReplayViewData } from '../hooks/use-replay-view-data';
 import { useSafetyOverlay } from '../hooks/use-safety-overlay';
 import { useSafetyTrackSpecs } from '../hooks/use-safety-track-specs';
+import { useViewportHeight } from '../hooks/use-viewport-height';
 import type { Picture } from '../lib/make-picture';
 import type { MapViewState } from '../lib/map-view-state';
 import { nearestStep } from '../lib/time-scale';
@@ -18,6 +19,15 @@ import { SafetyPanel } from './safety-panel';
 import { Scrubber } from './scrubber';
 import { type SidePanelTab, SidePanelTabs } from './side-panel-tabs';
 import { Timeline } from './timeline';
+import type { TimelineBookmark } from './timeline-bookmarks';
+
+/**
+ * Room the map leaves in the window for what sits around it: the app's header, the page title and
+ * replay list, the scrubber, the map's caption and legend, and the timeline's flags and first
+ * tracks, so at 1280x800 all of them are on screen together (#12: an instrument's layout).
+ */
+const MAP_SURROUNDINGS_PX = 570;
+const MAP_HEIGHT = { min: 220, max: 420 };
 
 /** The moment on screen, handed to side-panel content (e.g. "pin this moment"). */
 export interface WorkspaceMoment {
@@ -40,6 +50,8 @@ export interface ReplayWorkspaceProps {
   initialTime?: number;
   /** More moments for Previous/Next besides flag starts and events (e.g. bookmark times, s). */
   extraMoments?: readonly number[];
+  /** This replay's bookmarks, drawn on the timeline. */
+  bookmarks?: readonly TimelineBookmark[];
   initialView?: MapViewState;
   /** Controls placed beside the scrubber (e.g. a "pin this moment" button). */
   toolbar?: (moment: WorkspaceMoment) => ReactNode;
@@ -57,9 +69,14 @@ export function ReplayWorkspace({
   initialView,
   toolbar,
   extraMoments,
+  bookmarks,
   onSavePicture,
 }: ReplayWorkspaceProps) {
   const viewsRef = useRef<HTMLDivElement>(null);
+  const viewportHeight = useViewportHeight();
+  const mapHeight = Math.round(
+    Math.max(MAP_HEIGHT.min, Math.min(MAP_HEIGHT.max, viewportHeight - MAP_SURROUNDINGS_PX)),
+  );
   const data = useReplayViewData(bundleId, replay.id);
   const times = (data.series?.columns.t ?? []) as number[];
   const [step, setStep] = useState<number | null>(null);
@@ -103,20 +120,13 @@ export function ReplayWorkspace({
   const shownMoment = { ...moment, step: shownStep, time: shownTime };
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_18rem] gap-4">
-      <div ref={viewsRef} className="min-w-0 space-y-3">
+      <div ref={viewsRef} className="min-w-0 space-y-2">
         {/* Sticky, so the current time and step stay on screen while reading the timeline. */}
-        <div className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised p-3 shadow-sm">
+        <div
+          data-testid="workspace-controls"
+          className="sticky top-0 z-20 rounded-lg border border-canvas-line bg-canvas-raised px-3 py-2 shadow-sm"
+        >
           <Scrubber times={times} step={current} onStep={setStep} moments={moments} />
-          <div className="mt-2 flex flex-wrap items-center gap-2">
-            {toolbar?.(moment)}
-            <MomentLink bundleId={bundleId} replayId={replay.id} time={time} />
-          </div>
-          <div className="mt-2">
-            <PictureExportBar
-              source={() => viewsRef.current && { container: viewsRef.current, replay, times }}
-              onSave={onSavePicture}
-            />
-          </div>
         </div>
         <MapView
           map={data.map}
@@ -125,6 +135,7 @@ export function ReplayWorkspace({
           particles={particles.data}
           time={shownTime}
           targetStep={shownStep}
+          height={mapHeight}
           initialView={initialView}
           onViewChange={setMapView}
           drawOverlay={drawOverlay}
@@ -144,13 +155,24 @@ export function ReplayWorkspace({
             flags={replay.flags}
             step={shownStep}
             onSeek={setStep}
+            bookmarks={bookmarks}
           />
         </div>
+        {/* Below the views it draws: exporting is occasional, the scrubber is used all the time. */}
+        <PictureExportBar
+          source={() => viewsRef.current && { container: viewsRef.current, replay, times }}
+          onSave={onSavePicture}
+        />
       </div>
       <aside
         aria-label="Workspace side panel"
         className="rounded-lg border border-canvas-line bg-canvas-raised p-3"
       >
+        {/* Here rather than under the scrubber: one row less above the map at 1280x800. */}
+        <div className="mb-2 flex flex-wrap items-center gap-2">
+          {toolbar?.(moment)}
+          <MomentLink bundleId={bundleId} replayId={replay.id} time={time} />
+        </div>
         <SidePanelTabs
           tabs={[
             {

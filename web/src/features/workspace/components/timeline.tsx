@@ -9,7 +9,8 @@ import { type TrackSpec, useTrackSpecs } from '../hooks/use-track-specs';
 import { clampDomain, createTimeScale, nearestStep, type TimeDomain } from '../lib/time-scale';
 import { buildTrackPath, markerPositions } from '../lib/track-path';
 import { formatReadoutValue, readTracksAt } from '../lib/track-readout';
-import { TimelineMarkers } from './timeline-markers';
+import { type TimelineBookmark, TimelineBookmarks } from './timeline-bookmarks';
+import { FLAG_ROW_HEIGHT, TimelineMarkers, useFlagBand } from './timeline-markers';
 
 const LEFT = 168;
 /** Tracks whose term has an explanation on the Help page (glossary ids). */
@@ -17,7 +18,8 @@ const TRACK_TERMS: Record<string, string> = { ess: 'ess', loglik: 'loglik' };
 const RIGHT = 16;
 const TRACK_HEIGHT = 46;
 const TRACK_GAP = 10;
-const BAND_HEIGHT = 44;
+/** Height of the events row and of the bookmarks row under the flags' rows, px. */
+const MARKER_ROW_HEIGHT = 22;
 
 export interface TimelineProps {
   series: TReplaySeriesResponse;
@@ -30,6 +32,8 @@ export interface TimelineProps {
   label?: string;
   /** Tracks added below the replay's own (e.g. the separation and stopping analysis). */
   extraTracks?: TrackSpec[];
+  /** This replay's bookmarks, drawn in their own row; clicking one seeks to it. */
+  bookmarks?: readonly TimelineBookmark[];
 }
 
 const formatValue = (v: number) =>
@@ -46,6 +50,7 @@ export const Timeline = memo(function Timeline({
   onSeek,
   label = 'Replay timeline',
   extraTracks,
+  bookmarks = [],
 }: TimelineProps) {
   const [containerRef, width] = useElementWidth<HTMLDivElement>();
   const axisRef = useRef<SVGGElement>(null);
@@ -64,7 +69,13 @@ export const Timeline = memo(function Timeline({
   );
   const plotWidth = Math.max(50, width - LEFT - RIGHT);
   const scale = useMemo(() => createTimeScale(domain, LEFT, LEFT + plotWidth), [domain, plotWidth]);
-  const tracksTop = BAND_HEIGHT + 24;
+  const flagBand = useFlagBand(flags, scale.toPx, domain, LEFT, LEFT + plotWidth);
+  // Flags stack into as many rows as they need; events, bookmarks and the axis go below them.
+  const flagsHeight = Math.max(1, flagBand.rowCount) * FLAG_ROW_HEIGHT + 4;
+  const bookmarksTop = flagsHeight + MARKER_ROW_HEIGHT;
+  // The bookmarks row is drawn only when there is something to draw, to keep the tracks high up.
+  const bandHeight = bookmarksTop + (bookmarks.length ? MARKER_ROW_HEIGHT : 0);
+  const tracksTop = bandHeight + 24;
   const height = tracksTop + specs.length * (TRACK_HEIGHT + TRACK_GAP) + 4;
   const seekRef = useRef(onSeek);
   seekRef.current = onSeek;
@@ -245,17 +256,26 @@ export const Timeline = memo(function Timeline({
         data-cursor-step={step}
         data-cursor-x={cursorX}
       >
-        <g ref={axisRef} transform={`translate(0, ${BAND_HEIGHT + 2})`} className="text-xs text-ink-muted" />
+        <g ref={axisRef} transform={`translate(0, ${bandHeight + 2})`} className="text-xs text-ink-muted" />
         <TimelineMarkers
-          flags={flags}
+          band={flagBand}
           events={tracks?.events ?? []}
           toPx={scale.toPx}
           domain={domain}
-          left={LEFT}
-          right={LEFT + plotWidth}
+          eventsY={flagsHeight + 12}
           onHover={setHovered}
           onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
         />
+        {bookmarks.length > 0 && (
+          <TimelineBookmarks
+            bookmarks={bookmarks}
+            toPx={scale.toPx}
+            domain={domain}
+            top={bookmarksTop}
+            right={LEFT + plotWidth}
+            onSeekTime={(t) => onSeek(Math.max(0, nearestStep(times, t)))}
+          />
+        )}
         {trackElements}
         {/* The zoom brush is a control: exported pictures leave it out. */}
         <g ref={brushRef} data-picture-skip="" />
