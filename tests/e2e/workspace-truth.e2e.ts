@@ -518,6 +518,14 @@ describe('the workspace tells the truth about the step it draws', () => {
           expect(b.x + b.width).toBeLessThanOrEqual(viewport.width);
         }
       }
+      // Every side-panel tab is shown whole, inside its panel (a cut "Bookmar…" hid a tab).
+      const tablist = await box(page.getByRole('tablist', { name: 'Side panel' }));
+      const tabs = page.getByRole('tablist', { name: 'Side panel' }).getByRole('tab');
+      for (let i = 0; i < (await tabs.count()); i++) {
+        const tab = await box(tabs.nth(i));
+        expect(tab.x).toBeGreaterThanOrEqual(tablist.x - 0.5);
+        expect(tab.x + tab.width).toBeLessThanOrEqual(tablist.x + tablist.width + 0.5);
+      }
       // Nothing covers the map: what the browser finds at points across it is the map itself or
       // the map's own overlays (its readouts and zoom buttons), never the controls or side panel.
       const covered = await page.evaluate((m) => {

@@ -16,7 +16,7 @@ export function SidePanelTabs({ tabs }: { tabs: SidePanelTab[] }) {
   );
   return (
     <div>
-      <div role="tablist" aria-label="Side panel" className="flex border-b border-canvas-line">
+      <div role="tablist" aria-label="Side panel" className="flex flex-wrap border-b border-canvas-line">
         {tabs.map((tab, i) => (
           <button
             key={tab.id}
@@ -33,7 +33,7 @@ export function SidePanelTabs({ tabs }: { tabs: SidePanelTab[] }) {
               setCurrent(tabs[next].id);
               document.getElementById(`${baseId}-tab-${tabs[next].id}`)?.focus();
             }}
-            className={`-mb-px border-b-2 px-3 py-1.5 text-sm font-bold ${i === index ? 'border-accent text-ink' : 'border-transparent text-ink-muted hover:text-ink'}`}
+            className={`-mb-px border-b-2 px-2.5 py-1.5 text-sm font-bold ${i === index ? 'border-accent text-ink' : 'border-transparent text-ink-muted hover:text-ink'}`}
           >
             {tab.label}
           </button>
